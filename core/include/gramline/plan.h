@@ -1,0 +1,98 @@
+#pragma once
+// Planning: settings, their order, their pairs and dwell times, and the night timeline.
+#include <Eigen/Core>
+#include <cstdint>
+#include <string>
+#include <vector>
+
+#include "gramline/campaign.h"
+#include "gramline/gram_error.h"
+#include "gramline/progress.h"
+
+namespace gramline {
+
+enum class StepKind { measure, reference, dark, park };
+enum class Block { train, test, none };
+
+/// One step of the schedule. Point indices are global (training first, then test), -1 if none.
+struct Step {
+  StepKind kind = StepKind::measure;
+  Block block = Block::none;
+  int prep_point = -1;
+  int analysis_point = -1;
+  std::vector<double> position_deg;  ///< physical position per motor (rig.motors order)
+  double kernel_ideal = 0.0;
+  double p_pass = 0.0;
+  double pairs = 0.0;
+  double dwell_s = 0.0;
+  double move_s = 0.0;
+  double start_s = 0.0;  ///< seconds from the start of the first night to the move's start
+  int night = 1;
+};
+
+struct NightUse {
+  int night = 1;
+  double busy_s = 0.0;      ///< moving + counting in this night
+  double move_s = 0.0;
+  double integration_s = 0.0;  ///< measure steps' dwell
+  double reference_s = 0.0;    ///< reference, dark and park steps (dwell + move)
+  double window_s = 0.0;
+  double fill() const { return window_s > 0 ? busy_s / window_s : 0.0; }
+};
+
+struct PlanSummary {
+  long settings = 0;
+  long steps = 0;
+  double pairs_total = 0.0;
+  double integration_s = 0.0;  ///< dwell of measure steps
+  double move_s = 0.0;         ///< move time of all steps
+  double reference_s = 0.0;    ///< dwell + move of reference, dark and park steps
+  double total_s = 0.0;        ///< end of the last step, from the start of night 1
+  int nights = 0;
+  double move_lower_bound_s = 0.0;  ///< proven lower bound, measure steps' moves
+  double move_naive_s = 0.0;        ///< row-by-row order, same model
+  double measure_move_s = 0.0;      ///< move time of measure steps only
+  double gram_sigma_frobenius = 0.0;
+  double epsilon_reached = 0.0;     ///< kernel half-width at the planned pairs (fit to nights)
+  double truncation_cost_s = 0.0;   ///< extra move time of the truncation-safe order
+  double plan_ms = 0.0;
+  bool fits = true;                 ///< false when max_nights is not enough
+  std::vector<NightUse> night_use;
+};
+
+struct PlanOptions {
+  std::uint64_t seed = 1;
+  bool optimize_order = true;  ///< false: row-by-row order
+  bool monte_carlo_gram = false;
+  WorkHooks hooks;
+};
+
+struct Plan {
+  std::vector<Step> steps;
+  PlanSummary summary;
+  Eigen::MatrixXd kernel_train;   ///< N x N ideal
+  Eigen::MatrixXd kernel_test;    ///< M x N ideal
+  Eigen::MatrixXd pairs_train;    ///< N x N planned pairs per entry (0 on the diagonal)
+  Eigen::MatrixXd pairs_test;     ///< M x N
+  Eigen::MatrixXd sigma_train;    ///< N x N predicted sigma per entry
+  Eigen::MatrixXd sigma_test;     ///< M x N
+  Eigen::MatrixXi step_of_train;  ///< N x N index of the step measuring each entry (-1: none)
+  Eigen::MatrixXi step_of_test;   ///< M x N
+  GramError gram_error;
+  /// Human-readable summary (a few lines), as printed by the CLI.
+  std::string report() const;
+};
+
+/// Plans the campaign. Throws std::invalid_argument naming the field for an invalid campaign.
+Plan plan_campaign(const Campaign& campaign, const PlanOptions& options = {});
+
+/// Recomputes every step's move_s from positions alone (SPEC section 2); used by tests and the
+/// resume path. Returns the total.
+double recompute_moves(const Rig& rig, std::vector<Step>& steps);
+
+std::string to_string(StepKind);
+std::string to_string(Block);
+bool from_string(const std::string&, StepKind&);
+bool from_string(const std::string&, Block&);
+
+}  // namespace gramline

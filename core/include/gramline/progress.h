@@ -1,0 +1,33 @@
+#pragma once
+// Progress reporting and cancellation shared by every long computation of the engine.
+#include <atomic>
+#include <functional>
+#include <stdexcept>
+
+namespace gramline {
+
+/// Called with a fraction in [0, 1] of the work done. May be empty.
+using ProgressFn = std::function<void(double fraction_done)>;
+
+/// Long work polls this flag and stops early (throwing Cancelled) when it becomes true.
+using CancelFlag = std::atomic<bool>;
+
+/// Thrown by long work that saw its cancel flag raised.
+struct Cancelled : std::runtime_error {
+  Cancelled() : std::runtime_error("cancelled") {}
+};
+
+/// Bundles the two hooks so options structs can carry them.
+struct WorkHooks {
+  ProgressFn progress;
+  const CancelFlag* cancel = nullptr;
+  void report(double fraction) const {
+    if (progress) progress(fraction);
+  }
+  bool cancelled() const { return cancel && cancel->load(std::memory_order_relaxed); }
+  void throw_if_cancelled() const {
+    if (cancelled()) throw Cancelled();
+  }
+};
+
+}  // namespace gramline

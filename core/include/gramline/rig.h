@@ -1,0 +1,83 @@
+#pragma once
+// The rig: motorized waveplates, their controller, the photon-pair source and the detectors.
+#include <optional>
+#include <string>
+#include <vector>
+
+namespace gramline {
+
+enum class Stage { prep, analysis };
+enum class Plate { HWP, QWP };
+enum class Backlash { shortest, from_below };
+enum class MoveMode { simultaneous, sequential };
+
+/// Closed travel range of a motor, degrees.
+struct TravelRange {
+  double low_deg = 0.0;
+  double high_deg = 360.0;
+};
+
+/// One motorized rotation mount (SPEC section 2).
+struct Motor {
+  std::string name;
+  int photon = 0;               ///< photon index, 0-based
+  Stage stage = Stage::prep;
+  Plate plate = Plate::HWP;
+  double speed_deg_per_s = 15.0;     ///< max speed v
+  double accel_deg_per_s2 = 30.0;    ///< acceleration a
+  std::optional<TravelRange> range;  ///< absent: continuous rotation
+  Backlash backlash = Backlash::shortest;
+  double overshoot_deg = 0.0;   ///< used by from_below
+  double initial_deg = 0.0;     ///< physical position at the start of the campaign
+};
+
+struct Controller {
+  MoveMode moves = MoveMode::simultaneous;
+  double settle_s = 0.5;    ///< added once per step when any motor moved
+  double overhead_s = 0.1;  ///< added to every step
+};
+
+/// Photon-pair source and detection (global depolarizing model, SPEC section 1).
+struct Source {
+  double pair_rate_per_s = 50000.0;  ///< pairs emitted per second
+  double visibility = 0.98;          ///< V in p = V kappa + (1 - V) / 2^P
+};
+
+struct Detector {
+  double efficiency = 0.2;       ///< per-arm detection efficiency (coupling x detector), 0..1
+  double dark_rate_per_s = 100;  ///< dark counts per second
+};
+
+enum class DetectionScheme {
+  pass_only,   ///< one detector per photon on the pass port; Poisson statistics, normalised
+               ///< by reference settings
+  both_ports,  ///< both PBS outputs detected (2^P coincidence channels); binomial statistics
+};
+
+struct Rig {
+  std::vector<Motor> motors;
+  Controller controller;
+  Source source;
+  std::vector<Detector> detectors;  ///< one per photon (per arm)
+  double coincidence_window_s = 2e-9;  ///< full coincidence window tau
+  DetectionScheme scheme = DetectionScheme::both_ports;
+
+  /// Index of the motor for (photon, stage, plate), or -1.
+  int motor_index(int photon, Stage stage, Plate plate) const;
+  /// Returns empty when every photon 0..photons-1 has its four motors and one detector,
+  /// and every parameter is physical; otherwise a message naming the field.
+  std::string check(int photons) const;
+};
+
+std::string to_string(Stage);
+std::string to_string(Plate);
+std::string to_string(Backlash);
+std::string to_string(MoveMode);
+std::string to_string(DetectionScheme);
+bool from_string(const std::string&, Stage&);
+bool from_string(const std::string&, Plate&);
+bool from_string(const std::string&, Backlash&);
+bool from_string(const std::string&, MoveMode&);
+bool from_string(const std::string&, DetectionScheme&);
+
+}  // namespace gramline

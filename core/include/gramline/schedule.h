@@ -1,0 +1,66 @@
+#pragma once
+// Scheduler: the order of the measure steps, the motor positions of every step, reference,
+// dark and park steps, and the night timeline (SPEC sections 2 and 3).
+#include <string>
+#include <vector>
+
+#include "gramline/campaign.h"
+#include "gramline/plan.h"
+#include "gramline/progress.h"
+#include "gramline/waveplates.h"
+
+namespace gramline {
+
+/// Target angles of one point: per photon, the two discrete solutions of each stage.
+struct PointTargets {
+  std::vector<StageSolutions> prep;      ///< [photon]
+  std::vector<StageSolutions> analysis;  ///< [photon]
+};
+
+/// One kernel entry to measure. `a` and `b` are global point indices (a < b for training
+/// pairs; a = test point, b = training point for the test block). The orientation (which
+/// point is prepared) is the scheduler's choice: the kernel is symmetric.
+struct EntryRequest {
+  int a = 0;
+  int b = 0;
+  Block block = Block::train;
+  double kernel_ideal = 0.0;
+  double p_pass = 0.0;
+  double pairs = 0.0;
+  double dwell_s = 0.0;
+};
+
+struct ScheduleInput {
+  const Rig* rig = nullptr;
+  std::vector<PointTargets> points;  ///< by global point index
+  std::vector<EntryRequest> entries;
+  int train_count = 0;
+  double pair_detect_rate_per_s = 1.0;  ///< pairs / dwell_s, used when scaling pairs
+  double reference_pairs = 0.0;         ///< pairs of one reference step
+  double reference_p_pass = 1.0;        ///< p_pass of a diagonal setting (kernel 1)
+  NightWindow nights;
+  ScheduleSettings settings;
+};
+
+struct ScheduleOptions {
+  std::uint64_t seed = 1;
+  bool optimize_order = true;  ///< false: the row-by-row order
+  WorkHooks hooks;
+};
+
+struct ScheduleResult {
+  std::vector<Step> steps;
+  double move_lower_bound_s = 0.0;  ///< proven bound on the measure steps' total move time
+  double move_naive_s = 0.0;        ///< measure steps in row-by-row order, same model
+  double truncation_cost_s = 0.0;   ///< extra move time of the truncation-safe order
+  double pairs_scale = 1.0;         ///< factor applied to every entry's pairs (fit to nights)
+  int nights = 0;
+  bool fits = true;
+  std::vector<NightUse> night_use;
+  std::string report() const;
+};
+
+/// Orders the entries and lays the steps on the nights. Deterministic for a seed.
+ScheduleResult build_schedule(const ScheduleInput& input, const ScheduleOptions& options);
+
+}  // namespace gramline
