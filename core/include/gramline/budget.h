@@ -14,9 +14,9 @@ enum class BudgetMethod {
 
 struct BudgetOptions {
   BudgetMethod method = BudgetMethod::wilson;
-  double epsilon = 0.02;      ///< target half-width on the kernel value
-  double confidence = 0.95;   ///< 1 - delta
-  bool worst_case = false;    ///< use p = 1/2 instead of the predicted p
+  double epsilon = 0.02;     ///< target half-width on the kernel value
+  double confidence = 0.95;  ///< 1 - delta
+  bool worst_case = false;   ///< use p = 1/2 instead of the predicted p
 };
 
 /// Inputs that describe one entry's statistics.
@@ -25,8 +25,13 @@ struct EntryModel {
   int photons = 2;
   double p_pass = 0.5;
   double visibility = 1.0;
-  double accidental_ratio = 0.0;  ///< a / r: accidentals per detected pair in the pass channel
+  double accidental_ratio = 0.0;        ///< a_pass / r: pass-channel accidentals per pair
+  double accidental_total_ratio = 0.0;  ///< a_tot / r: all-channel accidentals per pair
+                                        ///< (both_ports)
 };
+
+/// Single-pair variance: Var(kappa_hat) = entry_variance_per_pair / pairs (detection.h).
+double entry_variance_per_pair(const EntryModel& entry, bool worst_case);
 
 /// Two-sided standard normal quantile z for confidence 1 - delta.
 double normal_quantile_two_sided(double confidence);

@@ -14,8 +14,8 @@ namespace gramline {
 enum class Allocation { uniform, neyman, margin_aware };
 
 struct PrecisionTarget {
-  BudgetOptions budget;          ///< epsilon, confidence, method, worst case
-  double fixed_pairs = 0.0;      ///< > 0: use this many pairs per entry instead of the target
+  BudgetOptions budget;      ///< epsilon, confidence, method, worst case
+  double fixed_pairs = 0.0;  ///< > 0: use this many pairs per entry instead of the target
   Allocation allocation = Allocation::uniform;
 };
 
@@ -23,10 +23,10 @@ struct PrecisionTarget {
 /// after its start ends on the next day.
 struct NightWindow {
   std::string first_date = "2026-12-01";  ///< date of the first night, YYYY-MM-DD
-  int start_min = 20 * 60;   ///< start, minutes after midnight
-  int end_min = 6 * 60;      ///< end, minutes after midnight
+  int start_min = 20 * 60;                ///< start, minutes after midnight
+  int end_min = 6 * 60;                   ///< end, minutes after midnight
   int max_nights = 7;
-  double length_s() const;   ///< window length in seconds
+  double length_s() const;  ///< window length in seconds
 };
 
 struct ScheduleSettings {
@@ -34,18 +34,18 @@ struct ScheduleSettings {
   double reference_pairs = 0.0;          ///< pairs per reference step; 0: as a measure step
   bool dark_steps = true;                ///< dark (shutter closed) steps at night start and end
   double dark_dwell_s = 30.0;
-  bool park = true;                      ///< park step at the end of each night
-  bool fit_to_nights = false;            ///< scale pairs so the campaign fits max_nights
-  bool truncation_safe = false;          ///< complete the Gram matrix of the first m points early
-  double optimizer_time_cap_s = 0.0;     ///< 0: no cap
+  bool park = true;                   ///< park step at the end of each night
+  bool fit_to_nights = false;         ///< scale pairs so the campaign fits max_nights
+  bool truncation_safe = false;       ///< complete the Gram matrix of the first m points early
+  double optimizer_time_cap_s = 0.0;  ///< 0: no cap
 };
 
 struct CheckSettings {
-  double C = 1.0;                 ///< SVM soft-margin parameter; <= 0: choose by CV
+  double C = 1.0;  ///< SVM soft-margin parameter; <= 0: choose by CV
   int cv_folds = 5;
-  double flip_threshold = 0.01;   ///< largest allowed per-test-point flip probability
+  double flip_threshold = 0.01;  ///< largest allowed per-test-point flip probability
   double margin_ratio_threshold = 0.9;
-  bool keep_unit_diagonal = true; ///< PSD repair keeps the unit diagonal
+  bool keep_unit_diagonal = true;  ///< PSD repair keeps the unit diagonal
   int trials = 1000;
 };
 

@@ -10,11 +10,12 @@ namespace gramline {
 
 /// Expected rates of one setting, per second.
 struct SettingRates {
-  double p_pass = 0.0;            ///< probability that all P photons take the pass port
-  double pair_detect_rate_per_s = 0.0;  ///< rate of P-fold detections of real pairs, all ports
-  double coincidence_rate_per_s = 0.0;  ///< real P-fold coincidences in the pass channel
-  double accidental_rate_per_s = 0.0;   ///< accidental coincidences in the pass channel
-  std::vector<double> singles_per_s;    ///< singles rate of each pass-port detector
+  double p_pass = 0.0;                       ///< probability that all P photons take the pass port
+  double pair_detect_rate_per_s = 0.0;       ///< rate of P-fold detections of real pairs, all ports
+  double coincidence_rate_per_s = 0.0;       ///< real P-fold coincidences in the pass channel
+  double accidental_rate_per_s = 0.0;        ///< accidental coincidences in the pass channel
+  double accidental_total_rate_per_s = 0.0;  ///< both_ports: accidentals over all 2^P channels
+  std::vector<double> singles_per_s;         ///< singles rate of each pass-port detector
 };
 
 /// Global depolarizing model: p = V kappa + (1 - V) / 2^P (SPEC section 1).
@@ -36,13 +37,13 @@ double pair_detect_rate_per_s(const Rig& rig, int photons);
 /// Counts observed for one setting.
 struct SettingCounts {
   double dwell_s = 0.0;
-  double pass_counts = 0.0;    ///< coincidences in the all-pass channel
-  double total_counts = 0.0;   ///< both_ports: sum over all 2^P channels; pass_only: unused
+  double pass_counts = 0.0;   ///< coincidences in the all-pass channel
+  double total_counts = 0.0;  ///< both_ports: sum over all 2^P channels; pass_only: unused
 };
 
 /// Calibration used to turn counts into a kernel value: from references or the rig model.
 struct Calibration {
-  double pair_detect_rate_per_s = 0.0;   ///< R prod eta (pass_only normalisation)
+  double pair_detect_rate_per_s = 0.0;  ///< R prod eta (pass_only normalisation)
   double visibility = 1.0;
   double accidental_pass_rate_per_s = 0.0;   ///< accidentals in the pass channel
   double accidental_total_rate_per_s = 0.0;  ///< accidentals summed over all channels
@@ -63,7 +64,7 @@ double estimate_kernel(DetectionScheme scheme, int photons, const Calibration& c
 ///  pass_only:  (p + a/r) / (pairs V^2)                       (Poisson)
 ///  both_ports: p_o (1 - p_o) / n_tot * ((r + a_tot)/(r V))^2,  p_o = (p r + a_pass)/(r + a_tot),
 ///              n_tot = pairs (1 + a_tot / r)                   (binomial)
-double kernel_variance(DetectionScheme scheme, int photons, const Calibration& cal,
-                       double p_pass, double pairs);
+double kernel_variance(DetectionScheme scheme, int photons, const Calibration& cal, double p_pass,
+                       double pairs);
 
 }  // namespace gramline

@@ -9,17 +9,18 @@
 namespace gramline {
 
 struct GramErrorOptions {
-  int monte_carlo_trials = 0;   ///< 0: analytic estimate only; else also a Monte Carlo check
+  int monte_carlo_trials = 0;  ///< 0: analytic estimate only; else also a Monte Carlo check
   std::uint64_t seed = 1;
   WorkHooks hooks;
 };
 
 struct GramError {
-  double sigma_frobenius = 0.0;   ///< sqrt(sum_ij sigma_ij^2) over the full N x N matrix
-  double sigma_max = 0.0;         ///< largest per-entry sigma
-  double spectral_estimate = 0.0; ///< estimate of E||E||_2: 2 max_i sqrt(sum_j sigma_ij^2)
-                                  ///< (Bandeira & van Handel, Ann. Probab. 44 (2016), leading term)
-  double min_eigenvalue = 0.0;    ///< smallest eigenvalue of the ideal Gram matrix
+  double sigma_frobenius = 0.0;  ///< sqrt(sum_ij sigma_ij^2) over the full N x N matrix
+  double sigma_max = 0.0;        ///< largest per-entry sigma
+  double spectral_estimate =
+      0.0;                      ///< estimate of E||E||_2: 2 max_i sqrt(sum_j sigma_ij^2)
+                                ///< (Bandeira & van Handel, Ann. Probab. 44 (2016), leading term)
+  double min_eigenvalue = 0.0;  ///< smallest eigenvalue of the ideal Gram matrix
   double p_negative_eigenvalue = 0.0;  ///< probability the measured matrix has one < 0
   double p_negative_low = 0.0, p_negative_high = 1.0;  ///< Monte Carlo interval, if run
   std::string report() const;

@@ -7,7 +7,8 @@
 namespace gramline {
 
 /// Ideal kernel between two feature vectors.
-double ideal_kernel(const EncodingMap& encoding, const Eigen::VectorXd& a, const Eigen::VectorXd& b);
+double ideal_kernel(const EncodingMap& encoding, const Eigen::VectorXd& a,
+                    const Eigen::VectorXd& b);
 /// N x N Gram matrix over the rows of `train` (symmetric, unit diagonal).
 Eigen::MatrixXd ideal_gram(const EncodingMap& encoding, const Eigen::MatrixXd& train);
 /// M x N block K(test_i, train_j).

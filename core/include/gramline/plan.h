@@ -32,7 +32,7 @@ struct Step {
 
 struct NightUse {
   int night = 1;
-  double busy_s = 0.0;      ///< moving + counting in this night
+  double busy_s = 0.0;  ///< moving + counting in this night
   double move_s = 0.0;
   double integration_s = 0.0;  ///< measure steps' dwell
   double reference_s = 0.0;    ///< reference, dark and park steps (dwell + move)
@@ -53,10 +53,10 @@ struct PlanSummary {
   double move_naive_s = 0.0;        ///< row-by-row order, same model
   double measure_move_s = 0.0;      ///< move time of measure steps only
   double gram_sigma_frobenius = 0.0;
-  double epsilon_reached = 0.0;     ///< kernel half-width at the planned pairs (fit to nights)
-  double truncation_cost_s = 0.0;   ///< extra move time of the truncation-safe order
+  double epsilon_reached = 0.0;    ///< kernel half-width at the planned pairs (fit to nights)
+  double truncation_cost_s = 0.0;  ///< extra move time of the truncation-safe order
   double plan_ms = 0.0;
-  bool fits = true;                 ///< false when max_nights is not enough
+  bool fits = true;  ///< false when max_nights is not enough
   std::vector<NightUse> night_use;
 };
 

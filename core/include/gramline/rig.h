@@ -20,15 +20,15 @@ struct TravelRange {
 /// One motorized rotation mount (SPEC section 2).
 struct Motor {
   std::string name;
-  int photon = 0;               ///< photon index, 0-based
+  int photon = 0;  ///< photon index, 0-based
   Stage stage = Stage::prep;
   Plate plate = Plate::HWP;
   double speed_deg_per_s = 15.0;     ///< max speed v
   double accel_deg_per_s2 = 30.0;    ///< acceleration a
   std::optional<TravelRange> range;  ///< absent: continuous rotation
   Backlash backlash = Backlash::shortest;
-  double overshoot_deg = 0.0;   ///< used by from_below
-  double initial_deg = 0.0;     ///< physical position at the start of the campaign
+  double overshoot_deg = 0.0;  ///< used by from_below
+  double initial_deg = 0.0;    ///< physical position at the start of the campaign
 };
 
 struct Controller {
@@ -58,7 +58,7 @@ struct Rig {
   std::vector<Motor> motors;
   Controller controller;
   Source source;
-  std::vector<Detector> detectors;  ///< one per photon (per arm)
+  std::vector<Detector> detectors;     ///< one per photon (per arm)
   double coincidence_window_s = 2e-9;  ///< full coincidence window tau
   DetectionScheme scheme = DetectionScheme::both_ports;
 

@@ -1,0 +1,159 @@
+#include "gramline/budget.h"
+
+#include <algorithm>
+#include <cmath>
+#include <limits>
+#include <stdexcept>
+
+#include "gramline/detection.h"
+
+namespace gramline {
+
+double normal_quantile_two_sided(double confidence) {
+  if (!(confidence > 0 && confidence < 1))
+    throw std::invalid_argument("confidence must lie strictly between 0 and 1");
+  // Solve P(|Z| <= z) = erf(z / sqrt 2) = confidence by bisection: slow but exact to the last
+  // bit, and it keeps the engine free of a statistics library.
+  double lo = 0.0, hi = 40.0;
+  for (int i = 0; i < 200 && hi - lo > 1e-15 * hi; ++i) {
+    const double mid = 0.5 * (lo + hi);
+    if (std::erf(mid / std::sqrt(2.0)) < confidence)
+      lo = mid;
+    else
+      hi = mid;
+  }
+  return 0.5 * (lo + hi);
+}
+
+namespace {
+// The calibration of an entry with unit pair rate: rates become ratios per detected pair.
+Calibration unit_calibration(const EntryModel& e) {
+  Calibration c;
+  c.pair_detect_rate_per_s = 1.0;
+  c.visibility = e.visibility;
+  c.accidental_pass_rate_per_s = e.accidental_ratio;
+  c.accidental_total_rate_per_s = e.accidental_total_ratio;
+  return c;
+}
+
+double effective_p(const EntryModel& e, bool worst_case) { return worst_case ? 0.5 : e.p_pass; }
+
+// Half-width of the Wilson score interval at observed fraction p after n trials (Wilson 1927).
+double wilson_half_width(double p, double n, double z) {
+  const double z2 = z * z;
+  return z / (1.0 + z2 / n) * std::sqrt(p * (1.0 - p) / n + z2 / (4.0 * n * n));
+}
+
+// Kernel half-width for `pairs` with the score interval of the scheme.
+double score_precision(const EntryModel& e, double pairs, double z, bool worst_case) {
+  const double p = effective_p(e, worst_case);
+  if (e.scheme == DetectionScheme::pass_only) {
+    // Poisson score interval for the mean mu of a count n: (n - mu)^2 / mu = z^2, half-width
+    // z sqrt(n + z^2/4) at n = mu = pairs (p + a/r); divided by pairs V on the kernel scale.
+    const double mu = pairs * (p + e.accidental_ratio);
+    return z * std::sqrt(mu + z * z / 4.0) / (pairs * e.visibility);
+  }
+  const double n_total = pairs * (1.0 + e.accidental_total_ratio);
+  const double p_obs = (p + e.accidental_ratio) / (1.0 + e.accidental_total_ratio);
+  return wilson_half_width(p_obs, n_total, z) * (1.0 + e.accidental_total_ratio) / e.visibility;
+}
+
+double hoeffding_precision(const EntryModel& e, double pairs, double delta) {
+  // Hoeffding (1963): P(|mean - p| >= w) <= 2 exp(-2 n w^2) for n variables in [0, 1].
+  // Each detected pair (or accidental) is one such variable in the observed pass fraction.
+  const double ratio_total =
+      e.scheme == DetectionScheme::both_ports ? e.accidental_total_ratio : 0.0;
+  const double n_total = pairs * (1.0 + ratio_total);
+  return std::sqrt(std::log(2.0 / delta) / (2.0 * n_total)) * (1.0 + ratio_total) / e.visibility;
+}
+}  // namespace
+
+double entry_variance_per_pair(const EntryModel& entry, bool worst_case) {
+  return kernel_variance(entry.scheme, entry.photons, unit_calibration(entry),
+                         effective_p(entry, worst_case), 1.0);
+}
+
+double precision_for_pairs(const EntryModel& entry, double pairs, const BudgetOptions& options) {
+  if (!(pairs > 0)) return std::numeric_limits<double>::infinity();
+  const double z = normal_quantile_two_sided(options.confidence);
+  switch (options.method) {
+    case BudgetMethod::normal:
+      return z * std::sqrt(entry_variance_per_pair(entry, options.worst_case) / pairs);
+    case BudgetMethod::wilson:
+      return score_precision(entry, pairs, z, options.worst_case);
+    case BudgetMethod::hoeffding:
+      return hoeffding_precision(entry, pairs, 1.0 - options.confidence);
+  }
+  return std::numeric_limits<double>::infinity();
+}
+
+double pairs_for_precision(const EntryModel& entry, const BudgetOptions& options) {
+  if (!(options.epsilon > 0)) throw std::invalid_argument("precision.epsilon must be positive");
+  const double z = normal_quantile_two_sided(options.confidence);
+  const double eps = options.epsilon;
+  double pairs = 1.0;
+  switch (options.method) {
+    case BudgetMethod::normal:
+      pairs = z * z * entry_variance_per_pair(entry, options.worst_case) / (eps * eps);
+      break;
+    case BudgetMethod::hoeffding: {
+      const double ratio_total =
+          entry.scheme == DetectionScheme::both_ports ? entry.accidental_total_ratio : 0.0;
+      const double w = eps * entry.visibility / (1.0 + ratio_total);
+      pairs = std::log(2.0 / (1.0 - options.confidence)) / (2.0 * w * w) / (1.0 + ratio_total);
+      break;
+    }
+    case BudgetMethod::wilson: {
+      // The score half-width falls monotonically with n: bisect on log n.
+      double lo = 1e-3, hi = 1.0;
+      while (score_precision(entry, hi, z, options.worst_case) > eps) {
+        hi *= 2.0;
+        if (hi > 1e15) throw std::invalid_argument("precision.epsilon is out of reach");
+      }
+      for (int i = 0; i < 200 && hi - lo > 1e-9 * hi; ++i) {
+        const double mid = std::sqrt(lo * hi);
+        if (score_precision(entry, mid, z, options.worst_case) > eps)
+          lo = mid;
+        else
+          hi = mid;
+      }
+      pairs = hi;
+      break;
+    }
+  }
+  return std::max(1.0, std::ceil(pairs - 1e-9));
+}
+
+Interval wilson_interval(double successes, double trials, double confidence) {
+  if (!(trials > 0)) return {0.0, 1.0};
+  const double z = normal_quantile_two_sided(confidence);
+  const double p = successes / trials;
+  const double z2 = z * z;
+  const double centre = (p + z2 / (2.0 * trials)) / (1.0 + z2 / trials);
+  const double half = wilson_half_width(p, trials, z);
+  return {std::max(0.0, centre - half), std::min(1.0, centre + half)};
+}
+
+std::string to_string(BudgetMethod m) {
+  switch (m) {
+    case BudgetMethod::normal:
+      return "normal";
+    case BudgetMethod::wilson:
+      return "wilson";
+    case BudgetMethod::hoeffding:
+      return "hoeffding";
+  }
+  return "wilson";
+}
+
+bool from_string(const std::string& t, BudgetMethod& out) {
+  for (BudgetMethod m : {BudgetMethod::normal, BudgetMethod::wilson, BudgetMethod::hoeffding}) {
+    if (to_string(m) == t) {
+      out = m;
+      return true;
+    }
+  }
+  return false;
+}
+
+}  // namespace gramline

@@ -1,0 +1,311 @@
+#include "gramline/plan.h"
+
+#include <algorithm>
+#include <chrono>
+#include <cmath>
+#include <iomanip>
+#include <sstream>
+#include <stdexcept>
+
+#include "gramline/budget.h"
+#include "gramline/detection.h"
+#include "gramline/kernel.h"
+#include "gramline/motion.h"
+#include "gramline/schedule.h"
+#include "gramline/waveplates.h"
+
+namespace gramline {
+
+namespace {
+
+struct PointStates {
+  std::vector<JonesVector> state;  // [photon]
+  PointTargets targets;
+};
+
+std::vector<PointStates> synthesize_points(const Campaign& c) {
+  const int total = c.data.train_count() + c.data.test_count();
+  const int photons = c.encoding.photon_count();
+  std::vector<PointStates> out(total);
+  for (int i = 0; i < total; ++i) {
+    const Eigen::VectorXd x = c.data.point(i);
+    for (int p = 0; p < photons; ++p) {
+      const BlochAngles a = c.encoding.angles(p, x);
+      out[i].state.push_back(bloch_state(a.theta_deg, a.phi_deg));
+      out[i].targets.prep.push_back(preparation_solutions(a.theta_deg, a.phi_deg));
+      out[i].targets.analysis.push_back(analysis_solutions(a.theta_deg, a.phi_deg));
+      // Every synthesized setting is checked by the Jones product before it is used.
+      const double fidelity = synthesis_fidelity(a.theta_deg, a.phi_deg);
+      if (!(fidelity >= 1.0 - 1e-12)) {
+        std::ostringstream e;
+        e << "waveplate synthesis failed for point " << i << ", photon " << p << " (fidelity "
+          << fidelity << ")";
+        throw std::runtime_error(e.str());
+      }
+    }
+  }
+  return out;
+}
+
+EntryModel entry_model(const Campaign& c, const SettingRates& rates) {
+  EntryModel e;
+  e.scheme = c.rig.scheme;
+  e.photons = c.encoding.photon_count();
+  e.p_pass = rates.p_pass;
+  e.visibility = c.rig.source.visibility;
+  e.accidental_ratio = rates.accidental_rate_per_s / rates.pair_detect_rate_per_s;
+  e.accidental_total_ratio = rates.accidental_total_rate_per_s / rates.pair_detect_rate_per_s;
+  return e;
+}
+
+struct EntryStats {
+  SettingRates rates;
+  EntryModel model;
+};
+
+EntryStats entry_stats(const Campaign& c, const PointStates& a, const PointStates& b) {
+  const int photons = c.encoding.photon_count();
+  std::vector<double> overlaps(photons);
+  double kappa = 1.0;
+  for (int p = 0; p < photons; ++p) {
+    overlaps[p] = overlap(a.state[p], b.state[p]);
+    kappa *= overlaps[p];
+  }
+  EntryStats s;
+  s.rates = setting_rates(c.rig, photons, kappa, overlaps);
+  s.model = entry_model(c, s.rates);
+  return s;
+}
+
+double entry_sigma(const Campaign& c, const EntryStats& s, double pairs) {
+  return std::sqrt(kernel_variance(c.rig.scheme, c.encoding.photon_count(),
+                                   model_calibration(c.rig, c.encoding.photon_count(), s.rates),
+                                   s.rates.p_pass, pairs));
+}
+
+}  // namespace
+
+Plan plan_campaign(const Campaign& campaign, const PlanOptions& options) {
+  const auto t0 = std::chrono::steady_clock::now();
+  if (auto e = campaign.check_consistency(); !e.empty()) throw std::invalid_argument(e);
+  const Campaign& c = campaign;
+  const int n = c.data.train_count();
+  const int m = c.data.test_count();
+  const int photons = c.encoding.photon_count();
+
+  Plan plan;
+  const std::vector<PointStates> points = synthesize_points(c);
+  plan.kernel_train = ideal_gram(c.encoding, c.data.train);
+  plan.kernel_test =
+      m > 0 ? ideal_cross(c.encoding, c.data.test, c.data.train) : Eigen::MatrixXd(0, n);
+  options.hooks.throw_if_cancelled();
+
+  // Entries: every unordered training pair, then every (test, training) pair (SPEC section 3).
+  ScheduleInput in;
+  in.rig = &c.rig;
+  in.train_count = n;
+  in.nights = c.nights;
+  in.settings = c.schedule;
+  in.pair_detect_rate_per_s = pair_detect_rate_per_s(c.rig, photons);
+  for (const PointStates& p : points) in.points.push_back(p.targets);
+  in.entries.reserve(static_cast<size_t>(n) * (n - 1) / 2 + static_cast<size_t>(m) * n);
+  std::vector<EntryStats> stats;
+  stats.reserve(in.entries.capacity());
+  auto add_entry = [&](int a, int b, Block block, double kappa) {
+    EntryStats s = entry_stats(c, points[a], points[b]);
+    EntryRequest r;
+    r.a = a;
+    r.b = b;
+    r.block = block;
+    r.kernel_ideal = kappa;
+    r.p_pass = s.rates.p_pass;
+    r.pairs = c.precision.fixed_pairs > 0 ? c.precision.fixed_pairs
+                                          : pairs_for_precision(s.model, c.precision.budget);
+    r.dwell_s = r.pairs / in.pair_detect_rate_per_s;
+    in.entries.push_back(r);
+    stats.push_back(s);
+  };
+  for (int i = 0; i < n; ++i)
+    for (int j = i + 1; j < n; ++j) add_entry(i, j, Block::train, plan.kernel_train(i, j));
+  for (int t = 0; t < m; ++t)
+    for (int j = 0; j < n; ++j) add_entry(n + t, j, Block::test, plan.kernel_test(t, j));
+  options.hooks.throw_if_cancelled();
+
+  // A reference step is a diagonal setting (kernel 1); it gets the median entry's pairs unless
+  // the campaign sets its own.
+  {
+    std::vector<double> pairs;
+    for (const EntryRequest& r : in.entries) pairs.push_back(r.pairs);
+    double median = 1.0;
+    if (!pairs.empty()) {
+      std::nth_element(pairs.begin(), pairs.begin() + pairs.size() / 2, pairs.end());
+      median = pairs[pairs.size() / 2];
+    }
+    in.reference_pairs = c.schedule.reference_pairs > 0 ? c.schedule.reference_pairs : median;
+    in.reference_p_pass = pass_probability(1.0, c.rig.source.visibility, photons);
+  }
+
+  ScheduleOptions so;
+  so.seed = options.seed;
+  so.optimize_order = options.optimize_order;
+  so.hooks = options.hooks;
+  ScheduleResult sched = build_schedule(in, so);
+
+  // Per-entry pairs (after any fit-to-nights scaling) and predicted sigma.
+  plan.pairs_train = Eigen::MatrixXd::Zero(n, n);
+  plan.pairs_test = Eigen::MatrixXd::Zero(m, n);
+  plan.sigma_train = Eigen::MatrixXd::Zero(n, n);
+  plan.sigma_test = Eigen::MatrixXd::Zero(m, n);
+  double worst_half_width = 0.0;
+  for (size_t k = 0; k < in.entries.size(); ++k) {
+    const EntryRequest& r = in.entries[k];
+    const double pairs = r.pairs * sched.pairs_scale;
+    const double sigma = entry_sigma(c, stats[k], pairs);
+    worst_half_width =
+        std::max(worst_half_width, precision_for_pairs(stats[k].model, pairs, c.precision.budget));
+    if (r.block == Block::train) {
+      plan.pairs_train(r.a, r.b) = plan.pairs_train(r.b, r.a) = pairs;
+      plan.sigma_train(r.a, r.b) = plan.sigma_train(r.b, r.a) = sigma;
+    } else {
+      plan.pairs_test(r.a - n, r.b) = pairs;
+      plan.sigma_test(r.a - n, r.b) = sigma;
+    }
+  }
+
+  plan.steps = std::move(sched.steps);
+  plan.step_of_train = Eigen::MatrixXi::Constant(n, n, -1);
+  plan.step_of_test = Eigen::MatrixXi::Constant(m, n, -1);
+  PlanSummary& s = plan.summary;
+  for (size_t k = 0; k < plan.steps.size(); ++k) {
+    const Step& st = plan.steps[k];
+    s.move_s += st.move_s;
+    s.pairs_total += st.pairs;
+    if (st.kind == StepKind::measure) {
+      ++s.settings;
+      s.integration_s += st.dwell_s;
+      s.measure_move_s += st.move_s;
+      const int a = std::min(st.prep_point, st.analysis_point);
+      const int b = std::max(st.prep_point, st.analysis_point);
+      if (st.block == Block::train) {
+        plan.step_of_train(a, b) = plan.step_of_train(b, a) = static_cast<int>(k);
+      } else {
+        // The test point has the larger global index.
+        plan.step_of_test(b - n, a) = static_cast<int>(k);
+      }
+    } else {
+      s.reference_s += st.move_s + st.dwell_s;
+    }
+    s.total_s = std::max(s.total_s, st.start_s + st.move_s + st.dwell_s);
+  }
+  s.steps = static_cast<long>(plan.steps.size());
+  s.nights = sched.nights;
+  s.fits = sched.fits;
+  s.night_use = sched.night_use;
+  s.move_lower_bound_s = sched.move_lower_bound_s;
+  s.move_naive_s = sched.move_naive_s;
+  s.truncation_cost_s = sched.truncation_cost_s;
+  s.epsilon_reached = worst_half_width;
+
+  GramErrorOptions ge;
+  ge.seed = options.seed;
+  ge.monte_carlo_trials = options.monte_carlo_gram ? 200 : 0;
+  ge.hooks = options.hooks;
+  plan.gram_error = predict_gram_error(plan.kernel_train, plan.sigma_train, ge);
+  s.gram_sigma_frobenius = plan.gram_error.sigma_frobenius;
+  s.plan_ms =
+      std::chrono::duration<double, std::milli>(std::chrono::steady_clock::now() - t0).count();
+  return plan;
+}
+
+double recompute_moves(const Rig& rig, std::vector<Step>& steps) {
+  std::vector<double> at(rig.motors.size());
+  for (size_t k = 0; k < rig.motors.size(); ++k) at[k] = rig.motors[k].initial_deg;
+  double total = 0.0;
+  for (Step& s : steps) {
+    s.move_s = step_move_s(rig, at, s.position_deg);
+    total += s.move_s;
+    at = s.position_deg;
+  }
+  return total;
+}
+
+namespace {
+std::string hours(double seconds) {
+  std::ostringstream o;
+  o << std::fixed << std::setprecision(2) << seconds / 3600.0 << " h";
+  return o.str();
+}
+}  // namespace
+
+std::string Plan::report() const {
+  const PlanSummary& s = summary;
+  std::ostringstream o;
+  o << std::fixed << std::setprecision(1);
+  o << "Settings: " << s.settings << " measure steps, " << s.steps << " steps in all\n";
+  o << "Time: " << hours(s.total_s) << " over " << s.nights << " night(s)"
+    << (s.fits ? "" : " -- DOES NOT FIT the nights allowed") << "\n";
+  o << "  counting " << hours(s.integration_s) << ", moving " << hours(s.move_s)
+    << ", references/dark/park " << hours(s.reference_s) << "\n";
+  o << std::setprecision(3);
+  o << "Pairs: " << s.pairs_total << " in all; worst entry half-width " << s.epsilon_reached
+    << "\n";
+  o << std::setprecision(1);
+  o << "Motor order: measure moves " << s.measure_move_s << " s; lower bound "
+    << s.move_lower_bound_s << " s";
+  if (s.move_lower_bound_s > 0)
+    o << " (gap " << 100.0 * (s.measure_move_s / s.move_lower_bound_s - 1.0) << " %)";
+  o << "; row-by-row order " << s.move_naive_s << " s";
+  if (s.measure_move_s > 0) o << " (" << s.move_naive_s / s.measure_move_s << "x)";
+  o << "\n";
+  o << std::setprecision(4);
+  o << "Gram error: Frobenius sigma " << s.gram_sigma_frobenius << ", P(negative eigenvalue) "
+    << gram_error.p_negative_eigenvalue << "\n";
+  o << std::setprecision(0) << "Planned in " << s.plan_ms << " ms\n";
+  return o.str();
+}
+
+std::string to_string(StepKind k) {
+  switch (k) {
+    case StepKind::measure:
+      return "measure";
+    case StepKind::reference:
+      return "reference";
+    case StepKind::dark:
+      return "dark";
+    case StepKind::park:
+      return "park";
+  }
+  return "measure";
+}
+
+std::string to_string(Block b) {
+  switch (b) {
+    case Block::train:
+      return "train";
+    case Block::test:
+      return "test";
+    case Block::none:
+      return "none";
+  }
+  return "none";
+}
+
+bool from_string(const std::string& t, StepKind& out) {
+  for (StepKind k : {StepKind::measure, StepKind::reference, StepKind::dark, StepKind::park})
+    if (to_string(k) == t) {
+      out = k;
+      return true;
+    }
+  return false;
+}
+
+bool from_string(const std::string& t, Block& out) {
+  for (Block b : {Block::train, Block::test, Block::none})
+    if (to_string(b) == t) {
+      out = b;
+      return true;
+    }
+  return false;
+}
+
+}  // namespace gramline

@@ -1,0 +1,124 @@
+#include "gramline/rig.h"
+
+#include <cmath>
+#include <sstream>
+
+namespace gramline {
+
+int Rig::motor_index(int photon, Stage stage, Plate plate) const {
+  for (size_t m = 0; m < motors.size(); ++m) {
+    const Motor& mo = motors[m];
+    if (mo.photon == photon && mo.stage == stage && mo.plate == plate) return static_cast<int>(m);
+  }
+  return -1;
+}
+
+std::string Rig::check(int photons) const {
+  std::ostringstream err;
+  for (size_t m = 0; m < motors.size(); ++m) {
+    const Motor& mo = motors[m];
+    const std::string where = "rig.motors[" + std::to_string(m) + "]";
+    if (mo.name.empty()) return where + ".name: empty";
+    for (size_t k = 0; k < m; ++k)
+      if (motors[k].name == mo.name) return where + ".name: '" + mo.name + "' used twice";
+    if (mo.photon < 0 || mo.photon >= photons) {
+      err << where << ".photon: " << mo.photon << " but the encoding has " << photons
+          << " photon(s)";
+      return err.str();
+    }
+    if (!(mo.speed_deg_per_s > 0) || !std::isfinite(mo.speed_deg_per_s))
+      return where + ".speed_deg_per_s: must be positive";
+    if (!(mo.accel_deg_per_s2 > 0) || !std::isfinite(mo.accel_deg_per_s2))
+      return where + ".accel_deg_per_s2: must be positive";
+    if (!(mo.overshoot_deg >= 0)) return where + ".overshoot_deg: must be >= 0";
+    if (!std::isfinite(mo.initial_deg)) return where + ".initial_deg: must be finite";
+    if (mo.range) {
+      const double period = mo.plate == Plate::HWP ? 90.0 : 180.0;
+      if (!(mo.range->high_deg - mo.range->low_deg >= period)) {
+        err << where << ".range_deg: spans " << mo.range->high_deg - mo.range->low_deg
+            << " deg, less than the plate period " << period << " deg";
+        return err.str();
+      }
+      if (mo.initial_deg < mo.range->low_deg || mo.initial_deg > mo.range->high_deg)
+        return where + ".initial_deg: outside range_deg";
+      if (mo.backlash == Backlash::from_below &&
+          mo.range->low_deg + mo.overshoot_deg > mo.range->high_deg - period)
+        return where + ".overshoot_deg: leaves no room inside range_deg";
+    }
+  }
+  for (int p = 0; p < photons; ++p) {
+    for (Stage s : {Stage::prep, Stage::analysis}) {
+      for (Plate pl : {Plate::HWP, Plate::QWP}) {
+        if (motor_index(p, s, pl) < 0) {
+          err << "rig.motors: no " << to_string(pl) << " on the " << to_string(s)
+              << " stage of photon " << p;
+          return err.str();
+        }
+      }
+    }
+  }
+  if (static_cast<int>(motors.size()) != 4 * photons) {
+    err << "rig.motors: " << motors.size() << " motors; expected 4 per photon (" << 4 * photons
+        << ")";
+    return err.str();
+  }
+  if (static_cast<int>(detectors.size()) != photons) {
+    err << "rig.detectors: " << detectors.size() << " detectors; expected one per photon ("
+        << photons << ")";
+    return err.str();
+  }
+  for (size_t d = 0; d < detectors.size(); ++d) {
+    const std::string where = "rig.detectors[" + std::to_string(d) + "]";
+    if (!(detectors[d].efficiency > 0 && detectors[d].efficiency <= 1))
+      return where + ".efficiency: must be in (0, 1]";
+    if (!(detectors[d].dark_rate_per_s >= 0)) return where + ".dark_rate_per_s: must be >= 0";
+  }
+  if (!(source.pair_rate_per_s > 0)) return "rig.source.pair_rate_per_s: must be positive";
+  if (!(source.visibility > 0 && source.visibility <= 1))
+    return "rig.source.visibility: must be in (0, 1]";
+  if (!(coincidence_window_s >= 0)) return "rig.coincidence_window_s: must be >= 0";
+  if (!(controller.settle_s >= 0)) return "rig.controller.settle_s: must be >= 0";
+  if (!(controller.overhead_s >= 0)) return "rig.controller.overhead_s: must be >= 0";
+  return {};
+}
+
+std::string to_string(Stage s) { return s == Stage::prep ? "prep" : "analysis"; }
+std::string to_string(Plate p) { return p == Plate::HWP ? "HWP" : "QWP"; }
+std::string to_string(Backlash b) { return b == Backlash::shortest ? "shortest" : "from-below"; }
+std::string to_string(MoveMode m) {
+  return m == MoveMode::simultaneous ? "simultaneous" : "sequential";
+}
+std::string to_string(DetectionScheme s) {
+  return s == DetectionScheme::pass_only ? "pass-only" : "both-ports";
+}
+
+namespace {
+template <typename E, size_t K>
+bool parse_enum(const std::string& text, E& out, const E (&values)[K]) {
+  for (E v : values) {
+    if (to_string(v) == text) {
+      out = v;
+      return true;
+    }
+  }
+  return false;
+}
+}  // namespace
+
+bool from_string(const std::string& t, Stage& o) {
+  return parse_enum(t, o, {Stage::prep, Stage::analysis});
+}
+bool from_string(const std::string& t, Plate& o) {
+  return parse_enum(t, o, {Plate::HWP, Plate::QWP});
+}
+bool from_string(const std::string& t, Backlash& o) {
+  return parse_enum(t, o, {Backlash::shortest, Backlash::from_below});
+}
+bool from_string(const std::string& t, MoveMode& o) {
+  return parse_enum(t, o, {MoveMode::simultaneous, MoveMode::sequential});
+}
+bool from_string(const std::string& t, DetectionScheme& o) {
+  return parse_enum(t, o, {DetectionScheme::pass_only, DetectionScheme::both_ports});
+}
+
+}  // namespace gramline
