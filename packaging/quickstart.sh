@@ -1,0 +1,61 @@
+#!/usr/bin/env bash
+# Gramline quick start for a fresh Debian 12 machine (run as root, from the checkout).
+#   packaging/quickstart.sh demo   install what is missing, build, run the demo campaign
+#   packaging/quickstart.sh test   install what is missing, build, run every test
+# Both are idempotent: packages already present are not reinstalled, the build is incremental.
+set -euo pipefail
+
+mode="${1:-}"
+case "$mode" in
+  demo|test) ;;
+  *) echo "usage: $0 demo|test" >&2; exit 2 ;;
+esac
+
+here="$(cd "$(dirname "${BASH_SOURCE[0]}")/.." && pwd)"
+build="${GRAMLINE_BUILD_DIR:-$here/build}"
+jobs="$(nproc 2>/dev/null || echo 2)"
+
+packages=(
+  cmake ninja-build g++ pkg-config
+  qt6-base-dev qt6-charts-dev qt6-tools-dev qt6-tools-dev-tools qt6-l10n-tools
+  libgl-dev libquazip1-qt6-dev libeigen3-dev
+  libgtest-dev libsvm-dev libboost-math-dev
+)
+missing=()
+for p in "${packages[@]}"; do
+  dpkg-query -W -f='${Status}' "$p" 2>/dev/null | grep -q "install ok installed" || missing+=("$p")
+done
+if ((${#missing[@]})); then
+  echo "== installing: ${missing[*]}"
+  export DEBIAN_FRONTEND=noninteractive
+  apt-get update -qq
+  apt-get install -y -qq --no-install-recommends "${missing[@]}"
+fi
+
+echo "== building in $build"
+cmake -S "$here" -B "$build" -G Ninja -DCMAKE_BUILD_TYPE=RelWithDebInfo >/dev/null
+cmake --build "$build" -j"$jobs"
+
+if [[ "$mode" == test ]]; then
+  echo "== running tests"
+  cd "$build"
+  QT_QPA_PLATFORM=offscreen ctest --output-on-failure -j"$jobs"
+  exit $?
+fi
+
+cli="$build/app/gramline-cli"
+app="$build/app/gui/gramline"
+campaign="$build/demo-campaign.json"
+"$cli" demo --out "$campaign"
+if [[ -n "${DISPLAY:-}${WAYLAND_DISPLAY:-}" && -x "$app" ]]; then
+  echo "== starting the app on the demo campaign"
+  exec "$app" "$campaign"
+fi
+echo "== no display: planning the demo with the command line"
+"$cli" plan "$campaign" --out "$build/demo-plan"
+cat <<MSG
+
+Plan files written to $build/demo-plan (steps.json, steps.csv, summary.json, kernel.csv).
+To open the demo in the desktop app, run on a machine with a display:
+  $app $campaign
+MSG
