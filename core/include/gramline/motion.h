@@ -24,12 +24,17 @@ double step_move_s(const Rig& rig, const std::vector<double>& from_deg,
 
 /// Combines per-motor times into a step time (max or sum, settle, overhead). `any_moved` says
 /// whether any motor changed position.
-double combine_motor_times_s(const Controller& controller, const double* motor_times_s,
-                             int count, bool any_moved);
+double combine_motor_times_s(const Controller& controller, const double* motor_times_s, int count,
+                             bool any_moved);
 
 /// Physical positions equivalent to `target_deg` (target + k period) inside the motor's range,
 /// within one period either side of `near_deg` for continuous motors. Sorted ascending.
 std::vector<double> equivalent_positions_deg(const Motor& motor, double target_deg,
                                              double near_deg);
+
+/// The physical position equivalent to `target_deg` (inside the range, if any) that the motor
+/// reaches fastest from `from_deg` under motor_move_s; ties go to the lower position. Throws
+/// std::invalid_argument when the range holds no equivalent position.
+double nearest_equivalent_deg(const Motor& motor, double target_deg, double from_deg);
 
 }  // namespace gramline

@@ -1,6 +1,7 @@
 #pragma once
 // Scheduler: the order of the measure steps, the motor positions of every step, reference,
 // dark and park steps, and the night timeline (SPEC sections 2 and 3).
+#include <cstdint>
 #include <string>
 #include <vector>
 
@@ -62,5 +63,12 @@ struct ScheduleResult {
 
 /// Orders the entries and lays the steps on the nights. Deterministic for a seed.
 ScheduleResult build_schedule(const ScheduleInput& input, const ScheduleOptions& options);
+
+/// Exact minimum total move time (seconds, SPEC section 2) of the measure steps alone, from the
+/// initial positions, over every order, orientation and choice of discrete solutions:
+/// Held-Karp dynamic programming over subsets of entries. Exact when every motor rotates
+/// continuously (then only angles modulo the plate period matter); a lower bound otherwise.
+/// For tests: at most 12 entries; time grows as 2^n (n 2^(2P+1))^2 for P photons.
+double exact_min_move_s(const ScheduleInput& input);
 
 }  // namespace gramline

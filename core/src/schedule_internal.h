@@ -1,0 +1,118 @@
+#pragma once
+// Private pieces of the scheduler shared by its source files (schedule_*.cpp).
+#include <cstdint>
+#include <vector>
+
+#include "gramline/motion.h"
+#include "gramline/schedule.h"
+
+namespace gramline::sched {
+
+/// A measure setting in an order: entry index times two, plus 1 when the entry is measured
+/// the other way round (prepare b, analyse a).
+using Code = std::uint32_t;
+inline Code make_code(int entry, bool flipped) {
+  return static_cast<Code>(entry) * 2u + (flipped ? 1u : 0u);
+}
+inline int code_entry(Code c) { return static_cast<int>(c >> 1); }
+inline bool code_flipped(Code c) { return (c & 1u) != 0; }
+
+/// Side 0 holds the preparation motors, side 1 the analysis motors. A group is one stage of
+/// one photon (an HWP and a QWP that share one discrete solution): group g = side * P + photon.
+class MoveModel {
+ public:
+  explicit MoveModel(const ScheduleInput& input);
+
+  const ScheduleInput& input() const { return *input_; }
+  const Rig& rig() const { return *input_->rig; }
+  int photons() const { return photons_; }
+  int groups() const { return 2 * photons_; }
+  int points() const { return static_cast<int>(input_->points.size()); }
+  int hwp_motor(int group) const { return hwp_[group]; }
+  int qwp_motor(int group) const { return qwp_[group]; }
+
+  int prep_point(Code c) const;
+  int analysis_point(Code c) const;
+  /// Point a group of this setting targets.
+  int group_point(Code c, int group) const {
+    return group < photons_ ? prep_point(c) : analysis_point(c);
+  }
+  /// Canonical angles of `point`'s solution `sol` for a group.
+  const PlatePair& target(int point, int group, int sol) const;
+
+  /// Max (simultaneous) or sum (sequential) of two motor-time parts.
+  double join(double x, double y) const { return simultaneous_ ? (x > y ? x : y) : x + y; }
+  /// Step time from the joined motor time: settle when anything moved, overhead always.
+  double step_s(double motor_part_s) const {
+    return overhead_s_ + (motor_part_s > 0.0 ? motor_part_s + settle_s_ : 0.0);
+  }
+
+  /// Time of one motor between two angles taken modulo the plate period (SPEC section 2).
+  /// Exact for a continuously rotating motor (it may stop at any equivalent position); a lower
+  /// bound for a motor with a travel range, whose choice of positions is smaller.
+  double motor_angle_s(int motor, double from_deg, double to_deg) const;
+  /// Joined time of a group's two motors between two plate pairs (angle model above).
+  double group_s(int group, const PlatePair& from, const PlatePair& to) const;
+  /// Joined time of a group from the initial motor positions.
+  double group_from_initial_s(int group, const PlatePair& to) const;
+
+  /// Lower bound on the joined motor time of one side when its point changes i -> j: each
+  /// group takes its best pair of solutions (valid because groups choose independently).
+  double side_s(int side, int from_point, int to_point) const;
+  double side_from_initial_s(int side, int to_point) const;
+
+ private:
+  const ScheduleInput* input_;
+  int photons_ = 0;
+  bool simultaneous_ = true;
+  double settle_s_ = 0.0;
+  double overhead_s_ = 0.0;
+  std::vector<int> hwp_, qwp_;
+};
+
+/// Dense point-to-point side costs (motor part only), lower bounds as in MoveModel::side_s.
+struct SideCosts {
+  int n = 0;
+  std::vector<float> cost[2];     ///< [side][from * n + to]
+  std::vector<float> initial[2];  ///< [side][to]
+  double at(int side, int from, int to) const { return cost[side][std::size_t(from) * n + to]; }
+};
+SideCosts compute_side_costs(const MoveModel& model);
+
+/// Relaxed step time between two settings (solutions chosen freely at both ends): a lower
+/// bound on the true step time that is exact for continuous motors when the solutions agree.
+double relaxed_step_s(const MoveModel& model, const SideCosts& costs, Code from, Code to);
+double relaxed_first_step_s(const MoveModel& model, const SideCosts& costs, Code to);
+double relaxed_order_s(const MoveModel& model, const SideCosts& costs,
+                       const std::vector<Code>& order);
+
+/// Best choice of discrete solutions along a fixed order (dynamic programming over the joint
+/// solution of all groups, from the initial positions). Returns the total measure move time
+/// under the angle model, exact for continuous motors; `solutions_out` gets one bit mask per
+/// step (bit g: solution of group g). Requires at most 6 groups.
+double choose_solutions(const MoveModel& model, const std::vector<Code>& order,
+                        std::vector<std::uint8_t>* solutions_out);
+
+/// The row-by-row order: training pairs (0,1), (0,2), ..., (1,2), ..., then the test rows.
+std::vector<Code> naive_order(const ScheduleInput& input);
+
+/// Structured order plus local search. `truncation_safe`: training pairs grow the Gram matrix
+/// point by point.
+std::vector<Code> optimized_order(const MoveModel& model, const SideCosts& costs,
+                                  bool truncation_safe, const ScheduleOptions& options);
+
+/// Lower bound on the measure steps' move time (see schedule_bound.cpp for the argument).
+double measure_lower_bound_s(const MoveModel& model, const SideCosts& costs);
+
+/// Physical positions along an order: each group takes the solution given (or, when
+/// `solutions` is empty, the one it reaches fastest), each motor the nearest equivalent.
+/// Returns the total move time under step_move_s.
+double realized_order_s(const MoveModel& model, const std::vector<Code>& order,
+                        const std::vector<std::uint8_t>& solutions);
+
+/// Moves one group's motors to `point`'s solution `sol` (or the faster of the two when
+/// sol < 0), nearest equivalent positions. Updates `positions` in place.
+void place_group(const MoveModel& model, int group, int point, int sol,
+                 std::vector<double>& positions);
+
+}  // namespace gramline::sched

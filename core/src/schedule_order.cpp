@@ -1,0 +1,326 @@
+// Ordering optimizer. The structure of the problem does most of the work: the preparation
+// motors depend only on the prepared point and the analysis motors only on the analysed one,
+// so holding one point on one side while the other side sweeps a short tour of points makes
+// almost every step a move between two neighbouring points on one side only. The tour is
+// improved with 2-opt and Or-opt (published local search for the travelling salesman problem).
+#include <algorithm>
+#include <chrono>
+#include <cmath>
+#include <limits>
+#include <random>
+
+#include "schedule_internal.h"
+
+namespace gramline::sched {
+namespace {
+
+using Clock = std::chrono::steady_clock;
+
+struct Budget {
+  const WorkHooks* hooks;
+  Clock::time_point deadline;
+  bool capped;
+  bool expired() const {
+    hooks->throw_if_cancelled();
+    return capped && Clock::now() > deadline;
+  }
+};
+
+/// Open path over `nodes` minimising the sum of symmetric weights w[i * n + j] (indices into
+/// `nodes`): nearest-neighbour construction, then 2-opt and Or-opt until no move improves.
+std::vector<int> improve_path(int n, const std::vector<float>& w, int start, const Budget& budget) {
+  std::vector<int> path;
+  if (n == 0) return path;
+  std::vector<char> used(n, 0);
+  path.push_back(start);
+  used[start] = 1;
+  for (int k = 1; k < n; ++k) {
+    const int last = path.back();
+    int best = -1;
+    for (int j = 0; j < n; ++j) {
+      if (!used[j] && (best < 0 || w[std::size_t(last) * n + j] < w[std::size_t(last) * n + best]))
+        best = j;
+    }
+    used[best] = 1;
+    path.push_back(best);
+  }
+  auto W = [&](int a, int b) -> double {
+    if (a < 0 || b < 0) return 0.0;
+    return w[std::size_t(path[a]) * n + path[b]];
+  };
+  const double eps = 1e-9;
+  bool improved = true;
+  while (improved) {
+    improved = false;
+    if (budget.expired()) break;
+    // 2-opt on an open path: reverse path[i..j].
+    for (int i = 0; i < n - 1; ++i) {
+      for (int j = i + 1; j < n; ++j) {
+        const int before = i - 1;
+        const int after = j + 1 < n ? j + 1 : -1;
+        const double old_cost = W(before, i) + W(j, after);
+        double new_cost = 0.0;
+        if (before >= 0) new_cost += w[std::size_t(path[before]) * n + path[j]];
+        if (after >= 0) new_cost += w[std::size_t(path[i]) * n + path[after]];
+        if (new_cost < old_cost - eps) {
+          std::reverse(path.begin() + i, path.begin() + j + 1);
+          improved = true;
+        }
+      }
+    }
+    // Or-opt: move a segment of 1 to 3 points elsewhere, either way round.
+    for (int len = 1; len <= 3; ++len) {
+      for (int i = 0; i + len <= n; ++i) {
+        const int j = i + len - 1;
+        const int before = i - 1;
+        const int after = j + 1 < n ? j + 1 : -1;
+        double removed = W(before, i) + W(j, after);
+        if (before >= 0 && after >= 0) removed -= W(before, after);
+        if (removed <= eps) continue;
+        // Try inserting between positions p and p+1 (p = -1: at the front; p = n-1: at the end).
+        int best_p = -2;
+        bool best_rev = false;
+        double best_gain = eps;
+        for (int p = -1; p < n; ++p) {
+          if (p >= before && p <= j) continue;
+          const int q = p + 1 < n ? p + 1 : -1;
+          const int qq = (q >= i && q <= j) ? (after) : q;
+          double base = 0.0;
+          if (p >= 0 && qq >= 0) base = W(p, qq);
+          for (int rev = 0; rev < 2; ++rev) {
+            const int first = rev ? j : i;
+            const int last = rev ? i : j;
+            double added = -base;
+            if (p >= 0) added += W(p, first);
+            if (qq >= 0) added += W(last, qq);
+            const double gain = removed - added;
+            if (gain > best_gain) {
+              best_gain = gain;
+              best_p = p;
+              best_rev = rev != 0;
+            }
+          }
+        }
+        if (best_p == -2) continue;
+        std::vector<int> seg(path.begin() + i, path.begin() + j + 1);
+        if (best_rev) std::reverse(seg.begin(), seg.end());
+        std::vector<int> rest;
+        rest.reserve(n);
+        int insert_at = 0;
+        for (int k = 0; k < n; ++k) {
+          if (k >= i && k <= j) continue;
+          rest.push_back(path[k]);
+          if (k == best_p) insert_at = static_cast<int>(rest.size());
+        }
+        rest.insert(rest.begin() + insert_at, seg.begin(), seg.end());
+        path.swap(rest);
+        improved = true;
+      }
+    }
+  }
+  return path;
+}
+
+struct Layout {
+  const MoveModel& model;
+  std::vector<int> entry_of;  // [u * n + w], unordered, -1 when the pair is not measured
+  int n;
+  Layout(const MoveModel& m) : model(m), n(m.points()) {
+    entry_of.assign(std::size_t(n) * n, -1);
+    const auto& entries = m.input().entries;
+    for (std::size_t e = 0; e < entries.size(); ++e) {
+      entry_of[std::size_t(entries[e].a) * n + entries[e].b] = static_cast<int>(e);
+      entry_of[std::size_t(entries[e].b) * n + entries[e].a] = static_cast<int>(e);
+    }
+  }
+};
+
+/// Lays the cells out: rows hold `row_side`'s point fixed while the other side sweeps the
+/// training tour back and forth.
+std::vector<Code> sweep_order(const Layout& layout, int row_side, const std::vector<int>& tour,
+                              const std::vector<int>& test_tour, bool truncation_safe,
+                              const SideCosts& costs) {
+  const MoveModel& model = layout.model;
+  const auto& entries = model.input().entries;
+  std::vector<char> used(entries.size(), 0);
+  std::vector<Code> order;
+  order.reserve(entries.size());
+  int last_sweep = -1;
+  auto add = [&](int row_point, int sweep_point) {
+    const int e = layout.entry_of[std::size_t(row_point) * layout.n + sweep_point];
+    if (e < 0 || used[e]) return;
+    used[e] = 1;
+    const int prep = row_side == 0 ? row_point : sweep_point;
+    order.push_back(make_code(e, entries[e].a != prep));
+    last_sweep = sweep_point;
+  };
+  const int N = static_cast<int>(tour.size());
+  if (!truncation_safe) {
+    for (int k = 0; k + 1 < N; ++k) {
+      if (k % 2 == 0) {
+        for (int m = k + 1; m < N; ++m) add(tour[k], tour[m]);
+      } else {
+        for (int m = N - 1; m > k; --m) add(tour[k], tour[m]);
+      }
+    }
+  } else {
+    for (int k = 1; k < N; ++k) {
+      if (k % 2 == 0) {
+        for (int m = 0; m < k; ++m) add(tour[k], tour[m]);
+      } else {
+        for (int m = k - 1; m >= 0; --m) add(tour[k], tour[m]);
+      }
+    }
+  }
+  const int sweep_side = 1 - row_side;
+  for (int t : test_tour) {
+    bool forward = true;
+    if (last_sweep >= 0 && N > 0) {
+      forward = costs.at(sweep_side, last_sweep, tour.front()) <=
+                costs.at(sweep_side, last_sweep, tour.back());
+    }
+    if (forward) {
+      for (int m = 0; m < N; ++m) add(t, tour[m]);
+    } else {
+      for (int m = N - 1; m >= 0; --m) add(t, tour[m]);
+    }
+  }
+  // Entries outside the row/sweep pattern (should there be any) go last, as requested.
+  for (std::size_t e = 0; e < entries.size(); ++e) {
+    if (!used[e]) order.push_back(make_code(static_cast<int>(e), false));
+  }
+  return order;
+}
+
+/// Exact total move time of an order (solutions chosen optimally, angle model).
+double exact_cost(const MoveModel& model, const std::vector<Code>& order) {
+  return choose_solutions(model, order, nullptr);
+}
+
+/// Multi-start local search on the exact cost, for tiny instances.
+std::vector<Code> small_search(const MoveModel& model, std::vector<Code> start, std::uint64_t seed,
+                               const Budget& budget) {
+  std::mt19937_64 rng(seed);
+  const int n = static_cast<int>(start.size());
+  std::vector<Code> best = start;
+  double best_cost = exact_cost(model, best);
+  const double eps = 1e-12;
+  for (int restart = 0; restart < 48; ++restart) {
+    std::vector<Code> cur = start;
+    if (restart > 0) {
+      std::shuffle(cur.begin(), cur.end(), rng);
+      for (Code& c : cur) c = make_code(code_entry(c), (rng() & 1u) != 0);
+    }
+    double cur_cost = exact_cost(model, cur);
+    bool improved = true;
+    while (improved) {
+      improved = false;
+      if (budget.expired()) break;
+      auto try_order = [&](std::vector<Code>& cand) {
+        const double c = exact_cost(model, cand);
+        if (c < cur_cost - eps) {
+          cur.swap(cand);
+          cur_cost = c;
+          improved = true;
+        }
+      };
+      for (int i = 0; i < n; ++i) {
+        std::vector<Code> cand = cur;
+        cand[i] ^= 1u;
+        try_order(cand);
+      }
+      for (int i = 0; i < n; ++i) {
+        for (int j = 0; j < n; ++j) {
+          if (i == j) continue;
+          for (int flip = 0; flip < 2; ++flip) {
+            std::vector<Code> cand = cur;
+            Code c = cand[i] ^ static_cast<Code>(flip);
+            cand.erase(cand.begin() + i);
+            cand.insert(cand.begin() + j, c);
+            try_order(cand);
+          }
+        }
+      }
+      for (int i = 0; i < n; ++i) {
+        for (int j = i + 1; j < n; ++j) {
+          std::vector<Code> cand = cur;
+          std::reverse(cand.begin() + i, cand.begin() + j + 1);
+          try_order(cand);
+        }
+      }
+    }
+    if (cur_cost < best_cost - eps) {
+      best = cur;
+      best_cost = cur_cost;
+    }
+  }
+  return best;
+}
+
+}  // namespace
+
+std::vector<Code> optimized_order(const MoveModel& model, const SideCosts& costs,
+                                  bool truncation_safe, const ScheduleOptions& options) {
+  const ScheduleInput& in = model.input();
+  const double cap = in.settings.optimizer_time_cap_s;
+  const Budget budget{
+      &options.hooks,
+      Clock::now() + std::chrono::microseconds(static_cast<long long>(std::max(cap, 0.0) * 1e6)),
+      cap > 0.0};
+  const Layout layout(model);
+  const int train = std::clamp(in.train_count, 0, model.points());
+  const int tests = model.points() - train;
+
+  std::vector<Code> best;
+  double best_cost = std::numeric_limits<double>::infinity();
+  for (int row_side = 0; row_side < 2; ++row_side) {
+    const int sweep_side = 1 - row_side;
+    // Sweeps run both ways, so the tour weight is the mean of the two directions.
+    std::vector<float> w(std::size_t(train) * train);
+    for (int i = 0; i < train; ++i) {
+      for (int j = 0; j < train; ++j) {
+        w[std::size_t(i) * train + j] =
+            static_cast<float>(0.5 * (model.step_s(costs.at(sweep_side, i, j)) +
+                                      model.step_s(costs.at(sweep_side, j, i))));
+      }
+    }
+    int start = 0;
+    for (int i = 1; i < train; ++i) {
+      if (costs.initial[sweep_side][i] < costs.initial[sweep_side][start]) start = i;
+    }
+    std::vector<int> tour = improve_path(train, w, start, budget);
+    options.hooks.report(0.2 + 0.3 * row_side);
+
+    std::vector<float> wt(std::size_t(tests) * tests);
+    for (int i = 0; i < tests; ++i) {
+      for (int j = 0; j < tests; ++j) {
+        wt[std::size_t(i) * tests + j] =
+            static_cast<float>(model.step_s(costs.at(row_side, train + i, train + j)));
+      }
+    }
+    std::vector<int> test_tour = improve_path(tests, wt, 0, budget);
+    for (int& t : test_tour) t += train;
+
+    for (int dir = 0; dir < 2; ++dir) {
+      std::vector<int> tr = tour;
+      if (dir) std::reverse(tr.begin(), tr.end());
+      for (int tdir = 0; tdir < 2; ++tdir) {
+        std::vector<int> tt = test_tour;
+        if (tdir) std::reverse(tt.begin(), tt.end());
+        std::vector<Code> order = sweep_order(layout, row_side, tr, tt, truncation_safe, costs);
+        const double c = relaxed_order_s(model, costs, order);
+        if (c < best_cost) {
+          best_cost = c;
+          best.swap(order);
+        }
+      }
+    }
+    options.hooks.report(0.35 + 0.3 * row_side);
+  }
+  if (best.size() <= 12 && !truncation_safe) {
+    best = small_search(model, best, options.seed, budget);
+  }
+  return best;
+}
+
+}  // namespace gramline::sched

@@ -1,0 +1,296 @@
+// The night timeline: measure steps in the chosen order, reference steps every
+// reference_interval_min, dark steps at night start and end, a park at the end of each night;
+// no step straddles the end of its window. Also the entry point build_schedule.
+#include <algorithm>
+#include <cmath>
+#include <sstream>
+#include <stdexcept>
+
+#include "schedule_internal.h"
+
+namespace gramline {
+namespace {
+
+using namespace sched;
+
+constexpr double kDaySeconds = 86400.0;
+
+struct Layout {
+  std::vector<Step> steps;
+  int nights = 0;
+  bool ok = true;  ///< false when a single step cannot fit into an empty night
+};
+
+class TimelineBuilder {
+ public:
+  TimelineBuilder(const MoveModel& model, const std::vector<Code>& order,
+                  const std::vector<std::uint8_t>& solutions)
+      : model_(model), in_(model.input()), rig_(model.rig()), order_(order), sols_(solutions) {
+    initial_.resize(rig_.motors.size());
+    for (std::size_t m = 0; m < initial_.size(); ++m) initial_[m] = rig_.motors[m].initial_deg;
+    double pairs = 0.0;
+    for (const EntryRequest& e : in_.entries) pairs += e.pairs;
+    mean_pairs_ = in_.entries.empty() ? 0.0 : pairs / static_cast<double>(in_.entries.size());
+  }
+
+  Layout run(double scale) const {
+    Layout out;
+    const ScheduleSettings& set = in_.settings;
+    const double window_s = in_.nights.length_s();
+    const double ref_every_s = set.reference_interval_min * 60.0;
+    std::vector<double> pos = initial_;
+    int night = 1;
+    double t = 0.0;
+    double last_ref_s = -1e300;
+    int prepared = -1;
+    bool night_has_measure = false;
+    std::vector<Step> pending;
+
+    auto night_end = [&] { return (night - 1) * kDaySeconds + window_s; };
+    auto push = [&](Step s) {
+      s.start_s = t;
+      s.night = night;
+      t += s.move_s + s.dwell_s;
+      out.steps.push_back(std::move(s));
+    };
+    auto closing_s = [&](const std::vector<double>& from) {
+      double c = 0.0;
+      if (set.dark_steps) c += rig_.controller.overhead_s + set.dark_dwell_s;
+      if (set.park) c += step_move_s(rig_, from, initial_);
+      return c;
+    };
+    auto close_night = [&] {
+      if (set.dark_steps) push(dark_step(pos));
+      if (set.park) {
+        push(park_step(pos));
+        pos = initial_;
+      }
+    };
+    auto open_night = [&](int next_prep) {
+      t = (night - 1) * kDaySeconds;
+      night_has_measure = false;
+      if (set.dark_steps) push(dark_step(pos));
+      if (ref_every_s > 0.0) {
+        last_ref_s = t;
+        push(reference_step(next_prep, pos, scale));
+      }
+    };
+
+    if (!order_.empty()) open_night(model_.prep_point(order_[0]));
+    for (std::size_t k = 0; k < order_.size(); ++k) {
+      for (int attempt = 0; attempt < 2; ++attempt) {
+        pending.clear();
+        std::vector<double> p = pos;
+        const bool ref_due = ref_every_s > 0.0 && t - last_ref_s >= ref_every_s;
+        if (ref_due) pending.push_back(reference_step(prepared, p, scale));
+        pending.push_back(measure_step(k, p, scale));
+        double dur = 0.0;
+        for (const Step& s : pending) dur += s.move_s + s.dwell_s;
+        if (t + dur + closing_s(p) <= night_end() + 1e-9) {
+          for (Step& s : pending) {
+            if (s.kind == StepKind::reference) last_ref_s = t;
+            push(std::move(s));
+          }
+          pos = p;
+          prepared = model_.prep_point(order_[k]);
+          night_has_measure = true;
+          break;
+        }
+        if (!night_has_measure || attempt == 1) {
+          out.ok = false;
+          out.nights = night;
+          return out;
+        }
+        close_night();
+        ++night;
+        open_night(model_.prep_point(order_[k]));
+      }
+    }
+    if (!order_.empty()) close_night();
+    out.nights = order_.empty() ? 0 : night;
+    return out;
+  }
+
+ private:
+  Step dark_step(const std::vector<double>& pos) const {
+    Step s;
+    s.kind = StepKind::dark;
+    s.block = Block::none;
+    s.position_deg = pos;
+    s.dwell_s = in_.settings.dark_dwell_s;
+    s.move_s = step_move_s(rig_, pos, pos);
+    return s;
+  }
+  Step park_step(const std::vector<double>& pos) const {
+    Step s;
+    s.kind = StepKind::park;
+    s.block = Block::none;
+    s.position_deg = initial_;
+    s.move_s = step_move_s(rig_, pos, initial_);
+    return s;
+  }
+  /// Diagonal setting on the currently prepared point: its preparation motors stay put.
+  Step reference_step(int point, std::vector<double>& pos, double scale) const {
+    Step s;
+    s.kind = StepKind::reference;
+    s.block = Block::none;
+    s.prep_point = point;
+    s.analysis_point = point;
+    std::vector<double> next = pos;
+    for (int g = 0; g < model_.groups(); ++g) place_group(model_, g, point, -1, next);
+    s.position_deg = next;
+    s.move_s = step_move_s(rig_, pos, next);
+    pos = next;
+    s.kernel_ideal = 1.0;
+    s.p_pass = in_.reference_p_pass;
+    s.pairs = in_.reference_pairs > 0.0 ? in_.reference_pairs : mean_pairs_ * scale;
+    s.dwell_s = in_.pair_detect_rate_per_s > 0.0 ? s.pairs / in_.pair_detect_rate_per_s : 0.0;
+    return s;
+  }
+  Step measure_step(std::size_t k, std::vector<double>& pos, double scale) const {
+    const Code c = order_[k];
+    const EntryRequest& e = in_.entries[code_entry(c)];
+    Step s;
+    s.kind = StepKind::measure;
+    s.block = e.block;
+    s.prep_point = model_.prep_point(c);
+    s.analysis_point = model_.analysis_point(c);
+    std::vector<double> next = pos;
+    for (int g = 0; g < model_.groups(); ++g) {
+      const int sol = sols_.empty() ? -1 : (sols_[k] >> g) & 1;
+      place_group(model_, g, model_.group_point(c, g), sol, next);
+    }
+    s.position_deg = next;
+    s.move_s = step_move_s(rig_, pos, next);
+    pos = std::move(next);
+    s.kernel_ideal = e.kernel_ideal;
+    s.p_pass = e.p_pass;
+    s.pairs = e.pairs * scale;
+    s.dwell_s = e.dwell_s * scale;
+    return s;
+  }
+
+  const MoveModel& model_;
+  const ScheduleInput& in_;
+  const Rig& rig_;
+  const std::vector<Code>& order_;
+  const std::vector<std::uint8_t>& sols_;
+  std::vector<double> initial_;
+  double mean_pairs_ = 0.0;
+};
+
+std::vector<NightUse> night_use(const std::vector<Step>& steps, int nights, double window_s) {
+  std::vector<NightUse> use(std::max(nights, 0));
+  for (int k = 0; k < nights; ++k) {
+    use[k].night = k + 1;
+    use[k].window_s = window_s;
+  }
+  for (const Step& s : steps) {
+    if (s.night < 1 || s.night > nights) continue;
+    NightUse& u = use[s.night - 1];
+    u.busy_s += s.move_s + s.dwell_s;
+    u.move_s += s.move_s;
+    if (s.kind == StepKind::measure) {
+      u.integration_s += s.dwell_s;
+    } else {
+      u.reference_s += s.move_s + s.dwell_s;
+    }
+  }
+  return use;
+}
+
+}  // namespace
+
+ScheduleResult build_schedule(const ScheduleInput& input, const ScheduleOptions& options) {
+  ScheduleResult result;
+  const MoveModel model(input);
+  options.hooks.report(0.0);
+  const SideCosts costs = compute_side_costs(model);
+  options.hooks.throw_if_cancelled();
+  result.move_lower_bound_s = measure_lower_bound_s(model, costs);
+  result.move_naive_s = realized_order_s(model, naive_order(input), {});
+  options.hooks.report(0.1);
+
+  std::vector<Code> order;
+  std::vector<std::uint8_t> sols;
+  if (options.optimize_order) {
+    order = optimized_order(model, costs, input.settings.truncation_safe, options);
+    choose_solutions(model, order, &sols);
+    if (input.settings.truncation_safe) {
+      std::vector<Code> free_order = optimized_order(model, costs, false, options);
+      std::vector<std::uint8_t> free_sols;
+      choose_solutions(model, free_order, &free_sols);
+      result.truncation_cost_s =
+          realized_order_s(model, order, sols) - realized_order_s(model, free_order, free_sols);
+    }
+  } else {
+    order = naive_order(input);
+  }
+  options.hooks.report(0.8);
+
+  const TimelineBuilder builder(model, order, sols);
+  const int max_nights = std::max(input.nights.max_nights, 1);
+  auto fits = [&](const Layout& l) { return l.ok && l.nights <= max_nights; };
+  double scale = 1.0;
+  Layout layout = builder.run(scale);
+  if (input.settings.fit_to_nights) {
+    // Largest common factor on every entry's pairs and dwell that still fits max_nights.
+    double lo = 0.0, hi = 0.0;
+    if (fits(layout)) {
+      lo = 1.0;
+      hi = 2.0;
+      while (hi < 1e6 && fits(builder.run(hi))) {
+        lo = hi;
+        hi *= 2.0;
+      }
+    } else {
+      hi = 1.0;
+    }
+    if (lo > 0.0 || fits(builder.run(1e-9))) {
+      for (int it = 0; it < 40 && hi - lo > 1e-6 * hi; ++it) {
+        options.hooks.throw_if_cancelled();
+        const double mid = 0.5 * (lo + hi);
+        (fits(builder.run(mid)) ? lo : hi) = mid;
+      }
+      if (lo > 0.0) {
+        scale = lo;
+        layout = builder.run(scale);
+      }
+    }
+  }
+  if (!layout.ok) {
+    throw std::invalid_argument(
+        "nights: the nightly window is too short to hold a single measure step with its "
+        "dark and park steps");
+  }
+  result.steps = std::move(layout.steps);
+  result.nights = layout.nights;
+  result.fits = layout.nights <= max_nights;
+  result.pairs_scale = scale;
+  result.night_use = night_use(result.steps, result.nights, input.nights.length_s());
+  options.hooks.report(1.0);
+  return result;
+}
+
+std::string ScheduleResult::report() const {
+  double measure_move = 0.0;
+  long measures = 0;
+  for (const Step& s : steps) {
+    if (s.kind == StepKind::measure) {
+      measure_move += s.move_s;
+      ++measures;
+    }
+  }
+  std::ostringstream out;
+  out << measures << " settings in " << steps.size() << " steps over " << nights << " night"
+      << (nights == 1 ? "" : "s") << (fits ? "" : " (more than allowed)") << "\n";
+  out << "measure moves " << measure_move << " s; lower bound " << move_lower_bound_s
+      << " s; row-by-row order " << move_naive_s << " s\n";
+  if (pairs_scale != 1.0) out << "pairs scaled by " << pairs_scale << " to fit the nights\n";
+  if (truncation_cost_s != 0.0) {
+    out << "truncation-safe order costs " << truncation_cost_s << " s of extra moves\n";
+  }
+  return out.str();
+}
+
+}  // namespace gramline
