@@ -1,0 +1,68 @@
+#include <QString>
+#include <iostream>
+
+#include "cli/commands.h"
+#include "formats/campaign_json.h"
+#include "formats/data_csv.h"
+#include "formats/input_error.h"
+#include "formats/plan_files.h"
+#include "gramline/demo.h"
+#include "gramline/plan.h"
+
+namespace gramline::cli {
+
+using formats::InputError;
+
+Campaign load_campaign_for_command(const std::string& campaign_path,
+                                   const std::optional<std::string>& data_path) {
+  Campaign campaign = formats::load_campaign(QString::fromStdString(campaign_path));
+  if (data_path) {
+    DataSet data = formats::read_data_csv(QString::fromStdString(*data_path));
+    const std::string refusal = campaign.encoding.check(data.feature_count());
+    if (!refusal.empty()) {
+      throw InputError(*data_path + ": " + std::to_string(data.feature_count()) +
+                       " feature columns, but the encoding of " + campaign_path +
+                       " does not accept them (" + refusal + ")");
+    }
+    campaign.data = std::move(data);
+  }
+  const std::string problem = campaign.check_consistency();
+  if (!problem.empty()) {
+    throw InputError(campaign_path + (data_path ? " with " + *data_path : std::string()) + ": " +
+                     problem);
+  }
+  return campaign;
+}
+
+int run_demo(const DemoRequest& request) {
+  const Campaign campaign = request.seed ? make_demo_campaign(*request.seed) : make_demo_campaign();
+  formats::save_campaign(campaign, QString::fromStdString(request.out_path));
+  std::cout << "wrote the demo campaign '" << campaign.name << "' (" << campaign.data.train_count()
+            << " training and " << campaign.data.test_count() << " test points, "
+            << campaign.rig.motors.size() << " motors) to " << request.out_path << "\n";
+  return 0;
+}
+
+int run_plan(const PlanRequest& request) {
+  Campaign campaign = load_campaign_for_command(request.campaign_path, request.data_path);
+  PlanOptions options;
+  options.seed = request.seed.value_or(campaign.seed);
+  campaign.seed = options.seed;
+  Plan plan;
+  try {
+    plan = plan_campaign(campaign, options);
+  } catch (const std::invalid_argument& e) {
+    // The engine names the field; the user needs the file too.
+    throw InputError(request.campaign_path + ": " + e.what());
+  }
+  std::cout << plan.report();
+  if (!plan.report().empty() && plan.report().back() != '\n') std::cout << "\n";
+  if (request.out_dir) {
+    formats::write_plan_files(campaign, plan, QString::fromStdString(*request.out_dir));
+    std::cout << "wrote steps.json, steps.csv, summary.json and kernel.csv to " << *request.out_dir
+              << "\n";
+  }
+  return 0;
+}
+
+}  // namespace gramline::cli

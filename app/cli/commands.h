@@ -1,0 +1,44 @@
+#pragma once
+// The commands of gramline-cli. Each returns the exit status (0 success, 2 bad input, 1 internal
+// failure); bad input may also be thrown as formats::InputError, which main turns into status 2.
+#include <cstdint>
+#include <optional>
+#include <string>
+
+#include "gramline/campaign.h"
+
+namespace gramline::cli {
+
+struct DemoRequest {
+  std::string out_path;
+  std::optional<std::uint64_t> seed;  ///< generator seed of the demo data (default: the demo's)
+};
+
+struct PlanRequest {
+  std::string campaign_path;
+  std::optional<std::string> data_path;
+  std::optional<std::string> out_dir;
+  std::optional<std::uint64_t> seed;
+};
+
+struct CheckRequest {
+  std::string campaign_path;
+  std::optional<std::string> data_path;
+  std::optional<int> trials;
+  std::optional<std::uint64_t> seed;
+  std::string out_path;
+};
+
+int run_demo(const DemoRequest& request);
+int run_plan(const PlanRequest& request);
+/// The margin check (cmd_check.cpp).
+int run_check(const CheckRequest& request);
+
+/// Loads the campaign file and, with `data_path`, replaces its points by the data CSV. Throws
+/// formats::InputError naming the file, line or field; also when the campaign's encoding does
+/// not accept the CSV's number of features, or the campaign is inconsistent
+/// (Campaign::check_consistency).
+Campaign load_campaign_for_command(const std::string& campaign_path,
+                                   const std::optional<std::string>& data_path);
+
+}  // namespace gramline::cli

@@ -1,0 +1,247 @@
+#include "formats/plan_files.h"
+
+#include <QDir>
+#include <QJsonArray>
+#include <QJsonDocument>
+#include <QJsonObject>
+#include <limits>
+#include <map>
+
+#include "formats/input_error.h"
+#include "formats/json_field.h"
+#include "formats/rig_json.h"
+#include "formats/text_io.h"
+
+namespace gramline::formats {
+namespace {
+
+QString q(const std::string& text) { return QString::fromStdString(text); }
+
+std::string json_text(const QJsonObject& object) {
+  const QByteArray bytes = QJsonDocument(object).toJson(QJsonDocument::Indented);
+  return std::string(bytes.constData(), static_cast<size_t>(bytes.size()));
+}
+
+QJsonValue point_or_null(int index) {
+  return index < 0 ? QJsonValue(QJsonValue::Null) : QJsonValue(index);
+}
+
+int point_from(const JsonField& f, int point_limit) {
+  if (f.is_null()) return -1;
+  return static_cast<int>(f.integer(0, point_limit));
+}
+
+}  // namespace
+
+std::string steps_conventions_text() {
+  return "Polarization: Jones vectors in the H/V basis, H = (1, 0), V = (0, 1); global phases "
+         "are ignored. A waveplate whose fast axis is at angle t from horizontal with retardance "
+         "G acts as R(-t) diag(1, exp(iG)) R(t), R(t) = [[cos t, sin t], [-sin t, cos t]]; G is pi "
+         "for an HWP and pi/2 for a QWP. Every angle in this file is in degrees. A point's state "
+         "on photon p is cos(theta/2)|H> + exp(i phi) sin(theta/2)|V>. Preparation: |H> passes "
+         "the prep HWP, then the prep QWP. Analysis: the light passes the analysis QWP, then the "
+         "analysis HWP, then a polarizing beam splitter whose H output counts as pass. "
+         "kernel_ideal is the product over photons of the pass probability "
+         "|<H| HWP(h_an) QWP(q_an) QWP(q_prep) HWP(h_prep) |H>|^2 computed from position_deg; "
+         "p_pass adds global depolarization, V kernel + (1 - V) / 2^P for P photons. An HWP at "
+         "t and at t + 90 k, and a QWP at t and at t + 180 k, act alike. "
+         "Motion: position_deg is the physical, unwrapped position each motor is commanded to. "
+         "A move over distance d takes T(d) = d/v + v/a when d >= v^2/a, else 2 sqrt(d/a), and "
+         "T(0) = 0, with v = speed_deg_per_s and a = accel_deg_per_s2. A motor with backlash "
+         "'shortest' moving from x to y takes T(|y - x|); with 'from-below' it takes T(y - x) "
+         "when y >= x, else T(x - y + o) + T(o), o = overshoot_deg (it passes the target by o "
+         "and comes back upward). A step's move_s is the maximum (controller moves "
+         "'simultaneous') or the sum ('sequential') of its motors' times, plus settle_s when "
+         "any motor moved, plus overhead_s. The first step starts from each motor's "
+         "initial_deg; motors return there only in a 'park' step. start_s counts seconds from "
+         "the start of the first night to the start of the step's move; the step occupies "
+         "[start_s, start_s + move_s + dwell_s]. prep_point and analysis_point index the data "
+         "set's points, training points first in file order, then test points; null where the "
+         "step measures no pair of points.";
+}
+
+std::string format_steps_json(const Rig& rig, const std::vector<Step>& steps) {
+  QJsonArray motors;
+  for (const Motor& m : rig.motors) motors.append(motor_to_json(m));
+  QJsonArray rows;
+  for (size_t i = 0; i < steps.size(); ++i) {
+    const Step& s = steps[i];
+    QJsonObject positions;
+    for (size_t m = 0; m < rig.motors.size() && m < s.position_deg.size(); ++m) {
+      positions[q(rig.motors[m].name)] = s.position_deg[m];
+    }
+    rows.append(QJsonObject{{"index", static_cast<qint64>(i)},
+                            {"kind", q(to_string(s.kind))},
+                            {"block", q(to_string(s.block))},
+                            {"prep_point", point_or_null(s.prep_point)},
+                            {"analysis_point", point_or_null(s.analysis_point)},
+                            {"position_deg", positions},
+                            {"kernel_ideal", s.kernel_ideal},
+                            {"p_pass", s.p_pass},
+                            {"pairs", s.pairs},
+                            {"dwell_s", s.dwell_s},
+                            {"move_s", s.move_s},
+                            {"start_s", s.start_s},
+                            {"night", s.night}});
+  }
+  return json_text(QJsonObject{{"format", kStepsFormat},
+                               {"version", kStepsVersion},
+                               {"conventions", q(steps_conventions_text())},
+                               {"motors", motors},
+                               {"controller", controller_to_json(rig.controller)},
+                               {"steps", rows}});
+}
+
+std::string format_steps_csv(const Rig& rig, const std::vector<Step>& steps) {
+  std::string out = "index,kind,block,prep_point,analysis_point";
+  for (const Motor& m : rig.motors) out += "," + csv_field(m.name + "_deg");
+  out += ",kernel_ideal,p_pass,pairs,dwell_s,move_s,start_s,night\n";
+  auto point = [](int index) { return index < 0 ? std::string() : std::to_string(index); };
+  for (size_t i = 0; i < steps.size(); ++i) {
+    const Step& s = steps[i];
+    out += std::to_string(i) + "," + to_string(s.kind) + "," + to_string(s.block) + "," +
+           point(s.prep_point) + "," + point(s.analysis_point);
+    for (size_t m = 0; m < rig.motors.size(); ++m) {
+      out += ",";
+      if (m < s.position_deg.size()) out += exact_number_text(s.position_deg[m]);
+    }
+    for (double v : {s.kernel_ideal, s.p_pass, s.pairs, s.dwell_s, s.move_s, s.start_s}) {
+      out += "," + exact_number_text(v);
+    }
+    out += "," + std::to_string(s.night) + "\n";
+  }
+  return out;
+}
+
+std::string format_summary_json(const Campaign& campaign, const Plan& plan) {
+  const PlanSummary& s = plan.summary;
+  QJsonArray nights;
+  for (const NightUse& n : s.night_use) {
+    nights.append(QJsonObject{{"night", n.night},
+                              {"busy_s", n.busy_s},
+                              {"move_s", n.move_s},
+                              {"integration_s", n.integration_s},
+                              {"reference_s", n.reference_s},
+                              {"window_s", n.window_s},
+                              {"fill", n.fill()}});
+  }
+  const GramError& g = plan.gram_error;
+  QJsonObject o{{"format", "gramline-summary"},
+                {"version", 1},
+                {"campaign", q(campaign.name)},
+                {"train_points", campaign.data.train_count()},
+                {"test_points", campaign.data.test_count()},
+                {"photons", campaign.encoding.photon_count()},
+                {"settings", static_cast<qint64>(s.settings)},
+                {"steps", static_cast<qint64>(s.steps)},
+                {"pairs_total", s.pairs_total},
+                {"integration_s", s.integration_s},
+                {"move_s", s.move_s},
+                {"reference_s", s.reference_s},
+                {"total_s", s.total_s},
+                {"nights", s.nights},
+                {"move_lower_bound_s", s.move_lower_bound_s},
+                {"move_naive_s", s.move_naive_s},
+                {"measure_move_s", s.measure_move_s},
+                {"gram_sigma_frobenius", s.gram_sigma_frobenius},
+                {"gram_sigma_max", g.sigma_max},
+                {"gram_spectral_estimate", g.spectral_estimate},
+                {"gram_min_eigenvalue", g.min_eigenvalue},
+                {"p_negative_eigenvalue", g.p_negative_eigenvalue},
+                {"epsilon_reached", s.epsilon_reached},
+                {"truncation_cost_s", s.truncation_cost_s},
+                {"fits", s.fits},
+                {"max_nights", campaign.nights.max_nights},
+                {"night_use", nights},
+                {"plan_ms", s.plan_ms}};
+  return json_text(o);
+}
+
+std::string format_kernel_csv(const Eigen::MatrixXd& kernel) {
+  std::string out;
+  for (long i = 0; i < kernel.rows(); ++i) {
+    for (long j = 0; j < kernel.cols(); ++j) {
+      if (j > 0) out += ",";
+      out += seventeen_digit_text(kernel(i, j));
+    }
+    out += "\n";
+  }
+  return out;
+}
+
+StepsFile parse_steps_json(const std::string& bytes, const std::string& file) {
+  const JsonField root = parse_json_document(bytes, file);
+  const std::string format = root["format"].text();
+  if (format != kStepsFormat) {
+    root["format"].fail("'" + format + "' is not a steps file (expected '" + kStepsFormat + "')");
+  }
+  const long long version = root["version"].integer(1, std::numeric_limits<int>::max());
+  if (version > kStepsVersion) {
+    root["version"].fail("the file has version " + std::to_string(version) +
+                         ", newer than this program reads (" + std::to_string(kStepsVersion) + ")");
+  }
+  StepsFile out;
+  out.conventions = root.has("conventions") ? root["conventions"].text() : std::string();
+  std::map<std::string, size_t> motor_of;
+  for (const JsonField& m : root["motors"].items()) {
+    Motor motor = motor_from_json(m);
+    if (!motor_of.emplace(motor.name, out.rig.motors.size()).second) {
+      m["name"].fail("motor name '" + motor.name + "' is used twice");
+    }
+    out.rig.motors.push_back(std::move(motor));
+  }
+  out.rig.controller = controller_from_json(root["controller"]);
+
+  const int point_limit = std::numeric_limits<int>::max();
+  const std::vector<JsonField> rows = root["steps"].items();
+  out.steps.reserve(rows.size());
+  for (size_t i = 0; i < rows.size(); ++i) {
+    const JsonField& r = rows[i];
+    if (r["index"].integer(0, point_limit) != static_cast<long long>(i)) {
+      r["index"].fail("expected " + std::to_string(i) + " (the step's place in the list)");
+    }
+    Step s;
+    s.kind =
+        r["kind"].choice({StepKind::measure, StepKind::reference, StepKind::dark, StepKind::park});
+    s.block = r["block"].choice({Block::train, Block::test, Block::none});
+    s.prep_point = point_from(r["prep_point"], point_limit);
+    s.analysis_point = point_from(r["analysis_point"], point_limit);
+    const JsonField positions = r["position_deg"];
+    if (!positions.value().isObject()) positions.fail("expected an object (motor name: degrees)");
+    for (const QString& key : positions.value().toObject().keys()) {
+      if (!motor_of.count(key.toStdString())) {
+        positions.fail("'" + key.toStdString() + "' is not a motor listed in motors");
+      }
+    }
+    s.position_deg.resize(out.rig.motors.size());
+    for (size_t m = 0; m < out.rig.motors.size(); ++m) {
+      s.position_deg[m] = positions[out.rig.motors[m].name.c_str()].number();
+    }
+    s.kernel_ideal = r["kernel_ideal"].number();
+    s.p_pass = r["p_pass"].number();
+    s.pairs = r["pairs"].number();
+    s.dwell_s = r["dwell_s"].number();
+    s.move_s = r["move_s"].number();
+    s.start_s = r["start_s"].number();
+    s.night = static_cast<int>(r["night"].integer(1, point_limit));
+    out.steps.push_back(std::move(s));
+  }
+  return out;
+}
+
+StepsFile read_steps_json(const QString& path) {
+  return parse_steps_json(read_whole_file(path), path_text(path));
+}
+
+void write_plan_files(const Campaign& campaign, const Plan& plan, const QString& dir) {
+  QDir directory(dir);
+  if (!directory.mkpath(".")) {
+    throw InputError(path_text(dir) + ": cannot create the output directory");
+  }
+  write_whole_file(directory.filePath("steps.json"), format_steps_json(campaign.rig, plan.steps));
+  write_whole_file(directory.filePath("steps.csv"), format_steps_csv(campaign.rig, plan.steps));
+  write_whole_file(directory.filePath("summary.json"), format_summary_json(campaign, plan));
+  write_whole_file(directory.filePath("kernel.csv"), format_kernel_csv(plan.kernel_train));
+}
+
+}  // namespace gramline::formats

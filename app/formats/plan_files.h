@@ -1,0 +1,48 @@
+#pragma once
+// The files `plan --out DIR` writes (SPEC section 3): steps.json, steps.csv, summary.json and
+// kernel.csv; and a reader for steps.json (a rig controller, a resumed campaign or a test can
+// take the schedule back from it).
+#include <QString>
+#include <string>
+#include <vector>
+
+#include "gramline/campaign.h"
+#include "gramline/plan.h"
+
+namespace gramline::formats {
+
+inline constexpr const char* kStepsFormat = "gramline-steps";
+inline constexpr int kStepsVersion = 1;
+
+/// SPEC sections 1 and 2 in words: what the positions mean and how move_s follows from them.
+std::string steps_conventions_text();
+
+/// steps.json text: conventions, motors with their model parameters, controller, steps.
+std::string format_steps_json(const Rig& rig, const std::vector<Step>& steps);
+/// steps.csv text: one row per step, one column per motor (`<motor name>_deg`), units in the
+/// header; empty fields where steps.json has null.
+std::string format_steps_csv(const Rig& rig, const std::vector<Step>& steps);
+/// summary.json text: every SPEC key plus night use, the Gram error figures and the counts.
+std::string format_summary_json(const Campaign& campaign, const Plan& plan);
+/// kernel.csv text: the N x N matrix, no header, 17 significant digits.
+std::string format_kernel_csv(const Eigen::MatrixXd& kernel);
+
+/// What steps.json gives back. `rig` holds the motors and the controller (the source and the
+/// detectors are not in the file and keep their defaults).
+struct StepsFile {
+  std::string conventions;
+  Rig rig;
+  std::vector<Step> steps;
+};
+
+/// Parses steps.json text. Throws InputError naming the file and field path for a wrong type,
+/// a missing field, an unknown motor in position_deg, a motor without a position, a step whose
+/// index is not its place in the list, or a newer version.
+StepsFile parse_steps_json(const std::string& bytes, const std::string& file);
+StepsFile read_steps_json(const QString& path);
+
+/// Creates `dir` if needed and writes the four files atomically. Throws InputError naming the
+/// file or directory that cannot be written.
+void write_plan_files(const Campaign& campaign, const Plan& plan, const QString& dir);
+
+}  // namespace gramline::formats

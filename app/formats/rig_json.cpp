@@ -1,0 +1,55 @@
+#include "formats/rig_json.h"
+
+#include <QJsonArray>
+
+namespace gramline::formats {
+
+QJsonObject motor_to_json(const Motor& m) {
+  QJsonValue range = QJsonValue::Null;
+  if (m.range) range = QJsonArray{m.range->low_deg, m.range->high_deg};
+  return QJsonObject{{"name", QString::fromStdString(m.name)},
+                     {"photon", m.photon},
+                     {"stage", QString::fromStdString(to_string(m.stage))},
+                     {"plate", QString::fromStdString(to_string(m.plate))},
+                     {"speed_deg_per_s", m.speed_deg_per_s},
+                     {"accel_deg_per_s2", m.accel_deg_per_s2},
+                     {"range_deg", range},
+                     {"backlash", QString::fromStdString(to_string(m.backlash))},
+                     {"overshoot_deg", m.overshoot_deg},
+                     {"initial_deg", m.initial_deg}};
+}
+
+Motor motor_from_json(const JsonField& m) {
+  Motor motor;
+  motor.name = m["name"].text();
+  motor.photon = static_cast<int>(m["photon"].integer(0, 3));
+  motor.stage = m["stage"].choice({Stage::prep, Stage::analysis});
+  motor.plate = m["plate"].choice({Plate::HWP, Plate::QWP});
+  motor.speed_deg_per_s = m["speed_deg_per_s"].number();
+  motor.accel_deg_per_s2 = m["accel_deg_per_s2"].number();
+  const JsonField range = m["range_deg"];
+  if (!range.is_null()) {
+    const std::vector<double> lo_hi = range.numbers(2);
+    motor.range = TravelRange{lo_hi[0], lo_hi[1]};
+  }
+  motor.backlash = m["backlash"].choice({Backlash::shortest, Backlash::from_below});
+  motor.overshoot_deg = m["overshoot_deg"].number();
+  motor.initial_deg = m["initial_deg"].number();
+  return motor;
+}
+
+QJsonObject controller_to_json(const Controller& c) {
+  return QJsonObject{{"moves", QString::fromStdString(to_string(c.moves))},
+                     {"settle_s", c.settle_s},
+                     {"overhead_s", c.overhead_s}};
+}
+
+Controller controller_from_json(const JsonField& c) {
+  Controller out;
+  out.moves = c["moves"].choice({MoveMode::simultaneous, MoveMode::sequential});
+  out.settle_s = c["settle_s"].number();
+  out.overhead_s = c["overhead_s"].number();
+  return out;
+}
+
+}  // namespace gramline::formats

@@ -1,0 +1,83 @@
+#include "formats/text_io.h"
+
+#include <QFile>
+#include <QSaveFile>
+#include <array>
+#include <charconv>
+#include <cstdio>
+
+#include "formats/input_error.h"
+
+namespace gramline::formats {
+
+std::string exact_number_text(double value) {
+  std::array<char, 64> buffer{};
+  const auto result = std::to_chars(buffer.data(), buffer.data() + buffer.size(), value);
+  return std::string(buffer.data(), result.ptr);
+}
+
+std::string seventeen_digit_text(double value) {
+  std::array<char, 64> buffer{};
+  const int length = std::snprintf(buffer.data(), buffer.size(), "%.17g", value);
+  return std::string(buffer.data(), static_cast<size_t>(length));
+}
+
+bool parse_number(std::string_view text, double& out) {
+  if (text.empty()) return false;
+  // from_chars refuses a leading '+', which people do write in data files.
+  if (text.front() == '+') {
+    text.remove_prefix(1);
+    if (text.empty() || text.front() == '-' || text.front() == '+') return false;
+  }
+  const char* end = text.data() + text.size();
+  const auto result = std::from_chars(text.data(), end, out, std::chars_format::general);
+  return result.ec == std::errc() && result.ptr == end;
+}
+
+std::string csv_field(std::string_view text) {
+  const bool needs_quotes = text.find_first_of(",\"\r\n") != std::string_view::npos ||
+                            (!text.empty() && (text.front() == ' ' || text.back() == ' '));
+  if (!needs_quotes) return std::string(text);
+  std::string quoted = "\"";
+  for (char c : text) {
+    if (c == '"') quoted += '"';
+    quoted += c;
+  }
+  quoted += '"';
+  return quoted;
+}
+
+std::string_view trim(std::string_view text) {
+  while (!text.empty() && (text.front() == ' ' || text.front() == '\t')) text.remove_prefix(1);
+  while (!text.empty() && (text.back() == ' ' || text.back() == '\t')) text.remove_suffix(1);
+  return text;
+}
+
+std::string path_text(const QString& path) { return path.toStdString(); }
+
+std::string read_whole_file(const QString& path) {
+  QFile file(path);
+  if (!file.open(QIODevice::ReadOnly)) {
+    throw InputError(path_text(path) + ": cannot read the file (" +
+                     file.errorString().toStdString() + ")");
+  }
+  const QByteArray bytes = file.readAll();
+  return std::string(bytes.constData(), static_cast<size_t>(bytes.size()));
+}
+
+void write_whole_file(const QString& path, const std::string& bytes) {
+  QSaveFile file(path);
+  const auto fail = [&] {
+    throw InputError(path_text(path) + ": cannot write the file (" +
+                     file.errorString().toStdString() + ")");
+  };
+  if (!file.open(QIODevice::WriteOnly)) fail();
+  if (file.write(bytes.data(), static_cast<qint64>(bytes.size())) !=
+      static_cast<qint64>(bytes.size())) {
+    file.cancelWriting();
+    fail();
+  }
+  if (!file.commit()) fail();
+}
+
+}  // namespace gramline::formats
