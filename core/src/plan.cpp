@@ -246,9 +246,9 @@ std::string Plan::report() const {
     << (s.fits ? "" : " -- DOES NOT FIT the nights allowed") << "\n";
   o << "  counting " << hours(s.integration_s) << ", moving " << hours(s.move_s)
     << ", references/dark/park " << hours(s.reference_s) << "\n";
-  o << std::setprecision(3);
-  o << "Pairs: " << s.pairs_total << " in all; worst entry half-width " << s.epsilon_reached
-    << "\n";
+  o << std::setprecision(2);
+  o << "Pairs: " << s.pairs_total / 1e6 << " million in all; worst entry half-width "
+    << std::setprecision(4) << s.epsilon_reached << "\n";
   o << std::setprecision(1);
   o << "Motor order: measure moves " << s.measure_move_s << " s; lower bound "
     << s.move_lower_bound_s << " s";
