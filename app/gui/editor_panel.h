@@ -1,0 +1,91 @@
+#pragma once
+// The campaign editor: data, encoding, rig, measurement and nights. Every control writes
+// through CampaignDocument::edit (undoable) and is refreshed from the document after any change.
+#include <QWidget>
+#include <functional>
+#include <vector>
+
+#include "gramline/campaign.h"
+
+class QCheckBox;
+class QComboBox;
+class QDoubleSpinBox;
+class QFormLayout;
+class QLabel;
+class QLineEdit;
+class QPushButton;
+class QSpinBox;
+class QTabWidget;
+class QTableView;
+class QTableWidget;
+
+namespace gramline::gui {
+
+class CampaignDocument;
+class DataModel;
+class MotorsModel;
+
+class EditorPanel : public QWidget {
+  Q_OBJECT
+
+ public:
+  explicit EditorPanel(CampaignDocument* document, QWidget* parent = nullptr);
+
+  QTabWidget* pages() const { return pages_; }
+  MotorsModel* motors_model() const { return motors_; }
+  /// Reads every control back from the document's campaign.
+  void refresh();
+
+ signals:
+  void import_requested();
+  void demo_requested();
+
+ private:
+  QWidget* build_data_page();
+  QWidget* build_encoding_page();
+  QWidget* build_rig_page();
+  QWidget* build_measurement_page();
+  QWidget* build_nights_page();
+
+  QDoubleSpinBox* number(QFormLayout* form, const QString& key, const QString& label,
+                         const QString& help, double min, double max, int decimals,
+                         const QString& suffix, std::function<double(const Campaign&)> get,
+                         std::function<void(Campaign&, double)> set);
+  QSpinBox* integer(QFormLayout* form, const QString& key, const QString& label,
+                    const QString& help, int min, int max, std::function<int(const Campaign&)> get,
+                    std::function<void(Campaign&, int)> set);
+  QCheckBox* flag(QFormLayout* form, const QString& key, const QString& label, const QString& help,
+                  std::function<bool(const Campaign&)> get,
+                  std::function<void(Campaign&, bool)> set);
+  QComboBox* choice(QFormLayout* form, const QString& key, const QString& label,
+                    const QString& help, const QStringList& items,
+                    std::function<int(const Campaign&)> get,
+                    std::function<void(Campaign&, int)> set);
+  void apply_preset();
+  void scale_encoding(double factor);
+  void suggest_scale();
+  void refresh_encoding_table();
+  void refresh_detectors();
+
+  CampaignDocument* document_;
+  QTabWidget* pages_;
+  std::vector<std::function<void()>> refreshers_;
+
+  DataModel* data_model_;
+  QLabel* data_info_;
+  QLineEdit* name_;
+  MotorsModel* motors_;
+  QTableView* motors_view_;
+  QTableWidget* detectors_;
+  QComboBox* preset_;
+  QDoubleSpinBox* theta_low_;
+  QDoubleSpinBox* theta_high_;
+  QDoubleSpinBox* phi_low_;
+  QDoubleSpinBox* phi_high_;
+  QDoubleSpinBox* scale_;
+  QLabel* scale_advice_;
+  QTableWidget* weights_;
+  QLabel* window_info_;
+};
+
+}  // namespace gramline::gui

@@ -1,0 +1,78 @@
+#pragma once
+// Gram error: heatmaps of the ideal kernel, the predicted sigma and the planned pairs of every
+// entry. Hovering names the entry, the step that measures it and when.
+#include <QImage>
+#include <QWidget>
+#include <functional>
+#include <memory>
+
+#include "gramline/campaign.h"
+#include "gramline/plan.h"
+
+class QComboBox;
+class QLabel;
+
+namespace gramline::gui {
+
+/// A matrix drawn into a QImage, with a colour bar and a hover text per cell.
+class HeatmapWidget : public QWidget {
+  Q_OBJECT
+
+ public:
+  using CellText = std::function<QString(int row, int col)>;
+  explicit HeatmapWidget(const QString& title, QWidget* parent = nullptr);
+  /// `low`..`high` maps onto the colour scale; `scale_text` labels a value on the colour bar.
+  void set_matrix(const Eigen::MatrixXd& values, double low, double high,
+                  std::function<QString(double)> scale_text, CellText cell_text);
+  void clear_matrix();
+  /// Cell under a widget position, or (-1, -1).
+  QPoint cell_at(const QPoint& pos) const;
+  QString cell_text(int row, int col) const {
+    return cell_text_ ? cell_text_(row, col) : QString();
+  }
+  QSize sizeHint() const override { return {320, 340}; }
+
+ protected:
+  void paintEvent(QPaintEvent* event) override;
+  void mouseMoveEvent(QMouseEvent* event) override;
+  void leaveEvent(QEvent* event) override;
+
+ private:
+  QRect map_rect() const;
+
+  QString title_;
+  QImage image_;
+  int rows_ = 0;
+  int cols_ = 0;
+  double low_ = 0.0;
+  double high_ = 1.0;
+  std::function<QString(double)> scale_text_;
+  CellText cell_text_;
+  QPoint hover_{-1, -1};
+};
+
+class GramView : public QWidget {
+  Q_OBJECT
+
+ public:
+  explicit GramView(QWidget* parent = nullptr);
+  void set_plan(std::shared_ptr<const Plan> plan, const Campaign& campaign);
+  HeatmapWidget* kernel_map() const { return kernel_; }
+  HeatmapWidget* sigma_map() const { return sigma_; }
+  HeatmapWidget* pairs_map() const { return pairs_; }
+
+ private:
+  void redraw();
+  QString entry_text(int row, int col) const;
+
+  std::shared_ptr<const Plan> plan_;
+  NightWindow nights_;
+  int train_count_ = 0;
+  QComboBox* block_;
+  HeatmapWidget* kernel_;
+  HeatmapWidget* sigma_;
+  HeatmapWidget* pairs_;
+  QLabel* note_;
+};
+
+}  // namespace gramline::gui

@@ -1,0 +1,48 @@
+// gramline: the desktop app. `gramline [FILE]` opens a campaign (the demo when none is given);
+// `gramline --screenshots DIR [FILE]` renders every view into DIR as PNG files and exits.
+#include <QApplication>
+#include <QCommandLineParser>
+#include <QTimer>
+
+#include "app_icon.h"
+#include "main_window.h"
+
+int main(int argc, char** argv) {
+  QApplication app(argc, argv);
+  QApplication::setOrganizationName(QStringLiteral("Gramline"));
+  QApplication::setApplicationName(QStringLiteral("gramline"));
+  QApplication::setApplicationDisplayName(QStringLiteral("Gramline"));
+  QApplication::setApplicationVersion(QStringLiteral(GRAMLINE_VERSION));
+  QApplication::setWindowIcon(gramline::gui::app_icon());
+
+  QCommandLineParser parser;
+  parser.setApplicationDescription(QApplication::translate(
+      "main", "Plans polarization-encoded quantum-kernel measurements with photon pairs."));
+  parser.addHelpOption();
+  parser.addVersionOption();
+  parser.addPositionalArgument(QStringLiteral("file"),
+                               QApplication::translate("main", "Campaign file to open."),
+                               QStringLiteral("[FILE]"));
+  const QCommandLineOption screenshots(
+      QStringLiteral("screenshots"),
+      QApplication::translate("main", "Render every view into DIR as PNG files, then exit."),
+      QStringLiteral("DIR"));
+  parser.addOption(screenshots);
+  parser.process(app);
+
+  gramline::gui::MainWindow window;
+  const QStringList files = parser.positionalArguments();
+  bool opened = false;
+  if (!files.isEmpty()) opened = window.open_file(files.first());
+  if (!opened) window.load_demo();
+  window.show();
+
+  if (parser.isSet(screenshots)) {
+    window.resize(1400, 860);
+    window.take_screenshots(parser.value(screenshots),
+                            [](bool ok) { QApplication::exit(ok ? 0 : 1); });
+  } else {
+    QTimer::singleShot(0, &window, [&window] { window.offer_recovery(); });
+  }
+  return app.exec();
+}

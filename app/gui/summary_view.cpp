@@ -1,0 +1,181 @@
+#include "summary_view.h"
+
+#include <QFrame>
+#include <QGridLayout>
+#include <QLabel>
+#include <QPlainTextEdit>
+#include <QScrollArea>
+#include <QVBoxLayout>
+#include <cmath>
+
+#include "gui_text.h"
+
+namespace gramline::gui {
+
+SummaryView::SummaryView(QWidget* parent) : QWidget(parent) {
+  verdict_ = new QLabel;
+  verdict_->setWordWrap(true);
+  QFont big = font();
+  big.setPointSizeF(big.pointSizeF() * 1.35);
+  big.setBold(true);
+  verdict_->setFont(big);
+  verdict_->setAccessibleName(tr("Plan verdict"));
+  margin_verdict_ = new QLabel(tr("Margin check: not computed yet."));
+  margin_verdict_->setWordWrap(true);
+  margin_verdict_->setAccessibleName(tr("Margin verdict"));
+
+  auto* figures = new QWidget;
+  grid_ = new QGridLayout(figures);
+  grid_->setHorizontalSpacing(18);
+  grid_->setVerticalSpacing(14);
+
+  add_figure("nights", tr("Nights"), tr("Nights the plan needs, out of the nights allowed"));
+  add_figure("total", tr("Total time"),
+             tr("From the start of night 1 to the end of the last step"));
+  add_figure("settings", tr("Settings to measure"),
+             tr("Kernel entries measured (training pairs and test × training)"));
+  add_figure("motor_share", tr("Motor share"), tr("Share of the busy time spent moving plates"));
+  add_figure("gain", tr("Gain over naive order"),
+             tr("Motor time of the row-by-row order divided by that of this plan"));
+  add_figure("gap", tr("Gap to lower bound"),
+             tr("How far the measure steps' motor time is above a proven lower bound"));
+  add_figure("gram", tr("Gram error (Frobenius σ)"),
+             tr("Predicted standard deviation of the whole training Gram matrix"));
+  add_figure("negative", tr("Chance of a negative eigenvalue"),
+             tr("Probability the measured Gram matrix is not positive semidefinite"));
+  add_figure("pairs", tr("Detected pairs"), tr("Pairs over all steps"));
+  add_figure("counting", tr("Counting time"), tr("Dwell of the measure steps"));
+  add_figure("moving", tr("Moving time"), tr("Motor time of all steps, settle and overhead"));
+  add_figure("plan_ms", tr("Planning took"), tr("Wall time of the last planning run"));
+
+  report_ = new QPlainTextEdit;
+  report_->setReadOnly(true);
+  report_->setAccessibleName(tr("Engine report"));
+  report_->setFont(QFontDatabase::systemFont(QFontDatabase::FixedFont));
+  report_->setMaximumHeight(report_->fontMetrics().height() * 14);
+
+  auto* inner = new QWidget;
+  auto* layout = new QVBoxLayout(inner);
+  layout->addWidget(verdict_);
+  layout->addWidget(margin_verdict_);
+  auto* line = new QFrame;
+  line->setFrameShape(QFrame::HLine);
+  line->setFrameShadow(QFrame::Sunken);
+  layout->addWidget(line);
+  layout->addWidget(figures);
+  layout->addWidget(new QLabel(tr("The same report as the command line prints:")));
+  layout->addWidget(report_);
+  layout->addStretch(1);
+
+  auto* scroll = new QScrollArea;
+  scroll->setWidget(inner);
+  scroll->setWidgetResizable(true);
+  scroll->setFrameShape(QFrame::NoFrame);
+  auto* outer = new QVBoxLayout(this);
+  outer->setContentsMargins(0, 0, 0, 0);
+  outer->addWidget(scroll);
+}
+
+QLabel* SummaryView::add_figure(const QString& key, const QString& title, const QString& help) {
+  const int index = static_cast<int>(values_.size());
+  const int row = (index / 3) * 3;
+  const int col = index % 3;
+  auto* caption = new QLabel(title);
+  caption->setToolTip(help);
+  QFont small = caption->font();
+  small.setBold(true);
+  caption->setFont(small);
+  auto* value = new QLabel(QStringLiteral("–"));
+  QFont big = value->font();
+  big.setPointSizeF(big.pointSizeF() * 1.6);
+  value->setFont(big);
+  value->setTextInteractionFlags(Qt::TextSelectableByMouse);
+  value->setAccessibleName(title);
+  value->setToolTip(help);
+  auto* note = new QLabel;
+  note->setWordWrap(true);
+  note->setForegroundRole(QPalette::PlaceholderText);
+  grid_->addWidget(caption, row, col);
+  grid_->addWidget(value, row + 1, col);
+  grid_->addWidget(note, row + 2, col);
+  grid_->setColumnStretch(col, 1);
+  values_.insert(key, value);
+  notes_.insert(key, note);
+  return value;
+}
+
+void SummaryView::set_plan(std::shared_ptr<const Plan> plan, const Campaign& campaign) {
+  if (!plan) {
+    for (QLabel* l : values_) l->setText(QStringLiteral("–"));
+    for (QLabel* l : notes_) l->clear();
+    verdict_->setText(tr("No plan yet."));
+    report_->clear();
+    return;
+  }
+  const PlanSummary& s = plan->summary;
+  const auto set = [this](const char* key, const QString& value, const QString& note = {}) {
+    values_.value(key)->setText(value);
+    notes_.value(key)->setText(note);
+  };
+  const int allowed = campaign.nights.max_nights;
+  if (s.fits) {
+    verdict_->setText(tr("Fits: %n night(s) of %1 allowed, done by %2.", "", s.nights)
+                          .arg(allowed)
+                          .arg(clock_text(campaign.nights, s.total_s)));
+  } else {
+    verdict_->setText(tr("Does not fit in %1 nights: more nights, fewer pairs or a looser "
+                         "precision are needed.")
+                          .arg(allowed));
+  }
+  set("nights", tr("%1 of %2").arg(s.nights).arg(allowed));
+  set("total", duration_text(s.total_s), tr("ends %1").arg(clock_text(campaign.nights, s.total_s)));
+  set("settings", count_text(static_cast<double>(s.settings)),
+      tr("%1 steps in all").arg(count_text(static_cast<double>(s.steps))));
+  double busy_s = 0.0;
+  for (const NightUse& n : s.night_use) busy_s += n.busy_s;
+  set("motor_share",
+      busy_s > 0 ? tr("%1 %").arg(number_text(100.0 * s.move_s / busy_s, 1)) : QStringLiteral("–"),
+      tr("%1 moving of %2 busy").arg(duration_text(s.move_s), duration_text(busy_s)));
+  if (s.measure_move_s > 0 && s.move_naive_s > 0) {
+    set("gain", tr("%1 ×").arg(number_text(s.move_naive_s / s.measure_move_s, 2)),
+        tr("saves %1 of motor time").arg(duration_text(s.move_naive_s - s.measure_move_s)));
+  } else {
+    set("gain", QStringLiteral("–"));
+  }
+  if (s.move_lower_bound_s > 0) {
+    set("gap",
+        tr("%1 %").arg(number_text(100.0 * (s.measure_move_s / s.move_lower_bound_s - 1.0), 1)),
+        tr("bound %1, plan %2")
+            .arg(duration_text(s.move_lower_bound_s), duration_text(s.measure_move_s)));
+  } else {
+    set("gap", QStringLiteral("–"));
+  }
+  set("gram", number_text(s.gram_sigma_frobenius, 4),
+      tr("largest entry σ %1, spectral ≈ %2")
+          .arg(number_text(plan->gram_error.sigma_max, 4))
+          .arg(number_text(plan->gram_error.spectral_estimate, 4)));
+  set("negative", tr("%1 %").arg(number_text(100.0 * plan->gram_error.p_negative_eigenvalue, 2)),
+      tr("smallest ideal eigenvalue %1").arg(number_text(plan->gram_error.min_eigenvalue, 4)));
+  set("pairs", count_text(s.pairs_total),
+      s.epsilon_reached > 0
+          ? tr("kernel half-width reached ±%1").arg(number_text(s.epsilon_reached, 4))
+          : QString());
+  set("counting", duration_text(s.integration_s));
+  set("moving", duration_text(s.move_s));
+  set("plan_ms", tr("%1 ms").arg(number_text(s.plan_ms, 0)));
+  report_->setPlainText(QString::fromStdString(plan->report()));
+}
+
+void SummaryView::set_margin_verdict(const QString& text, bool pass) {
+  Q_UNUSED(pass);
+  margin_verdict_->setText(text.isEmpty() ? tr("Margin check: not computed yet.") : text);
+}
+
+QString SummaryView::figure(const QString& key) const {
+  const QLabel* l = values_.value(key);
+  return l ? l->text() : QString();
+}
+
+QString SummaryView::verdict() const { return verdict_->text(); }
+
+}  // namespace gramline::gui
