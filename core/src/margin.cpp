@@ -100,60 +100,104 @@ MarginProblem make_margin_problem(const Campaign& campaign, const Plan& plan) {
 
 namespace {
 
-double draw_entry(const MarginProblem& problem, const EntryNoise& noise, double ideal, double pairs,
-                  std::uint64_t seed) {
-  if (!(pairs > 0)) return ideal;
-  const Calibration& cal = noise.calibration;
-  const double r = cal.pair_detect_rate_per_s;
-  SplitMix64 rng(seed);
-  SettingCounts counts;
-  counts.dwell_s = pairs / r;
-  if (problem.scheme == DetectionScheme::pass_only) {
-    const double mean = (r * noise.p_pass + cal.accidental_pass_rate_per_s) * counts.dwell_s;
-    counts.pass_counts = static_cast<double>(std::poisson_distribution<long long>(mean)(rng));
-  } else {
-    // The dwell is fixed, so the total over all channels is Poisson; given the total, the
-    // pass channel is binomial with p_obs = (r p + a_pass) / (r + a_tot).
-    const double total_rate = r + cal.accidental_total_rate_per_s;
-    const long long total = std::poisson_distribution<long long>(total_rate * counts.dwell_s)(rng);
-    const double p_obs =
-        std::clamp((r * noise.p_pass + cal.accidental_pass_rate_per_s) / total_rate, 0.0, 1.0);
-    counts.total_counts = static_cast<double>(total);
-    counts.pass_counts =
-        total > 0 ? static_cast<double>(std::binomial_distribution<long long>(total, p_obs)(rng))
-                  : 0.0;
-    // No coincidence at all carries no information: take the uninformative half.
-    if (total == 0) {
-      counts.total_counts = 2.0;
-      counts.pass_counts = 1.0;
-    }
+using PoissonParam = std::poisson_distribution<long long>::param_type;
+
+// Count statistics of one entry at its planned pairs, with the Poisson parameters prepared
+// once per run (their set-up costs logarithms and log-gamma calls).
+struct EntrySampler {
+  bool exact = true;  // pairs <= 0: the ideal value is used
+  double ideal = 0.0;
+  double dwell_s = 0.0;
+  const Calibration* calibration = nullptr;
+  PoissonParam pass{1.0};
+  PoissonParam other{1.0};  // both_ports: counts in all the other channels
+};
+
+// Every entry's sampler, in the order of the random streams: training upper triangle by
+// row-major index i N + j, then test entries N^2 + t N + j.
+class PreparedDraws {
+ public:
+  explicit PreparedDraws(const MarginProblem& problem) : problem_(problem) {
+    const int n = problem.train_count(), m = problem.test_count();
+    train_.resize(static_cast<std::size_t>(n) * n);
+    test_.resize(static_cast<std::size_t>(m) * n);
+    for (int i = 0; i < n; ++i)
+      for (int j = i + 1; j < n; ++j)
+        train_[i * n + j] = prepare(problem.noise_train[i * n + j], problem.kernel_train(i, j),
+                                    problem.pairs_train(i, j));
+    for (int t = 0; t < m; ++t)
+      for (int j = 0; j < n; ++j)
+        test_[t * n + j] = prepare(problem.noise_test[t * n + j], problem.kernel_test(t, j),
+                                   problem.pairs_test(t, j));
   }
-  return estimate_kernel(problem.scheme, problem.photons, cal, counts);
-}
+
+  void draw(std::uint64_t trial_seed, Eigen::MatrixXd& train, Eigen::MatrixXd& test) const {
+    const int n = problem_.train_count(), m = problem_.test_count();
+    train.resize(n, n);
+    test.resize(m, n);
+    for (int i = 0; i < n; ++i) {
+      train(i, i) = problem_.kernel_train(i, i);
+      for (int j = i + 1; j < n; ++j) {
+        const std::size_t e = static_cast<std::size_t>(i) * n + j;
+        train(i, j) = train(j, i) = sample(train_[e], stream_seed(trial_seed, e));
+      }
+    }
+    for (int t = 0; t < m; ++t)
+      for (int j = 0; j < n; ++j) {
+        const std::size_t e = static_cast<std::size_t>(t) * n + j;
+        test(t, j) = sample(test_[e], stream_seed(trial_seed, static_cast<std::size_t>(n) * n + e));
+      }
+  }
+
+ private:
+  EntrySampler prepare(const EntryNoise& noise, double ideal, double pairs) const {
+    EntrySampler s;
+    s.ideal = ideal;
+    if (!(pairs > 0)) return s;
+    const Calibration& cal = noise.calibration;
+    const double r = cal.pair_detect_rate_per_s;
+    s.exact = false;
+    s.calibration = &cal;
+    s.dwell_s = pairs / r;
+    const double pass_rate = r * noise.p_pass + cal.accidental_pass_rate_per_s;
+    s.pass = PoissonParam(std::max(pass_rate * s.dwell_s, 1e-300));
+    if (problem_.scheme == DetectionScheme::both_ports) {
+      const double total_rate = r + cal.accidental_total_rate_per_s;
+      s.other = PoissonParam(std::max((total_rate - pass_rate) * s.dwell_s, 1e-300));
+    }
+    return s;
+  }
+
+  double sample(const EntrySampler& s, std::uint64_t seed) const {
+    if (s.exact) return s.ideal;
+    SplitMix64 rng(seed);
+    std::poisson_distribution<long long> poisson;
+    SettingCounts counts;
+    counts.dwell_s = s.dwell_s;
+    counts.pass_counts = static_cast<double>(poisson(rng, s.pass));
+    if (problem_.scheme == DetectionScheme::both_ports) {
+      // The dwell is fixed, so the total over all channels is Poisson and, given the total, the
+      // pass channel is binomial. Drawn here as two independent Poisson counts (pass, rest),
+      // which has exactly that joint law (Poisson splitting; Kingman, Poisson Processes, 1993).
+      counts.total_counts = counts.pass_counts + static_cast<double>(poisson(rng, s.other));
+      // No coincidence at all carries no information: take the uninformative half.
+      if (counts.total_counts == 0) {
+        counts.total_counts = 2.0;
+        counts.pass_counts = 1.0;
+      }
+    }
+    return estimate_kernel(problem_.scheme, problem_.photons, *s.calibration, counts);
+  }
+
+  const MarginProblem& problem_;
+  std::vector<EntrySampler> train_, test_;
+};
 
 }  // namespace
 
 void draw_measured_kernels(const MarginProblem& problem, std::uint64_t trial_seed,
                            Eigen::MatrixXd& train, Eigen::MatrixXd& test) {
-  const int n = problem.train_count(), m = problem.test_count();
-  train.resize(n, n);
-  test.resize(m, n);
-  for (int i = 0; i < n; ++i) {
-    train(i, i) = problem.kernel_train(i, i);
-    for (int j = i + 1; j < n; ++j) {
-      const std::size_t e = static_cast<std::size_t>(i) * n + j;
-      train(i, j) = train(j, i) =
-          draw_entry(problem, problem.noise_train[e], problem.kernel_train(i, j),
-                     problem.pairs_train(i, j), stream_seed(trial_seed, e));
-    }
-  }
-  for (int t = 0; t < m; ++t)
-    for (int j = 0; j < n; ++j) {
-      const std::size_t e = static_cast<std::size_t>(t) * n + j;
-      test(t, j) = draw_entry(problem, problem.noise_test[e], problem.kernel_test(t, j),
-                              problem.pairs_test(t, j),
-                              stream_seed(trial_seed, static_cast<std::size_t>(n) * n + e));
-    }
+  PreparedDraws(problem).draw(trial_seed, train, test);
 }
 
 bool repair_psd(Eigen::MatrixXd& gram, bool keep_unit_diagonal) {
@@ -196,10 +240,11 @@ double jaccard(const std::vector<int>& a, const std::vector<int>& b) {
 
 int sign_of(double f) { return f > 0 ? 1 : -1; }
 
-TrialOutcome run_trial(const MarginProblem& problem, const SvmModel& ideal,
-                       const TrialOptions& options, std::uint64_t trial_seed) {
+TrialOutcome run_trial(const MarginProblem& problem, const PreparedDraws& draws,
+                       const SvmModel& ideal, const TrialOptions& options,
+                       std::uint64_t trial_seed) {
   Eigen::MatrixXd train, test;
-  draw_measured_kernels(problem, trial_seed, train, test);
+  draws.draw(trial_seed, train, test);
   TrialOutcome out;
   out.repaired = repair_psd(train, options.keep_unit_diagonal);
   SvmOptions svm = options.svm;
@@ -268,6 +313,7 @@ TrialSummary run_margin_trials(const MarginProblem& problem, const SvmModel& ide
   if (options.trials < 1) throw std::invalid_argument("margin check: trials must be at least 1");
   const int trials = options.trials;
   std::vector<TrialOutcome> outcomes(trials);
+  const PreparedDraws draws(problem);
   int threads =
       options.threads > 0 ? options.threads : static_cast<int>(std::thread::hardware_concurrency());
   threads = std::clamp(threads, 1, trials);
@@ -288,7 +334,7 @@ TrialSummary run_margin_trials(const MarginProblem& problem, const SvmModel& ide
         }
         const int t = next.fetch_add(1);
         if (t >= trials) return;
-        outcomes[t] = run_trial(problem, ideal, options, stream_seed(options.seed, t));
+        outcomes[t] = run_trial(problem, draws, ideal, options, stream_seed(options.seed, t));
         const int finished = done.fetch_add(1) + 1;
         if (caller) options.hooks.report(static_cast<double>(finished) / trials);
       }

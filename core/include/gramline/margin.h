@@ -48,8 +48,9 @@ struct MarginProblem {
 /// rates and calibration per setting from the rig model (setting_rates, model_calibration).
 MarginProblem make_margin_problem(const Campaign& campaign, const Plan& plan);
 
-/// Draws one simulated measured kernel: counts per entry (both_ports: total Poisson, pass
-/// binomial given the total; pass_only: pass Poisson), estimate_kernel. Entry e of trial t uses
+/// Draws one simulated measured kernel: counts per entry at a fixed dwell (both_ports: total
+/// Poisson and pass binomial given the total, drawn as independent Poisson pass and other-channel
+/// counts; pass_only: pass Poisson), then estimate_kernel. Entry e of trial t uses
 /// its own stream stream_seed(trial_seed, e), so a given entry sees the same random numbers
 /// whatever its pairs (common random numbers across budgets).
 void draw_measured_kernels(const MarginProblem& problem, std::uint64_t trial_seed,
