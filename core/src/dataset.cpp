@@ -37,7 +37,10 @@ std::string validate(const DataSet& data) {
       for (int f = 0; f < x.cols(); ++f) {
         if (!std::isfinite(x(i, f))) {
           std::ostringstream e;
-          e << what << " point " << i + offset << ", feature " << f << ": not a finite number";
+          e << what << " point " << i + offset << ", feature " << f;
+          if (f < static_cast<int>(data.feature_names.size()))
+            e << " (" << data.feature_names[f] << ")";
+          e << ": not a finite number";
           return e.str();
         }
       }
