@@ -38,6 +38,7 @@ QJsonObject budget_json(const BudgetSearch& s) {
   o["pairs_per_entry"] = s.found ? number(s.pairs_per_entry) : QJsonValue();
   o["pairs_total"] = s.found ? number(s.total_pairs) : QJsonValue();
   o["integration_s"] = s.found ? number(s.integration_s) : QJsonValue();
+  o["failing_below"] = s.found ? number(s.failing_below) : QJsonValue();
   o["evaluations"] = s.evaluations;
   return o;
 }
@@ -121,6 +122,7 @@ QJsonObject check_json(const Campaign& campaign, const MarginCheck& check, std::
   o["pair_detect_rate_per_s"] = check.pair_detect_rate_per_s;
   o["plan_integration_s"] = check.plan_integration_s;
   o["plan_overhead_s"] = check.plan_overhead_s;
+  o["search_trials"] = check.search_trials;
   o["minimum_uniform_budget"] = budget_json(check.minimum_uniform);
   QJsonArray allocations;
   for (const AllocationOutcome& a : check.allocations) {

@@ -515,7 +515,7 @@ namespace {
 // scale with the same trial seeds every time (common random numbers), which keeps the pass/fail
 // boundary from jittering between evaluations.
 BudgetSearch search_scale(const std::function<bool(double)>& passes, double start, double low,
-                          double high, double relative_step, int& evaluations) {
+                          double high, double relative_step) {
   BudgetSearch r;
   double lo = 0.0, hi = 0.0;
   double s = std::clamp(start, low, high);
@@ -550,9 +550,9 @@ BudgetSearch search_scale(const std::function<bool(double)>& passes, double star
     const double mid = std::sqrt(lo * hi);
     (passes(mid) ? hi : lo) = mid;
   }
-  (void)evaluations;
   r.found = true;
   r.pairs_per_entry = hi;
+  r.failing_below = lo;
   return r;
 }
 
@@ -621,7 +621,9 @@ MarginCheck check_margin(const Campaign& campaign, const Plan& plan,
   check.plan_overhead_s = plan.summary.measure_move_s + plan.summary.reference_s;
 
   TrialOptions search = trial;
-  search.trials = options.search_trials > 0 ? options.search_trials : trial.trials;
+  search.trials =
+      options.search_trials > 0 ? std::min(options.search_trials, trial.trials) : trial.trials;
+  check.search_trials = search.trials;
   search.hooks = WorkHooks{};
   search.hooks.cancel = options.hooks.cancel;
   BudgetSearchOptions limits;
@@ -642,7 +644,7 @@ MarginCheck check_margin(const Campaign& campaign, const Plan& plan,
     };
     evaluations = 0;
     check.minimum_uniform = search_scale(passes, plan_total / entries, limits.low_pairs,
-                                         limits.high_pairs, limits.relative_step, evaluations);
+                                         limits.high_pairs, limits.relative_step);
     check.minimum_uniform.evaluations = evaluations;
     if (check.minimum_uniform.found) {
       check.minimum_uniform.total_pairs = check.minimum_uniform.pairs_per_entry * entries;
@@ -670,14 +672,14 @@ MarginCheck check_margin(const Campaign& campaign, const Plan& plan,
       evaluations = 0;
       // Factors of the plan's total; the limits mirror the uniform search's pairs per entry.
       const double per_entry = plan_total / entries;
-      BudgetSearch s =
-          search_scale(passes, 1.0, limits.low_pairs / per_entry, limits.high_pairs / per_entry,
-                       limits.relative_step, evaluations);
+      BudgetSearch s = search_scale(passes, 1.0, limits.low_pairs / per_entry,
+                                    limits.high_pairs / per_entry, limits.relative_step);
       s.evaluations = evaluations + 1;
       if (s.found) {
         const double factor = s.pairs_per_entry;
         s.total_pairs = plan_total * factor;
         s.pairs_per_entry = s.total_pairs / entries;
+        s.failing_below *= plan_total / entries;
         s.integration_s = s.total_pairs / r;
       }
       outcome.time_for_pass = s;
@@ -721,6 +723,8 @@ std::string MarginCheck::report() const {
   out << std::setprecision(4);
   out << "Planned integration " << plan_integration_s / 3600.0 << " h (plus "
       << plan_overhead_s / 3600.0 << " h of moves and reference steps)\n";
+  if (minimum_uniform.evaluations > 0 || !allocations.empty())
+    out << "Budget search and allocations use " << search_trials << " trials per evaluation\n";
   if (minimum_uniform.evaluations > 0) {
     if (minimum_uniform.found)
       out << "Smallest uniform budget that passes: " << minimum_uniform.pairs_per_entry

@@ -5,7 +5,9 @@
 #include <boost/math/distributions/normal.hpp>
 #include <cmath>
 
+#include "gramline/demo.h"
 #include "gramline/margin.h"
+#include "gramline/plan.h"
 #include "gramline/random.h"
 
 namespace {
@@ -274,6 +276,63 @@ TEST(Margin, CancelStopsTheTrials) {
   o.svm.C = 10.0;
   o.hooks.cancel = &cancel;
   EXPECT_THROW(gramline::run_margin_trials(p, ideal_model(p), o), gramline::Cancelled);
+}
+
+}  // namespace
+
+namespace {
+
+TEST(MarginCheck, DemoCampaignEndToEndAndTheMinimumBudgetIsTheBoundary) {
+  const gramline::Campaign campaign = gramline::make_demo_campaign();
+  const gramline::Plan plan = gramline::plan_campaign(campaign);
+  gramline::MarginCheckOptions options;
+  options.trials = 120;
+  options.search_trials = 120;
+  options.scale_factors = {0.5, 1.0};
+  std::vector<double> progress;
+  options.hooks.progress = [&](double f) { progress.push_back(f); };
+  const gramline::MarginCheck check = gramline::check_margin(campaign, plan, options);
+
+  const int n = campaign.data.train_count(), m = campaign.data.test_count();
+  EXPECT_EQ(check.ideal.dual_coef.size(), n);
+  EXPECT_EQ(check.decision_test.size(), m);
+  EXPECT_EQ(static_cast<int>(check.trials.points.size()), m);
+  EXPECT_EQ(check.trials.trials, 120);
+  // SPEC section 3: f(x) = sum_i dual_coef_i K(x_i, x) + bias on the ideal kernel.
+  const Eigen::VectorXd f = plan.kernel_test * check.ideal.dual_coef;
+  for (int t = 0; t < m; ++t) EXPECT_NEAR(check.decision_test[t], f[t] + check.ideal.bias, 1e-12);
+  EXPECT_EQ(check.verdict.pass, check.verdict.reasons.empty());
+  ASSERT_FALSE(progress.empty());
+  EXPECT_DOUBLE_EQ(progress.back(), 1.0);
+  EXPECT_EQ(check.allocations.size(), 3u);
+  EXPECT_EQ(check.scale_scan.size(), 2u);
+  EXPECT_FALSE(check.report().empty());
+
+  // The search's bracket holds when re-evaluated independently with the same trial seeds: the
+  // budget found passes, the failing end (within the 5% step below it) fails, and a quarter of
+  // it fails too.
+  ASSERT_TRUE(check.minimum_uniform.found);
+  gramline::MarginProblem p = gramline::make_margin_problem(campaign, plan);
+  gramline::TrialOptions o;
+  o.trials = 120;
+  o.seed = campaign.seed;
+  o.svm.C = check.C;
+  o.keep_unit_diagonal = campaign.check.keep_unit_diagonal;
+  auto verdict_at = [&](double pairs) {
+    p.pairs_train.setConstant(pairs);
+    p.pairs_train.diagonal().setZero();
+    p.pairs_test.setConstant(pairs);
+    return gramline::judge(gramline::run_margin_trials(p, check.ideal, o), campaign.check, n).pass;
+  };
+  const double found = check.minimum_uniform.pairs_per_entry;
+  EXPECT_TRUE(verdict_at(found));
+  const double below = check.minimum_uniform.failing_below;
+  ASSERT_GT(below, 0.0);
+  EXPECT_LE(found / below, 1.0 + gramline::BudgetSearchOptions{}.relative_step);
+  EXPECT_FALSE(verdict_at(below));
+  EXPECT_FALSE(verdict_at(found / 4));
+  EXPECT_NEAR(check.minimum_uniform.integration_s,
+              found * (n * (n - 1) / 2.0 + m * n) / check.pair_detect_rate_per_s, 1e-6);
 }
 
 }  // namespace

@@ -142,6 +142,8 @@ struct BudgetSearch {
   double pairs_per_entry = 0.0;  ///< uniform search: pairs of every entry
   double total_pairs = 0.0;      ///< all measure entries
   double integration_s = 0.0;    ///< total_pairs / r
+  double failing_below = 0.0;    ///< the bracket's failing end (same units as pairs_per_entry;
+                                 ///< 0 when the lowest budget tried passes)
   int evaluations = 0;
 };
 
@@ -165,7 +167,9 @@ struct MarginCheckOptions {
   std::uint64_t seed = 0;  ///< 0: campaign.seed
   int threads = 0;         ///< 0: all cores
   double confidence = 0.95;
-  int search_trials = 0;  ///< trials per budget-search evaluation; 0: as trials
+  /// Trials per evaluation of the budget search and the allocation comparison (at most the
+  /// check's trials; 0: as many): a bisection evaluates some ten budgets per strategy.
+  int search_trials = 300;
   bool minimum_budget = true;
   bool compare_allocations = true;
   bool scan_scale = true;
@@ -184,6 +188,7 @@ struct MarginCheck {
   double pair_detect_rate_per_s = 0.0;
   double plan_integration_s = 0.0;
   double plan_overhead_s = 0.0;  ///< plan's moves and reference steps (not pairs)
+  int search_trials = 0;         ///< trials per budget-search evaluation
   BudgetSearch minimum_uniform;
   std::vector<AllocationOutcome> allocations;
   std::vector<ScalePoint> scale_scan;
