@@ -48,9 +48,11 @@ std::vector<int> improve_path(int n, const std::vector<float>& w, int start, con
     if (a < 0 || b < 0) return 0.0;
     return w[std::size_t(path[a]) * n + path[b]];
   };
-  const double eps = 1e-9;
+  // Weights are symmetric, so every accepted move strictly lowers the path; the pass cap
+  // only guards against rounding.
+  const double eps = 1e-6;
   bool improved = true;
-  while (improved) {
+  for (int pass = 0; improved && pass < 10000; ++pass) {
     improved = false;
     if (budget.expired()) break;
     // 2-opt on an open path: reverse path[i..j].
@@ -205,7 +207,7 @@ std::vector<Code> small_search(const MoveModel& model, std::vector<Code> start, 
   std::vector<Code> best = start;
   double best_cost = exact_cost(model, best);
   const double eps = 1e-12;
-  for (int restart = 0; restart < 48; ++restart) {
+  for (int restart = 0; restart < 400; ++restart) {
     std::vector<Code> cur = start;
     if (restart > 0) {
       std::shuffle(cur.begin(), cur.end(), rng);

@@ -1,0 +1,102 @@
+// Scheduler benchmark: prints planning wall time, peak memory, and the measure steps' move
+// time against the row-by-row order and against the proven lower bound. Not a test.
+#include <sys/resource.h>
+
+#include <chrono>
+#include <cstdio>
+#include <cstdlib>
+#include <random>
+
+#include "gramline/demo.h"
+#include "gramline/schedule.h"
+#include "gramline/waveplates.h"
+
+using namespace gramline;
+
+namespace {
+
+double unit(std::mt19937_64& rng) { return static_cast<double>(rng() >> 11) * 0x1.0p-53; }
+
+PointTargets targets_of(const EncodingMap& enc, const Eigen::VectorXd& x) {
+  PointTargets t;
+  for (int p = 0; p < enc.photon_count(); ++p) {
+    const BlochAngles b = enc.angles(p, x);
+    t.prep.push_back(preparation_solutions(b.theta_deg, b.phi_deg));
+    t.analysis.push_back(analysis_solutions(b.theta_deg, b.phi_deg));
+  }
+  return t;
+}
+
+/// Demo rig and encoding; the demo's own points, or `train`/`test` uniform random points.
+ScheduleInput make_input(const Campaign& c, int train, int test) {
+  ScheduleInput in;
+  in.rig = &c.rig;
+  Eigen::MatrixXd xs(train + test, 2);
+  if (train == c.data.train_count() && test == c.data.test_count()) {
+    xs << c.data.train, c.data.test;
+  } else {
+    std::mt19937_64 rng(11);
+    for (int i = 0; i < xs.rows(); ++i) xs.row(i) << unit(rng), unit(rng);
+  }
+  for (int i = 0; i < xs.rows(); ++i) in.points.push_back(targets_of(c.encoding, xs.row(i)));
+  in.train_count = train;
+  auto entry = [&](int a, int b, Block block) {
+    EntryRequest e;
+    e.a = a;
+    e.b = b;
+    e.block = block;
+    e.kernel_ideal = 0.5;
+    e.p_pass = 0.5;
+    e.pairs = 20000.0;
+    e.dwell_s = 2.0;
+    in.entries.push_back(e);
+  };
+  for (int a = 0; a < train; ++a)
+    for (int b = a + 1; b < train; ++b) entry(a, b, Block::train);
+  for (int t = 0; t < test; ++t)
+    for (int b = 0; b < train; ++b) entry(train + t, b, Block::test);
+  in.pair_detect_rate_per_s = 10000.0;
+  in.reference_pairs = 20000.0;
+  in.nights = c.nights;
+  in.nights.max_nights = 1000;
+  in.settings = c.schedule;
+  return in;
+}
+
+void run(const char* name, const Campaign& c, int train, int test) {
+  const auto t0 = std::chrono::steady_clock::now();
+  const ScheduleInput in = make_input(c, train, test);
+  const auto t1 = std::chrono::steady_clock::now();
+  const ScheduleResult r = build_schedule(in, ScheduleOptions{});
+  const auto t2 = std::chrono::steady_clock::now();
+  double move = 0.0;
+  long settings = 0;
+  for (const Step& s : r.steps) {
+    if (s.kind == StepKind::measure) {
+      move += s.move_s;
+      ++settings;
+    }
+  }
+  rusage ru{};
+  getrusage(RUSAGE_SELF, &ru);
+  std::printf(
+      "%-8s settings %7ld  input %7.1f ms  schedule %9.1f ms  peak RSS %7.1f MB\n"
+      "         measure moves %10.0f s  naive %10.0f s (%.2fx)  bound %10.0f s (+%.1f %%)  "
+      "nights %d\n",
+      name, settings, std::chrono::duration<double, std::milli>(t1 - t0).count(),
+      std::chrono::duration<double, std::milli>(t2 - t1).count(), ru.ru_maxrss / 1024.0, move,
+      r.move_naive_s, r.move_naive_s / move, r.move_lower_bound_s,
+      100.0 * (move / r.move_lower_bound_s - 1.0), r.nights);
+  std::fflush(stdout);
+}
+
+}  // namespace
+
+int main(int argc, char** argv) {
+  const int largest = argc > 1 ? std::atoi(argv[1]) : 1000;
+  const Campaign demo = make_demo_campaign();
+  run("demo", demo, demo.data.train_count(), demo.data.test_count());
+  run("n=200", demo, 200, 20);
+  if (largest >= 1000) run("n=1000", demo, 1000, 0);
+  return 0;
+}

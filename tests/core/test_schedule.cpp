@@ -1,0 +1,323 @@
+// Scheduler: optimum against Held-Karp, the lower bound, the timeline invariants.
+#include <gtest/gtest.h>
+
+#include <algorithm>
+#include <map>
+#include <random>
+
+#include "gramline/motion.h"
+#include "gramline/schedule.h"
+
+using namespace gramline;
+
+namespace {
+
+double unit(std::mt19937_64& rng) { return static_cast<double>(rng() >> 11) * 0x1.0p-53; }
+
+struct RigShape {
+  int photons = 1;
+  Backlash backlash = Backlash::shortest;
+  double overshoot_deg = 0.0;
+  bool ranged = false;
+  MoveMode moves = MoveMode::simultaneous;
+};
+
+Rig make_rig(const RigShape& shape) {
+  Rig rig;
+  for (int p = 0; p < shape.photons; ++p) {
+    for (Stage s : {Stage::prep, Stage::analysis}) {
+      for (Plate pl : {Plate::HWP, Plate::QWP}) {
+        Motor m;
+        m.name = "p" + std::to_string(p) + to_string(s) + to_string(pl);
+        m.photon = p;
+        m.stage = s;
+        m.plate = pl;
+        m.speed_deg_per_s = 15.0;
+        m.accel_deg_per_s2 = 30.0;
+        m.backlash = shape.backlash;
+        m.overshoot_deg = shape.overshoot_deg;
+        if (shape.ranged) m.range = TravelRange{-10.0, 350.0};
+        m.initial_deg = 0.0;
+        rig.motors.push_back(m);
+      }
+    }
+  }
+  rig.controller = Controller{shape.moves, 0.5, 0.1};
+  return rig;
+}
+
+/// Random canonical solutions for `train + test` points, every training pair and every
+/// test x training pair, dwell 1 s. No reference, dark or park steps; a 24 h window.
+ScheduleInput make_input(const Rig& rig, int photons, int train, int test, std::uint64_t seed) {
+  std::mt19937_64 rng(seed);
+  ScheduleInput in;
+  in.rig = &rig;
+  for (int i = 0; i < train + test; ++i) {
+    PointTargets t;
+    for (int p = 0; p < photons; ++p) {
+      StageSolutions prep, an;
+      for (int s = 0; s < 2; ++s) {
+        prep[s] = PlatePair{90.0 * unit(rng), 180.0 * unit(rng)};
+        an[s] = PlatePair{90.0 * unit(rng), 180.0 * unit(rng)};
+      }
+      t.prep.push_back(prep);
+      t.analysis.push_back(an);
+    }
+    in.points.push_back(t);
+  }
+  in.train_count = train;
+  auto add = [&](int a, int b, Block block) {
+    EntryRequest e;
+    e.a = a;
+    e.b = b;
+    e.block = block;
+    e.kernel_ideal = 0.5;
+    e.p_pass = 0.5;
+    e.pairs = 1000.0;
+    e.dwell_s = 1.0;
+    in.entries.push_back(e);
+  };
+  for (int a = 0; a < train; ++a)
+    for (int b = a + 1; b < train; ++b) add(a, b, Block::train);
+  for (int t = 0; t < test; ++t)
+    for (int b = 0; b < train; ++b) add(train + t, b, Block::test);
+  in.pair_detect_rate_per_s = 1000.0;
+  in.reference_pairs = 1000.0;
+  in.nights.start_min = 0;
+  in.nights.end_min = 0;  // end not after start: a 24 h window
+  in.nights.max_nights = 100;
+  in.settings.reference_interval_min = 0.0;
+  in.settings.dark_steps = false;
+  in.settings.park = false;
+  return in;
+}
+
+double measure_move_s(const ScheduleResult& r) {
+  double t = 0.0;
+  for (const Step& s : r.steps)
+    if (s.kind == StepKind::measure) t += s.move_s;
+  return t;
+}
+
+/// Every move_s recomputed from the positions alone, from the initial positions on.
+void expect_moves_recomputable(const Rig& rig, const std::vector<Step>& steps) {
+  std::vector<double> pos;
+  for (const Motor& m : rig.motors) pos.push_back(m.initial_deg);
+  for (std::size_t k = 0; k < steps.size(); ++k) {
+    EXPECT_NEAR(steps[k].move_s, step_move_s(rig, pos, steps[k].position_deg), 1e-9)
+        << "step " << k;
+    pos = steps[k].position_deg;
+  }
+}
+
+/// The physical positions hit the requested angles: HWP modulo 90, QWP modulo 180.
+void expect_positions_on_target(const Rig& rig, const ScheduleInput& in,
+                                const std::vector<Step>& steps) {
+  for (const Step& s : steps) {
+    if (s.kind != StepKind::measure) continue;
+    for (std::size_t m = 0; m < rig.motors.size(); ++m) {
+      const Motor& mo = rig.motors[m];
+      const int point = mo.stage == Stage::prep ? s.prep_point : s.analysis_point;
+      const auto& sols = mo.stage == Stage::prep ? in.points[point].prep[mo.photon]
+                                                 : in.points[point].analysis[mo.photon];
+      const double period = plate_period_deg(mo.plate);
+      bool hit = false;
+      for (const PlatePair& pp : sols) {
+        const double want = mo.plate == Plate::HWP ? pp.hwp_deg : pp.qwp_deg;
+        const double k = std::round((s.position_deg[m] - want) / period);
+        hit = hit || std::abs(s.position_deg[m] - want - k * period) < 1e-9;
+      }
+      EXPECT_TRUE(hit) << mo.name;
+      if (mo.range) {
+        EXPECT_GE(s.position_deg[m], mo.range->low_deg);
+        EXPECT_LE(s.position_deg[m], mo.range->high_deg);
+      }
+    }
+  }
+}
+
+}  // namespace
+
+TEST(Schedule, OptimizerReachesHeldKarpOptimumOnePhoton) {
+  for (std::uint64_t seed = 1; seed <= 4; ++seed) {
+    RigShape shape;
+    shape.backlash = seed % 2 ? Backlash::shortest : Backlash::from_below;
+    shape.overshoot_deg = 3.0;
+    shape.moves = seed % 3 ? MoveMode::simultaneous : MoveMode::sequential;
+    const Rig rig = make_rig(shape);
+    // 4 training points (6 pairs) and 1 test point (4 entries): 10 entries.
+    const ScheduleInput in = make_input(rig, 1, 4, 1, seed);
+    const double optimum = exact_min_move_s(in);
+    const ScheduleResult r = build_schedule(in, ScheduleOptions{seed, true, {}});
+    EXPECT_NEAR(measure_move_s(r), optimum, 1e-9) << "seed " << seed;
+    EXPECT_LE(r.move_lower_bound_s, optimum + 1e-9) << "seed " << seed;
+    EXPECT_GE(r.move_naive_s, optimum - 1e-9) << "seed " << seed;
+  }
+}
+
+TEST(Schedule, OptimizerReachesHeldKarpOptimumTwoPhotons) {
+  for (std::uint64_t seed = 11; seed <= 12; ++seed) {
+    const Rig rig = make_rig(RigShape{2});
+    const ScheduleInput in = make_input(rig, 2, 4, 0, seed);  // 6 settings
+    const double optimum = exact_min_move_s(in);
+    const ScheduleResult r = build_schedule(in, ScheduleOptions{seed, true, {}});
+    EXPECT_NEAR(measure_move_s(r), optimum, 1e-9) << "seed " << seed;
+    EXPECT_LE(r.move_lower_bound_s, optimum + 1e-9) << "seed " << seed;
+  }
+}
+
+TEST(Schedule, BoundHoldsWithReferencesDarkAndPark) {
+  RigShape shape{2, Backlash::from_below, 2.0, true};
+  const Rig rig = make_rig(shape);
+  ScheduleInput in = make_input(rig, 2, 14, 4, 5);
+  for (EntryRequest& e : in.entries) e.dwell_s = 20.0;  // 147 x 20 s, well over 25 min
+  in.settings.reference_interval_min = 1.0;
+  in.settings.dark_steps = true;
+  in.settings.park = true;
+  in.nights.start_min = 20 * 60;
+  in.nights.end_min = 20 * 60 + 25;  // 25 min windows: several nights
+  const ScheduleResult r = build_schedule(in, ScheduleOptions{});
+  EXPECT_GT(r.nights, 1);
+  EXPECT_LE(r.move_lower_bound_s, measure_move_s(r));
+  // The optimized order beats the row-by-row one on random targets.
+  EXPECT_LT(measure_move_s(r), r.move_naive_s);
+  expect_moves_recomputable(rig, r.steps);
+  expect_positions_on_target(rig, in, r.steps);
+}
+
+TEST(Schedule, NightsAreNeverStraddledAndEndWithAPark) {
+  const Rig rig = make_rig(RigShape{2});
+  ScheduleInput in = make_input(rig, 2, 12, 3, 8);
+  for (EntryRequest& e : in.entries) e.dwell_s = 15.0;  // 102 x 15 s: over two 600 s nights
+  in.settings.reference_interval_min = 5.0;
+  in.settings.dark_steps = true;
+  in.settings.dark_dwell_s = 20.0;
+  in.settings.park = true;
+  in.nights.start_min = 22 * 60;
+  in.nights.end_min = 22 * 60 + 10;  // 600 s windows
+  const double window_s = 600.0;
+  const ScheduleResult r = build_schedule(in, ScheduleOptions{});
+  ASSERT_GT(r.nights, 2);
+  ASSERT_EQ(static_cast<int>(r.night_use.size()), r.nights);
+  std::map<int, std::vector<const Step*>> by_night;
+  long measures = 0;
+  for (const Step& s : r.steps) {
+    const double night_start = (s.night - 1) * 86400.0;
+    EXPECT_GE(s.start_s, night_start - 1e-9);
+    EXPECT_LE(s.start_s + s.move_s + s.dwell_s, night_start + window_s + 1e-9);
+    by_night[s.night].push_back(&s);
+    measures += s.kind == StepKind::measure;
+  }
+  EXPECT_EQ(measures, static_cast<long>(in.entries.size()));
+  for (const auto& [night, steps] : by_night) {
+    EXPECT_EQ(steps.back()->kind, StepKind::park) << "night " << night;
+    EXPECT_EQ(steps.front()->kind, StepKind::dark) << "night " << night;
+    EXPECT_EQ(steps.back()->position_deg, std::vector<double>(rig.motors.size(), 0.0));
+    // Steps follow each other without overlap.
+    for (std::size_t k = 1; k < steps.size(); ++k) {
+      EXPECT_NEAR(steps[k]->start_s,
+                  steps[k - 1]->start_s + steps[k - 1]->move_s + steps[k - 1]->dwell_s, 1e-6);
+    }
+    // A reference at least every 5 min, give or take the step that was running.
+    double last_ref = -1.0;
+    for (const Step* s : steps) {
+      if (s->kind != StepKind::reference) continue;
+      if (last_ref >= 0.0) {
+        // The reference waits for the running measure step: 15 s dwell plus at most
+        // T(90 deg) + settle + overhead = 6.5 + 0.6 s of move.
+        EXPECT_LE(s->start_s - last_ref, 300.0 + 15.0 + 7.1);
+      }
+      last_ref = s->start_s;
+    }
+    EXPECT_GE(last_ref, 0.0) << "night " << night << " has no reference";
+  }
+  for (const NightUse& u : r.night_use) {
+    EXPECT_LE(u.fill(), 1.0 + 1e-12);
+    EXPECT_GT(u.integration_s, 0.0);
+  }
+  expect_moves_recomputable(rig, r.steps);
+}
+
+TEST(Schedule, DeterministicPerSeed) {
+  const Rig rig = make_rig(RigShape{2});
+  ScheduleInput in = make_input(rig, 2, 10, 2, 21);
+  in.settings.reference_interval_min = 2.0;
+  const ScheduleResult a = build_schedule(in, ScheduleOptions{3, true, {}});
+  const ScheduleResult b = build_schedule(in, ScheduleOptions{3, true, {}});
+  ASSERT_EQ(a.steps.size(), b.steps.size());
+  for (std::size_t k = 0; k < a.steps.size(); ++k) {
+    EXPECT_EQ(a.steps[k].prep_point, b.steps[k].prep_point);
+    EXPECT_EQ(a.steps[k].analysis_point, b.steps[k].analysis_point);
+    EXPECT_EQ(a.steps[k].position_deg, b.steps[k].position_deg);
+    EXPECT_EQ(a.steps[k].start_s, b.steps[k].start_s);
+  }
+}
+
+TEST(Schedule, NaiveOrderIsRowByRow) {
+  const Rig rig = make_rig(RigShape{1});
+  const ScheduleInput in = make_input(rig, 1, 4, 2, 4);
+  const ScheduleResult r = build_schedule(in, ScheduleOptions{1, false, {}});
+  const std::vector<std::pair<int, int>> want = {
+      {0, 1}, {0, 2}, {0, 3}, {1, 2}, {1, 3}, {2, 3},                   // training pairs
+      {4, 0}, {4, 1}, {4, 2}, {4, 3}, {5, 0}, {5, 1}, {5, 2}, {5, 3}};  // test rows
+  ASSERT_EQ(r.steps.size(), want.size());
+  for (std::size_t k = 0; k < want.size(); ++k) {
+    EXPECT_EQ(r.steps[k].prep_point, want[k].first);
+    EXPECT_EQ(r.steps[k].analysis_point, want[k].second);
+  }
+  // Same model, same order: the schedule's own total is the naive figure.
+  EXPECT_NEAR(measure_move_s(r), r.move_naive_s, 1e-9);
+  expect_moves_recomputable(rig, r.steps);
+}
+
+TEST(Schedule, FitToNightsScalesPairs) {
+  const Rig rig = make_rig(RigShape{1});
+  ScheduleInput in = make_input(rig, 1, 10, 0, 2);
+  for (EntryRequest& e : in.entries) e.dwell_s = 60.0;  // 45 x 60 s = 45 min of counting
+  in.nights.start_min = 0;
+  in.nights.end_min = 20;  // 20 min windows
+  in.nights.max_nights = 2;
+  const ScheduleResult plain = build_schedule(in, ScheduleOptions{});
+  EXPECT_GT(plain.nights, 2);
+  EXPECT_FALSE(plain.fits);
+  in.settings.fit_to_nights = true;
+  const ScheduleResult fit = build_schedule(in, ScheduleOptions{});
+  EXPECT_TRUE(fit.fits);
+  EXPECT_LE(fit.nights, 2);
+  EXPECT_LT(fit.pairs_scale, 1.0);
+  EXPECT_GT(fit.pairs_scale, 0.3);  // 40 min of window for 45 min of counting plus moves
+  for (const Step& s : fit.steps) {
+    if (s.kind != StepKind::measure) continue;
+    EXPECT_NEAR(s.pairs, 1000.0 * fit.pairs_scale, 1e-6);
+    EXPECT_NEAR(s.dwell_s, 60.0 * fit.pairs_scale, 1e-9);
+  }
+}
+
+TEST(Schedule, TruncationSafeOrderCompletesGramMatricesEarly) {
+  const Rig rig = make_rig(RigShape{2});
+  ScheduleInput in = make_input(rig, 2, 9, 2, 6);
+  in.settings.truncation_safe = true;
+  const ScheduleResult r = build_schedule(in, ScheduleOptions{});
+  // Rank training points by first appearance; the larger rank of a step's two points must
+  // never decrease, so the first m points' Gram matrix is complete before point m+1 starts.
+  std::vector<int> rank(in.points.size(), -1);
+  int next_rank = 0, last = -1;
+  for (const Step& s : r.steps) {
+    if (s.kind != StepKind::measure || s.block != Block::train) continue;
+    for (int p : {s.prep_point, s.analysis_point})
+      if (rank[p] < 0) rank[p] = next_rank++;
+    const int top = std::max(rank[s.prep_point], rank[s.analysis_point]);
+    EXPECT_GE(top, last);
+    last = top;
+  }
+  EXPECT_EQ(next_rank, 9);
+}
+
+TEST(Schedule, CancelThrows) {
+  const Rig rig = make_rig(RigShape{2});
+  const ScheduleInput in = make_input(rig, 2, 10, 0, 1);
+  CancelFlag flag{true};
+  ScheduleOptions opt;
+  opt.hooks.cancel = &flag;
+  EXPECT_THROW(build_schedule(in, opt), Cancelled);
+}
