@@ -125,10 +125,27 @@ Plan plan_campaign(const Campaign& campaign, const PlanOptions& options) {
     in.entries.push_back(r);
     stats.push_back(s);
   };
+  // Entries already measured (resume) are left out; the matrix marks them by index.
+  Eigen::Matrix<bool, Eigen::Dynamic, Eigen::Dynamic> done =
+      Eigen::Matrix<bool, Eigen::Dynamic, Eigen::Dynamic>::Constant(n + m, n + m, false);
+  if (options.resume) {
+    for (const auto& [a, b] : options.resume->measured) {
+      if (a < 0 || b < 0 || a >= n + m || b >= n + m)
+        throw std::invalid_argument("resume: measured entry refers to a point that does not exist");
+      done(a, b) = done(b, a) = true;
+    }
+    if (!options.resume->start_positions_deg.empty()) {
+      if (options.resume->start_positions_deg.size() != c.rig.motors.size())
+        throw std::invalid_argument("resume: one start position per motor is needed");
+      in.start_positions_deg = options.resume->start_positions_deg;
+    }
+  }
   for (int i = 0; i < n; ++i)
-    for (int j = i + 1; j < n; ++j) add_entry(i, j, Block::train, plan.kernel_train(i, j));
+    for (int j = i + 1; j < n; ++j)
+      if (!done(i, j)) add_entry(i, j, Block::train, plan.kernel_train(i, j));
   for (int t = 0; t < m; ++t)
-    for (int j = 0; j < n; ++j) add_entry(n + t, j, Block::test, plan.kernel_test(t, j));
+    for (int j = 0; j < n; ++j)
+      if (!done(n + t, j)) add_entry(n + t, j, Block::test, plan.kernel_test(t, j));
   options.hooks.throw_if_cancelled();
 
   // A reference step is a diagonal setting (kernel 1); it gets the median entry's pairs unless

@@ -3,6 +3,7 @@
 #include <Eigen/Core>
 #include <cstdint>
 #include <string>
+#include <utility>
 #include <vector>
 
 #include "gramline/campaign.h"
@@ -60,8 +61,18 @@ struct PlanSummary {
   std::vector<NightUse> night_use;
 };
 
+/// Where an interrupted campaign stands: what was measured and where the motors stopped.
+struct ResumeState {
+  /// Entries already measured, as pairs of global point indices in either order.
+  std::vector<std::pair<int, int>> measured;
+  /// Physical position of each motor (rig.motors order) when the run stopped, degrees.
+  std::vector<double> start_positions_deg;
+};
+
 struct PlanOptions {
   std::uint64_t seed = 1;
+  /// When set, plan only the entries not yet measured, starting from the given positions.
+  const ResumeState* resume = nullptr;
   bool optimize_order = true;  ///< false: row-by-row order
   bool monte_carlo_gram = false;
   WorkHooks hooks;
@@ -74,7 +85,7 @@ struct Plan {
   Eigen::MatrixXd kernel_test;    ///< M x N ideal
   Eigen::MatrixXd pairs_train;    ///< N x N planned pairs per entry (0 on the diagonal)
   Eigen::MatrixXd pairs_test;     ///< M x N
-  Eigen::MatrixXd sigma_train;    ///< N x N predicted sigma per entry
+  Eigen::MatrixXd sigma_train;    ///< N x N predicted sigma per entry (0 where not planned)
   Eigen::MatrixXd sigma_test;     ///< M x N
   Eigen::MatrixXi step_of_train;  ///< N x N index of the step measuring each entry (-1: none)
   Eigen::MatrixXi step_of_test;   ///< M x N

@@ -41,6 +41,9 @@ struct ScheduleInput {
   double reference_p_pass = 1.0;        ///< p_pass of a diagonal setting (kernel 1)
   NightWindow nights;
   ScheduleSettings settings;
+  /// Physical motor positions where the first step starts (rig.motors order); empty: the
+  /// motors' initial_deg. Park steps always return to initial_deg.
+  std::vector<double> start_positions_deg;
 };
 
 struct ScheduleOptions {
