@@ -38,7 +38,9 @@ class TimelineBuilder {
     const ScheduleSettings& set = in_.settings;
     const double window_s = in_.nights.length_s();
     const double ref_every_s = set.reference_interval_min * 60.0;
-    std::vector<double> pos = initial_;
+    // A resumed campaign starts where the motors stopped; parks still return to initial_deg.
+    std::vector<double> pos =
+        in_.start_positions_deg.size() == initial_.size() ? in_.start_positions_deg : initial_;
     int night = 1;
     double t = 0.0;
     double last_ref_s = -1e300;
