@@ -29,10 +29,36 @@ struct CheckRequest {
   std::string out_path;
 };
 
+struct ExportRequest {
+  std::string campaign_path;
+  std::optional<std::string> data_path;
+  std::string out_path;
+  bool force = false;
+  std::optional<std::uint64_t> seed;
+};
+
+struct IngestRequest {
+  std::string bundle_path;
+  std::string counts_path;
+  std::string out_dir;
+  bool force = false;
+};
+
+struct ResumeRequest {
+  std::string bundle_path;
+  std::string counts_path;
+  std::string out_path;
+  bool force = false;
+};
+
 int run_demo(const DemoRequest& request);
 int run_plan(const PlanRequest& request);
 /// The margin check (cmd_check.cpp).
 int run_check(const CheckRequest& request);
+/// Hand-off to the rig and back (cmd_export.cpp, cmd_ingest.cpp, cmd_resume.cpp).
+int run_export(const ExportRequest& request);
+int run_ingest(const IngestRequest& request);
+int run_resume(const ResumeRequest& request);
 
 /// Loads the campaign file and, with `data_path`, replaces its points by the data CSV. Throws
 /// formats::InputError naming the file, line or field; also when the campaign's encoding does

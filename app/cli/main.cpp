@@ -1,4 +1,5 @@
 // gramline-cli: the command-line twin of the Gramline app (SPEC section 3).
+#include <algorithm>
 #include <charconv>
 #include <exception>
 #include <iostream>
@@ -27,6 +28,15 @@ const char* const kOverview =
     "      into DIR (created if needed).\n"
     "  check CAMPAIGN [--data CSV] [--trials N] [--seed N] --out FILE\n"
     "      Margin check of the planned precision; writes the verdict as JSON to FILE.\n"
+    "  export CAMPAIGN --out FILE.zip [--data CSV] [--seed N] [--force]\n"
+    "      Plan the campaign and write the hand-off bundle for the rig: steps, campaign, data,\n"
+    "      summary, printable summary.html and a manifest with the SHA-256 of every file.\n"
+    "  ingest BUNDLE COUNTS --out DIR [--force]\n"
+    "      Check the bundle and the rig's counts file against each other, build the measured\n"
+    "      Gram matrix, compare it with the prediction, track drift, train the classifier.\n"
+    "  resume BUNDLE COUNTS --out FILE.zip [--force]\n"
+    "      Keep what the counts file measured and plan the rest from where the motors stopped;\n"
+    "      the new bundle names its parent.\n"
     "  help [COMMAND]\n"
     "      This text.\n"
     "\n"
@@ -36,7 +46,8 @@ const char* const kOverview =
     "               +1) and an optional 'set' column (train or test; default train)\n"
     "  --seed N     seed of the random choices (default: the campaign's seed)\n"
     "  --trials N   simulated repetitions of the margin check\n"
-    "  --out        output file (demo, check) or directory (plan)\n"
+    "  --out        output file (demo, check, export, resume) or directory (plan, ingest)\n"
+    "  --force      replace existing output files (otherwise they are left untouched)\n"
     "  --version    print the version\n"
     "\n"
     "Exit status: 0 success, 2 bad input (the message names the file and line or field),\n"
@@ -109,6 +120,14 @@ std::optional<std::uint64_t> seed_option(const std::string& command, const Argum
   return std::nullopt;
 }
 
+/// Removes every `--name` (a flag without a value) from `words`; true when there was one.
+bool take_flag(std::vector<std::string>& words, const char* name) {
+  const auto end = std::remove(words.begin(), words.end(), std::string(name));
+  const bool found = end != words.end();
+  words.erase(end, words.end());
+  return found;
+}
+
 void expect_positionals(const std::string& command, const Arguments& a, size_t count,
                         const char* what) {
   if (a.positional.size() < count) {
@@ -175,6 +194,35 @@ int dispatch(const std::vector<std::string>& argv) {
     }
     request.seed = seed_option(command, a);
     return gramline::cli::run_check(request);
+  }
+  if (command == "export") {
+    std::vector<std::string> words = rest;
+    gramline::cli::ExportRequest request;
+    request.force = take_flag(words, "--force");
+    const Arguments a = split_arguments(command, words, {"--data", "--out", "--seed"});
+    expect_positionals(command, a, 1, "the campaign file");
+    request.campaign_path = a.positional[0];
+    request.data_path = option(a, "--data");
+    const auto out = option(a, "--out");
+    if (!out) throw InputError("gramline-cli export: --out FILE.zip is required");
+    request.out_path = *out;
+    request.seed = seed_option(command, a);
+    return gramline::cli::run_export(request);
+  }
+  if (command == "ingest" || command == "resume") {
+    std::vector<std::string> words = rest;
+    const bool force = take_flag(words, "--force");
+    const Arguments a = split_arguments(command, words, {"--out"});
+    expect_positionals(command, a, 2, "the bundle and the counts file");
+    const auto out = option(a, "--out");
+    if (!out) {
+      throw InputError("gramline-cli " + command + ": --out " +
+                       (command == "ingest" ? "DIR" : "FILE.zip") + " is required");
+    }
+    if (command == "ingest") {
+      return gramline::cli::run_ingest({a.positional[0], a.positional[1], *out, force});
+    }
+    return gramline::cli::run_resume({a.positional[0], a.positional[1], *out, force});
   }
   std::cerr << "gramline-cli: unknown command '" << command << "'\n\n" << kOverview;
   return 2;

@@ -1,0 +1,28 @@
+// gramline-cli ingest: the rig's counts back into the planner.
+#include <QString>
+#include <iostream>
+
+#include "cli/commands.h"
+#include "formats/bundle.h"
+#include "formats/counts_csv.h"
+#include "formats/ingest_run.h"
+
+namespace gramline::cli {
+
+int run_ingest(const IngestRequest& request) {
+  const QString out = QString::fromStdString(request.out_dir);
+  const formats::Overwrite overwrite =
+      request.force ? formats::Overwrite::allow : formats::Overwrite::refuse;
+  const formats::Bundle bundle = formats::read_bundle(QString::fromStdString(request.bundle_path));
+  const formats::CountsFile counts = formats::read_counts_csv(
+      QString::fromStdString(request.counts_path), formats::counts_layout(bundle.campaign));
+  const formats::IngestRun run = formats::ingest_counts(bundle, counts);
+  std::cout << run.report();
+  formats::write_ingest_files(run, out, overwrite);
+  std::cout << "wrote";
+  for (const std::string& name : formats::ingest_file_names()) std::cout << " " << name;
+  std::cout << " to " << request.out_dir << "\n";
+  return 0;
+}
+
+}  // namespace gramline::cli

@@ -1,0 +1,31 @@
+// gramline-cli resume: plan the rest of an interrupted campaign and hand off a new bundle.
+#include <QString>
+#include <iostream>
+
+#include "cli/commands.h"
+#include "formats/bundle.h"
+#include "formats/counts_csv.h"
+#include "formats/resume_run.h"
+
+namespace gramline::cli {
+
+int run_resume(const ResumeRequest& request) {
+  const QString out = QString::fromStdString(request.out_path);
+  const QString parent_path = QString::fromStdString(request.bundle_path);
+  const formats::Overwrite overwrite =
+      request.force ? formats::Overwrite::allow : formats::Overwrite::refuse;
+  formats::refuse_existing(out, overwrite);
+  const formats::Bundle bundle = formats::read_bundle(parent_path);
+  const formats::CountsFile counts = formats::read_counts_csv(
+      QString::fromStdString(request.counts_path), formats::counts_layout(bundle.campaign));
+  const formats::ResumeRun run = formats::plan_resume(bundle, counts);
+  std::cout << run.report();
+  const formats::BundleWritten written =
+      formats::write_resumed_bundle(run, bundle, parent_path, out, overwrite);
+  std::cout << "wrote the bundle " << request.out_path << " (" << written.entries.size()
+            << " files; parent " << bundle.manifest_sha256.substr(0, 12) << "...; manifest SHA-256 "
+            << written.manifest_sha256 << ")\n";
+  return 0;
+}
+
+}  // namespace gramline::cli

@@ -1,0 +1,425 @@
+#include "formats/bundle.h"
+
+#include <quazip/quazip.h>
+#include <quazip/quazipfile.h>
+#include <quazip/quazipfileinfo.h>
+#include <quazip/quazipnewinfo.h>
+
+#include <QBuffer>
+#include <QCryptographicHash>
+#include <QFileDevice>
+#include <QFileInfo>
+#include <QJsonArray>
+#include <QJsonDocument>
+#include <QJsonObject>
+#include <algorithm>
+#include <cmath>
+#include <set>
+#include <stdexcept>
+
+#include "formats/campaign_json.h"
+#include "formats/data_csv.h"
+#include "formats/input_error.h"
+#include "formats/json_field.h"
+#include "formats/report_html.h"
+#include "formats/text_io.h"
+#include "gramline/detection.h"
+#include "gramline/jones.h"
+#include "gramline/kernel.h"
+
+namespace gramline::formats {
+namespace {
+
+QString q(const std::string& text) { return QString::fromStdString(text); }
+
+std::string utc_text(const QDateTime& t) { return t.toUTC().toString(Qt::ISODate).toStdString(); }
+
+}  // namespace
+
+std::string sha256_hex(std::string_view bytes) {
+  const QByteArray digest =
+      QCryptographicHash::hash(QByteArrayView(bytes.data(), static_cast<qsizetype>(bytes.size())),
+                               QCryptographicHash::Sha256);
+  return digest.toHex().toStdString();
+}
+
+std::map<std::string, std::string> bundle_entries(const Campaign& campaign, const Plan& plan) {
+  std::map<std::string, std::string> e;
+  e[kCampaignEntry] = format_campaign(campaign);
+  e[kDataEntry] = format_data_csv(campaign.data);
+  e[kStepsJsonEntry] = format_steps_json(campaign.rig, plan.steps);
+  e[kStepsCsvEntry] = format_steps_csv(campaign.rig, plan.steps);
+  e[kSummaryJsonEntry] = format_summary_json(campaign, plan);
+  e[kKernelEntry] = format_kernel_csv(plan.kernel_train);
+  e[kSummaryHtmlEntry] = format_summary_html(campaign, plan);
+  return e;
+}
+
+std::string format_manifest(const std::map<std::string, std::string>& entries, std::uint64_t seed,
+                            const BundleWriteOptions& options) {
+  QJsonArray files;
+  for (const auto& [name, bytes] : entries) {
+    files.append(QJsonObject{{"name", q(name)},
+                             {"bytes", static_cast<qint64>(bytes.size())},
+                             {"sha256", q(sha256_hex(bytes))}});
+  }
+  const QDateTime created =
+      options.created_utc.isValid() ? options.created_utc : QDateTime::currentDateTimeUtc();
+  QJsonValue parent(QJsonValue::Null);
+  if (options.parent) {
+    parent = QJsonObject{{"file", q(options.parent->file_name)},
+                         {"manifest_sha256", q(options.parent->manifest_sha256)}};
+  }
+  // The seed is text: a 64-bit seed does not fit a JSON number exactly.
+  const QJsonObject o{{"format", kBundleFormat},
+                      {"version", kBundleVersion},
+                      {"tool", "gramline"},
+                      {"tool_version", GRAMLINE_VERSION},
+                      {"created_utc", q(utc_text(created))},
+                      {"conventions", q(steps_conventions_text())},
+                      {"seed", q(std::to_string(seed))},
+                      {"parent", parent},
+                      {"files", files}};
+  const QByteArray text = QJsonDocument(o).toJson(QJsonDocument::Indented);
+  return std::string(text.constData(), static_cast<size_t>(text.size()));
+}
+
+std::string zip_entries(const std::map<std::string, std::string>& entries, const QDateTime& stamp) {
+  QBuffer buffer;
+  QuaZip zip(&buffer);
+  zip.setUtf8Enabled(true);
+  if (!zip.open(QuaZip::mdCreate))
+    throw std::runtime_error("cannot start the zip archive (QuaZip error " +
+                             std::to_string(zip.getZipError()) + ")");
+  for (const auto& [name, bytes] : entries) {
+    QuaZipFile file(&zip);
+    QuaZipNewInfo info(q(name));
+    info.dateTime = stamp.toLocalTime();
+    info.setPermissions(QFileDevice::ReadOwner | QFileDevice::WriteOwner | QFileDevice::ReadGroup |
+                        QFileDevice::ReadOther);
+    if (!file.open(QIODevice::WriteOnly, info) ||
+        file.write(bytes.data(), static_cast<qint64>(bytes.size())) !=
+            static_cast<qint64>(bytes.size())) {
+      throw std::runtime_error("cannot add " + name + " to the zip archive");
+    }
+    file.close();
+    if (file.getZipError() != 0) throw std::runtime_error("cannot add " + name + " to the zip");
+  }
+  zip.close();
+  if (zip.getZipError() != 0) throw std::runtime_error("cannot finish the zip archive");
+  const QByteArray& data = buffer.data();
+  return std::string(data.constData(), static_cast<size_t>(data.size()));
+}
+
+BundleWritten write_bundle(const Campaign& campaign, const Plan& plan, const QString& path,
+                           const BundleWriteOptions& options) {
+  // Refuse before any work, so a refused export costs nothing.
+  refuse_existing(path, options.overwrite);
+  std::map<std::string, std::string> entries = bundle_entries(campaign, plan);
+  for (const auto& [name, bytes] : options.extra_entries) {
+    if (!is_safe_entry_name(name) || name == kManifestEntry)
+      throw std::invalid_argument("write_bundle: unusable entry name " + name);
+    entries[name] = bytes;
+  }
+  BundleWriteOptions o = options;
+  if (!o.created_utc.isValid()) o.created_utc = QDateTime::currentDateTimeUtc();
+  const std::string manifest = format_manifest(entries, campaign.seed, o);
+  entries[kManifestEntry] = manifest;
+  const std::string zip = zip_entries(entries, o.created_utc);
+  save_atomically(path, zip, options.overwrite);
+  BundleWritten w;
+  w.manifest_sha256 = sha256_hex(manifest);
+  for (const auto& [name, bytes] : entries) w.entries.push_back(name);
+  w.zip_bytes = static_cast<std::int64_t>(zip.size());
+  return w;
+}
+
+bool is_safe_entry_name(std::string_view name) {
+  if (name.empty() || name.size() > 255) return false;
+  if (name.front() == '/' || name.back() == '/') return false;
+  if (name.size() >= 2 && name[1] == ':') return false;  // drive letter
+  for (char c : name)
+    if (c == '\\' || static_cast<unsigned char>(c) < 32 || c == 127) return false;
+  size_t begin = 0;
+  while (begin <= name.size()) {
+    size_t end = name.find('/', begin);
+    if (end == std::string_view::npos) end = name.size();
+    const std::string_view part = name.substr(begin, end - begin);
+    if (part.empty() || part == "." || part == "..") return false;
+    begin = end + 1;
+  }
+  return true;
+}
+
+std::map<std::string, std::string> unzip_entries(const std::string& zip_bytes,
+                                                 const std::string& source,
+                                                 const BundleReadLimits& limits) {
+  QByteArray data(zip_bytes.data(), static_cast<qsizetype>(zip_bytes.size()));
+  QBuffer buffer(&data);
+  QuaZip zip(&buffer);
+  if (!zip.open(QuaZip::mdUnzip))
+    throw InputError(source + ": not a readable zip archive (QuaZip error " +
+                     std::to_string(zip.getZipError()) + ")");
+  std::map<std::string, std::string> out;
+  std::int64_t total = 0;
+  int count = 0;
+  for (bool more = zip.goToFirstFile(); more; more = zip.goToNextFile()) {
+    if (++count > limits.entries)
+      throw InputError(source + ": more than " + std::to_string(limits.entries) + " entries");
+    QuaZipFileInfo64 info;
+    if (!zip.getCurrentFileInfo(&info))
+      throw InputError(source + ": entry " + std::to_string(count) + ": unreadable header");
+    const std::string name = info.name.toStdString();
+    const std::string where = source + ": entry '" + name + "'";
+    if (!is_safe_entry_name(name))
+      throw InputError(where + ": refused, the name would escape the folder it is unpacked into");
+    if (out.count(name)) throw InputError(where + ": appears twice");
+    if (info.uncompressedSize > static_cast<quint64>(limits.entry_bytes))
+      throw InputError(where + ": declares " + std::to_string(info.uncompressedSize) +
+                       " bytes, more than the limit of " + std::to_string(limits.entry_bytes));
+    QuaZipFile file(&zip);
+    if (!file.open(QIODevice::ReadOnly))
+      throw InputError(where + ": cannot be read (QuaZip error " +
+                       std::to_string(file.getZipError()) + ")");
+    std::string bytes;
+    char chunk[65536];
+    while (true) {
+      const qint64 got = file.read(chunk, sizeof chunk);
+      if (got < 0) {
+        file.close();
+        throw InputError(where + ": damaged (cannot be decompressed)");
+      }
+      if (got == 0) break;
+      bytes.append(chunk, static_cast<size_t>(got));
+      if (static_cast<std::int64_t>(bytes.size()) > limits.entry_bytes) {
+        file.close();
+        throw InputError(where + ": larger than the limit of " +
+                         std::to_string(limits.entry_bytes) + " bytes");
+      }
+      if (total + static_cast<std::int64_t>(bytes.size()) > limits.total_bytes) {
+        file.close();
+        throw InputError(source + ": the entries together exceed " +
+                         std::to_string(limits.total_bytes) + " bytes");
+      }
+    }
+    file.close();
+    if (file.getZipError() != 0)
+      throw InputError(where + ": damaged (checksum error " + std::to_string(file.getZipError()) +
+                       ")");
+    if (bytes.size() != info.uncompressedSize)
+      throw InputError(where + ": holds " + std::to_string(bytes.size()) + " bytes, declares " +
+                       std::to_string(info.uncompressedSize));
+    total += static_cast<std::int64_t>(bytes.size());
+    out.emplace(name, std::move(bytes));
+  }
+  if (zip.getZipError() != 0)
+    throw InputError(source + ": damaged zip directory (QuaZip error " +
+                     std::to_string(zip.getZipError()) + ")");
+  zip.close();
+  return out;
+}
+
+namespace {
+
+BundleManifest parse_manifest(const std::string& bytes, const std::string& file) {
+  const JsonField root = parse_json_document(bytes, file);
+  BundleManifest m;
+  if (root["format"].text() != kBundleFormat)
+    root["format"].fail("not a Gramline bundle manifest (expected '" + std::string(kBundleFormat) +
+                        "')");
+  const long long version = root["version"].integer(1, 1000000);
+  if (version > kBundleVersion)
+    root["version"].fail("version " + std::to_string(version) +
+                         " is newer than this Gramline reads (" + std::to_string(kBundleVersion) +
+                         ")");
+  m.tool_version = root["tool_version"].text();
+  m.created_utc = root["created_utc"].text();
+  m.conventions = root["conventions"].text();
+  const std::string seed = root["seed"].text();
+  try {
+    size_t used = 0;
+    if (seed.empty() || seed[0] == '-') throw std::invalid_argument("sign");
+    m.seed = std::stoull(seed, &used);
+    if (used != seed.size()) throw std::invalid_argument("tail");
+  } catch (const std::exception&) {
+    root["seed"].fail("'" + seed.substr(0, 30) + "' is not a whole number");
+  }
+  if (root.has("parent") && !root["parent"].is_null()) {
+    BundleParent p;
+    p.file_name = root["parent"]["file"].text();
+    p.manifest_sha256 = root["parent"]["manifest_sha256"].text();
+    m.parent = p;
+  }
+  for (const JsonField& f : root["files"].items()) {
+    ManifestFile mf;
+    mf.name = f["name"].text();
+    mf.bytes = f["bytes"].integer(0, std::int64_t{1} << 50);
+    mf.sha256 = f["sha256"].text();
+    m.files.push_back(mf);
+  }
+  return m;
+}
+
+// Steps the ingest engine will index by must fit the campaign's points and motors.
+void check_steps_fit(const StepsFile& steps, const Campaign& c, const std::string& where) {
+  const int n = c.data.train_count();
+  const int m = c.data.test_count();
+  if (steps.rig.motors.size() != c.rig.motors.size())
+    throw InputError(where + ": " + std::to_string(steps.rig.motors.size()) +
+                     " motors, the campaign has " + std::to_string(c.rig.motors.size()));
+  for (size_t k = 0; k < c.rig.motors.size(); ++k)
+    if (steps.rig.motors[k].name != c.rig.motors[k].name)
+      throw InputError(where + ": motors[" + std::to_string(k) + "] is '" +
+                       steps.rig.motors[k].name + "', the campaign's is '" + c.rig.motors[k].name +
+                       "'");
+  for (size_t k = 0; k < steps.steps.size(); ++k) {
+    const Step& s = steps.steps[k];
+    const std::string at = where + ": steps[" + std::to_string(k) + "]";
+    if (s.position_deg.size() != c.rig.motors.size())
+      throw InputError(at + ".position_deg: one position per motor is needed");
+    if (s.kind != StepKind::measure) continue;
+    const int a = std::min(s.prep_point, s.analysis_point);
+    const int b = std::max(s.prep_point, s.analysis_point);
+    const bool train = s.block == Block::train && a >= 0 && a != b && b < n;
+    const bool test = s.block == Block::test && a >= 0 && a < n && b >= n && b < n + m;
+    if (!train && !test)
+      throw InputError(at + ": a measure step of block '" + to_string(s.block) +
+                       "' cannot join points " + std::to_string(s.prep_point) + " and " +
+                       std::to_string(s.analysis_point) + " (" + std::to_string(n) +
+                       " training and " + std::to_string(m) + " test points)");
+    if (!std::isfinite(s.kernel_ideal) || !std::isfinite(s.pairs) || !std::isfinite(s.dwell_s))
+      throw InputError(at + ": kernel_ideal, pairs and dwell_s must be finite");
+  }
+}
+
+}  // namespace
+
+Bundle parse_bundle(const std::string& zip_bytes, const std::string& source,
+                    const BundleReadLimits& limits) {
+  Bundle b;
+  b.source = source;
+  b.entries = unzip_entries(zip_bytes, source, limits);
+  const auto manifest = b.entries.find(kManifestEntry);
+  if (manifest == b.entries.end())
+    throw InputError(source + ": no manifest.json (not a Gramline bundle)");
+  b.manifest = parse_manifest(manifest->second, source + ": manifest.json");
+  b.manifest_sha256 = sha256_hex(manifest->second);
+  std::set<std::string> listed;
+  for (const ManifestFile& f : b.manifest.files) {
+    const std::string where = source + ": " + f.name;
+    if (f.name == kManifestEntry || !listed.insert(f.name).second)
+      throw InputError(source + ": manifest.json lists '" + f.name + "' twice or lists itself");
+    const auto it = b.entries.find(f.name);
+    if (it == b.entries.end()) throw InputError(where + ": listed in the manifest but missing");
+    if (static_cast<std::int64_t>(it->second.size()) != f.bytes ||
+        sha256_hex(it->second) != f.sha256)
+      throw InputError(where +
+                       ": does not match its SHA-256 in the manifest; the file was "
+                       "changed after export, the bundle is refused");
+  }
+  for (const auto& [name, bytes] : b.entries)
+    if (name != kManifestEntry && !listed.count(name))
+      throw InputError(source + ": " + name + ": not listed in the manifest; refused");
+  for (const char* needed : {kCampaignEntry, kStepsJsonEntry})
+    if (!b.entries.count(needed))
+      throw InputError(source + ": " + needed + ": missing from the bundle");
+  b.campaign = parse_campaign(b.entries.at(kCampaignEntry), source + ": campaign.json");
+  if (const std::string problem = b.campaign.check_consistency(); !problem.empty())
+    throw InputError(source + ": campaign.json: " + problem);
+  b.steps = parse_steps_json(b.entries.at(kStepsJsonEntry), source + ": steps.json");
+  check_steps_fit(b.steps, b.campaign, source + ": steps.json");
+  const bool has_steps = b.entries.count(kMeasuredStepsEntry) != 0;
+  const bool has_counts = b.entries.count(kMeasuredCountsEntry) != 0;
+  if (has_steps != has_counts)
+    throw InputError(source + ": " + kMeasuredStepsEntry + " and " + kMeasuredCountsEntry +
+                     " come together; one of them is missing");
+  if (has_steps) {
+    const std::string steps_where = source + ": " + kMeasuredStepsEntry;
+    StepsFile measured = parse_steps_json(b.entries.at(kMeasuredStepsEntry), steps_where);
+    check_steps_fit(measured, b.campaign, steps_where);
+    const CountsFile counts =
+        parse_counts_csv(b.entries.at(kMeasuredCountsEntry), source + ": " + kMeasuredCountsEntry,
+                         counts_layout(b.campaign));
+    CountsCheck check = check_counts(counts, measured.steps);
+    if (!check.consistent())
+      throw InputError(check.report() + source + ": " + kMeasuredCountsEntry + " does not fit " +
+                       kMeasuredStepsEntry);
+    b.measured_steps = std::move(measured.steps);
+    b.measured_records = std::move(check.records);
+  }
+  return b;
+}
+
+Bundle read_bundle(const QString& path, const BundleReadLimits& limits) {
+  const QFileInfo info(path);
+  if (info.exists() && info.size() > limits.total_bytes)
+    throw InputError(path_text(path) + ": larger than the bundle limit of " +
+                     std::to_string(limits.total_bytes) + " bytes");
+  return parse_bundle(read_whole_file(path), path_text(path), limits);
+}
+
+Plan plan_from_bundle(const Bundle& bundle) {
+  return plan_from_steps(bundle.campaign, bundle.steps.steps);
+}
+
+Plan plan_from_steps(const Campaign& campaign, std::vector<Step> steps) {
+  const Campaign& c = campaign;
+  const int n = c.data.train_count();
+  const int m = c.data.test_count();
+  const int photons = c.encoding.photon_count();
+  Plan plan;
+  plan.steps = std::move(steps);
+  plan.kernel_train = ideal_gram(c.encoding, c.data.train);
+  plan.kernel_test =
+      m > 0 ? ideal_cross(c.encoding, c.data.test, c.data.train) : Eigen::MatrixXd(0, n);
+  plan.pairs_train = Eigen::MatrixXd::Zero(n, n);
+  plan.pairs_test = Eigen::MatrixXd::Zero(m, n);
+  plan.sigma_train = Eigen::MatrixXd::Zero(n, n);
+  plan.sigma_test = Eigen::MatrixXd::Zero(m, n);
+  plan.step_of_train = Eigen::MatrixXi::Constant(n, n, -1);
+  plan.step_of_test = Eigen::MatrixXi::Constant(m, n, -1);
+  PlanSummary& s = plan.summary;
+  for (size_t k = 0; k < plan.steps.size(); ++k) {
+    const Step& st = plan.steps[k];
+    s.move_s += st.move_s;
+    s.pairs_total += st.pairs;
+    s.total_s = std::max(s.total_s, st.start_s + st.move_s + st.dwell_s);
+    s.nights = std::max(s.nights, st.night);
+    if (st.kind != StepKind::measure) {
+      s.reference_s += st.move_s + st.dwell_s;
+      continue;
+    }
+    ++s.settings;
+    s.integration_s += st.dwell_s;
+    s.measure_move_s += st.move_s;
+    const int a = std::min(st.prep_point, st.analysis_point);
+    const int b = std::max(st.prep_point, st.analysis_point);
+    // Predicted sigma of the entry at its planned pairs, from the rig model (detection.h).
+    std::vector<double> overlaps(static_cast<size_t>(photons), 1.0);
+    double kappa = 1.0;
+    const Eigen::VectorXd pa = c.data.point(a), pb = c.data.point(b);
+    for (int p = 0; p < photons; ++p) {
+      const BlochAngles x = c.encoding.angles(p, pa), y = c.encoding.angles(p, pb);
+      overlaps[static_cast<size_t>(p)] =
+          overlap(bloch_state(x.theta_deg, x.phi_deg), bloch_state(y.theta_deg, y.phi_deg));
+      kappa *= overlaps[static_cast<size_t>(p)];
+    }
+    const SettingRates rates = setting_rates(c.rig, photons, kappa, overlaps);
+    const double sigma =
+        std::sqrt(kernel_variance(c.rig.scheme, photons, model_calibration(c.rig, photons, rates),
+                                  rates.p_pass, std::max(st.pairs, 1e-300)));
+    if (st.block == Block::train) {
+      plan.step_of_train(a, b) = plan.step_of_train(b, a) = static_cast<int>(k);
+      plan.pairs_train(a, b) = plan.pairs_train(b, a) = st.pairs;
+      plan.sigma_train(a, b) = plan.sigma_train(b, a) = sigma;
+    } else {
+      plan.step_of_test(b - n, a) = static_cast<int>(k);
+      plan.pairs_test(b - n, a) = st.pairs;
+      plan.sigma_test(b - n, a) = sigma;
+    }
+  }
+  s.steps = static_cast<long>(plan.steps.size());
+  return plan;
+}
+
+}  // namespace gramline::formats

@@ -1,0 +1,153 @@
+#pragma once
+// The hand-off bundle: one zip file carrying everything a rig controller and a later ingest
+// need, with a manifest that fixes the SHA-256 of every other file so tampering is noticed.
+//
+// Entries (flat, no folders):
+//   manifest.json   {"format": "gramline-bundle", "version": 1, "tool_version", "created_utc",
+//                    "conventions", "seed", "parent": null | {"file", "manifest_sha256"},
+//                    "files": [{"name", "bytes", "sha256"}, ...]}
+//   campaign.json   the campaign as planned (points inline, seed applied)
+//   data.csv        its points in the data CSV format
+//   steps.json, steps.csv, summary.json, kernel.csv   as `plan --out` (SPEC section 3)
+//   summary.html    printable summary with the timeline, Gram error maps and cautions
+//   resumed bundles also: measured_steps.json and measured_counts.csv (what earlier bundles
+//   measured, counts renumbered onto those steps) and resume.json (where the motors stopped)
+#include <QDateTime>
+#include <QString>
+#include <cstdint>
+#include <map>
+#include <optional>
+#include <string>
+#include <string_view>
+#include <vector>
+
+#include "formats/atomic_file.h"
+#include "formats/counts_csv.h"
+#include "formats/plan_files.h"
+#include "gramline/campaign.h"
+#include "gramline/plan.h"
+
+namespace gramline::formats {
+
+inline constexpr const char* kBundleFormat = "gramline-bundle";
+inline constexpr int kBundleVersion = 1;
+inline constexpr const char* kManifestEntry = "manifest.json";
+inline constexpr const char* kCampaignEntry = "campaign.json";
+inline constexpr const char* kDataEntry = "data.csv";
+inline constexpr const char* kStepsJsonEntry = "steps.json";
+inline constexpr const char* kStepsCsvEntry = "steps.csv";
+inline constexpr const char* kSummaryJsonEntry = "summary.json";
+inline constexpr const char* kKernelEntry = "kernel.csv";
+inline constexpr const char* kSummaryHtmlEntry = "summary.html";
+inline constexpr const char* kMeasuredStepsEntry = "measured_steps.json";
+inline constexpr const char* kMeasuredCountsEntry = "measured_counts.csv";
+inline constexpr const char* kResumeEntry = "resume.json";
+
+/// Largest uncompressed entry a bundle reader accepts (declared and actually read).
+inline constexpr std::int64_t kBundleEntryLimitBytes = std::int64_t{512} << 20;
+
+/// Lowercase hexadecimal SHA-256 (QCryptographicHash).
+std::string sha256_hex(std::string_view bytes);
+
+/// The bundle a resumed bundle continues from.
+struct BundleParent {
+  std::string file_name;        ///< file name only, no folder
+  std::string manifest_sha256;  ///< SHA-256 of the parent's manifest.json
+};
+
+struct BundleWriteOptions {
+  Overwrite overwrite = Overwrite::refuse;
+  std::optional<BundleParent> parent;
+  /// Further entries (name -> bytes), listed in the manifest like the others.
+  std::map<std::string, std::string> extra_entries;
+  /// Creation time written in the manifest; invalid: now.
+  QDateTime created_utc;
+};
+
+struct BundleWritten {
+  std::string manifest_sha256;
+  std::vector<std::string> entries;  ///< every entry, manifest included
+  std::int64_t zip_bytes = 0;
+};
+
+/// The entries of a bundle for a planned campaign (manifest excluded).
+std::map<std::string, std::string> bundle_entries(const Campaign& campaign, const Plan& plan);
+
+/// manifest.json text for `entries` (which must not include the manifest).
+std::string format_manifest(const std::map<std::string, std::string>& entries, std::uint64_t seed,
+                            const BundleWriteOptions& options);
+
+/// A zip archive (deflate) of `entries`, in memory. Throws std::runtime_error if QuaZip fails.
+std::string zip_entries(const std::map<std::string, std::string>& entries, const QDateTime& stamp);
+
+/// Plans nothing: writes the bundle of an already planned campaign to `path`, atomically
+/// (temporary file in the same folder, then rename). Throws InputError when `path` exists and
+/// overwriting is refused, or when it cannot be written. The function the app calls.
+BundleWritten write_bundle(const Campaign& campaign, const Plan& plan, const QString& path,
+                           const BundleWriteOptions& options = {});
+
+/// Limits of the bundle reader.
+struct BundleReadLimits {
+  std::int64_t entry_bytes = kBundleEntryLimitBytes;  ///< per entry, uncompressed
+  std::int64_t total_bytes = 2 * kBundleEntryLimitBytes;
+  int entries = 256;
+};
+
+/// True for a relative entry name that stays inside the folder it would be unpacked into: not
+/// empty, no leading '/', no backslash, no drive letter, no '.' or '..' component, no empty
+/// component, no control character.
+bool is_safe_entry_name(std::string_view name);
+
+/// Every entry of a zip archive held in memory. Throws InputError naming `source` (and the
+/// entry) for: a file that is not a zip archive, an unsafe entry name, a repeated name, an
+/// entry larger than the limit (declared or read), a damaged entry (CRC), too many entries.
+std::map<std::string, std::string> unzip_entries(const std::string& zip_bytes,
+                                                 const std::string& source,
+                                                 const BundleReadLimits& limits = {});
+
+struct ManifestFile {
+  std::string name;
+  std::int64_t bytes = 0;
+  std::string sha256;
+};
+
+struct BundleManifest {
+  std::string tool_version;
+  std::string created_utc;
+  std::string conventions;
+  std::uint64_t seed = 1;
+  std::optional<BundleParent> parent;
+  std::vector<ManifestFile> files;
+};
+
+/// A bundle read back and verified.
+struct Bundle {
+  std::string source;
+  BundleManifest manifest;
+  std::string manifest_sha256;
+  std::map<std::string, std::string> entries;
+  Campaign campaign;
+  StepsFile steps;  ///< rig motors and controller as in steps.json; source/detectors: campaign's
+  /// Resumed bundles: the steps measured by earlier bundles and their counts (renumbered onto
+  /// measured_steps, times on one clock). Empty otherwise.
+  std::vector<Step> measured_steps;
+  std::vector<StepRecord> measured_records;
+};
+
+/// Reads a bundle from memory: unzips it safely, checks that the manifest lists exactly the
+/// other entries with the right size and SHA-256, parses campaign.json and steps.json, and
+/// checks that the steps fit the campaign (motors, point indices, blocks). Throws InputError
+/// naming the bundle and the entry.
+Bundle parse_bundle(const std::string& zip_bytes, const std::string& source,
+                    const BundleReadLimits& limits = {});
+Bundle read_bundle(const QString& path, const BundleReadLimits& limits = {});
+
+/// A Plan whose steps are `steps` (the schedule the rig ran), with the ideal kernels of the
+/// campaign, step_of_train/step_of_test and the summary counts filled from those steps, and the
+/// predicted sigma of each entry from the rig model (detection.h) at the step's pairs.
+/// The steps must fit the campaign (parse_bundle checks that).
+Plan plan_from_steps(const Campaign& campaign, std::vector<Step> steps);
+/// plan_from_steps of the bundle's steps.json.
+Plan plan_from_bundle(const Bundle& bundle);
+
+}  // namespace gramline::formats

@@ -1,0 +1,286 @@
+#include "formats/ingest_run.h"
+
+#include <QDir>
+#include <QJsonArray>
+#include <QJsonDocument>
+#include <QJsonObject>
+#include <algorithm>
+#include <cmath>
+#include <limits>
+#include <sstream>
+#include <stdexcept>
+
+#include "formats/input_error.h"
+#include "formats/text_io.h"
+#include "gramline/margin.h"
+
+namespace gramline::formats {
+namespace {
+
+constexpr double kNaN = std::numeric_limits<double>::quiet_NaN();
+
+QString q(const std::string& text) { return QString::fromStdString(text); }
+
+// Matrix as CSV without header; an unmeasured (NaN) entry is an empty field.
+std::string matrix_csv(const Eigen::MatrixXd& m) {
+  std::string out;
+  for (long i = 0; i < m.rows(); ++i) {
+    for (long j = 0; j < m.cols(); ++j) {
+      if (j) out += ",";
+      if (std::isfinite(m(i, j))) out += seventeen_digit_text(m(i, j));
+    }
+    out += "\n";
+  }
+  return out;
+}
+
+QJsonValue number_or_null(double x) {
+  return std::isfinite(x) ? QJsonValue(x) : QJsonValue(QJsonValue::Null);
+}
+
+QJsonArray vector_json(const Eigen::VectorXd& v) {
+  QJsonArray a;
+  for (long i = 0; i < v.size(); ++i) a.append(number_or_null(v(i)));
+  return a;
+}
+
+double accuracy(const Eigen::VectorXd& decision, const Eigen::VectorXi& labels) {
+  if (labels.size() == 0 || decision.size() != labels.size()) return kNaN;
+  int right = 0;
+  for (long i = 0; i < labels.size(); ++i) right += (decision(i) >= 0 ? 1 : -1) == labels(i);
+  return static_cast<double>(right) / static_cast<double>(labels.size());
+}
+
+}  // namespace
+
+IngestRun ingest_counts(const Bundle& bundle, const CountsFile& counts) {
+  const Campaign& c = bundle.campaign;
+  IngestRun run;
+  run.bundle_source = bundle.source;
+  run.counts_source = counts.source;
+  run.manifest_sha256 = bundle.manifest_sha256;
+  run.check = check_counts(counts, bundle.steps.steps);
+  if (!run.check.consistent())
+    throw InputError(run.check.report() + counts.source + ": the counts do not fit the steps of " +
+                     bundle.source + "; nothing was ingested");
+
+  // Earlier bundles' measured steps come first; the new counts follow them on one clock.
+  std::vector<Step> steps = bundle.measured_steps;
+  run.earlier_steps = static_cast<int>(steps.size());
+  steps.insert(steps.end(), bundle.steps.steps.begin(), bundle.steps.steps.end());
+  std::vector<StepRecord> records = bundle.measured_records;
+  double offset_s = 0.0;
+  for (const StepRecord& r : records) offset_s = std::max(offset_s, r.end_s);
+  for (StepRecord r : run.check.records) {
+    r.step += run.earlier_steps;
+    r.start_s += offset_s;
+    r.end_s += offset_s;
+    records.push_back(r);
+  }
+  run.plan = plan_from_steps(c, std::move(steps));
+  try {
+    run.result = ingest_records(c, run.plan, records);
+  } catch (const std::invalid_argument& e) {
+    throw InputError(counts.source + ": " + e.what());
+  }
+
+  const IngestResult& r = run.result;
+  const int n = c.data.train_count();
+  for (int i = 0; i < n; ++i)
+    for (int j = i + 1; j < n; ++j)
+      run.unmeasured_train += std::isfinite(r.gram_measured(i, j)) ? 0 : 1;
+  for (long t = 0; t < r.test_measured.rows(); ++t)
+    for (int j = 0; j < n; ++j) run.unmeasured_test += std::isfinite(r.test_measured(t, j)) ? 0 : 1;
+
+  run.test_accuracy = kNaN;
+  run.ideal_test_accuracy = kNaN;
+  if (run.unmeasured_train > 0) {
+    run.svm_skipped_reason = std::to_string(run.unmeasured_train) +
+                             " training entries are not measured; the classifier needs the "
+                             "whole Gram matrix";
+    return run;
+  }
+  Eigen::MatrixXd gram = r.gram_measured;
+  run.psd_repaired = repair_psd(gram, c.check.keep_unit_diagonal);
+  try {
+    if (c.check.C > 0) {
+      run.C = c.check.C;
+    } else {
+      CrossValidationOptions cv;
+      cv.folds = c.check.cv_folds;
+      cv.seed = c.seed;
+      run.C = choose_C(gram, c.data.train_labels, cv).best_C;
+    }
+    SvmOptions o;
+    o.C = run.C;
+    run.svm = train_svm(gram, c.data.train_labels, o);
+    run.svm_trained = true;
+    const SvmModel ideal = train_svm(run.plan.kernel_train, c.data.train_labels, o);
+    if (c.data.test_count() > 0) {
+      run.ideal_test_accuracy = accuracy(ideal.decision(run.plan.kernel_test), c.data.test_labels);
+      if (run.unmeasured_test == 0) {
+        run.decision_test = run.svm.decision(r.test_measured);
+        run.test_accuracy = accuracy(run.decision_test, c.data.test_labels);
+      }
+    }
+  } catch (const std::invalid_argument& e) {
+    run.svm_trained = false;
+    run.svm_skipped_reason = std::string("the classifier could not be trained: ") + e.what();
+  }
+  return run;
+}
+
+std::string IngestRun::report() const {
+  std::ostringstream o;
+  o.precision(4);
+  o << "Bundle " << bundle_source << ", counts " << counts_source << "\n";
+  if (earlier_steps > 0)
+    o << earlier_steps << " steps carried from earlier bundles are ingested with these counts\n";
+  if (!check.missing.empty()) {
+    o << check.missing.size() << " step(s) of the bundle have no counts:";
+    for (size_t i = 0; i < std::min<size_t>(check.missing.size(), 20); ++i)
+      o << " " << check.missing[i];
+    o << (check.missing.size() > 20 ? " ...\n" : "\n");
+  }
+  o << result.report();
+  o << "Unmeasured entries: " << unmeasured_train << " training (i < j), " << unmeasured_test
+    << " test\n";
+  if (svm_trained) {
+    o << "Classifier (C = " << C << ") trained on the measured Gram matrix"
+      << (psd_repaired ? " after clipping negative eigenvalues" : "") << ": " << svm.support.size()
+      << " support vectors, bias " << svm.bias << "\n";
+    if (std::isfinite(test_accuracy))
+      o << "Test accuracy " << test_accuracy << " measured, " << ideal_test_accuracy
+        << " with the ideal kernel\n";
+    else if (unmeasured_test > 0)
+      o << "Test block incomplete: no test decisions\n";
+  } else {
+    o << "No classifier: " << svm_skipped_reason << "\n";
+  }
+  return o.str();
+}
+
+std::string format_ingest_json(const IngestRun& run) {
+  const IngestResult& r = run.result;
+  QJsonArray outliers;
+  for (const Outlier& x : r.outliers) {
+    outliers.append(QJsonObject{{"block", q(to_string(x.block))},
+                                {"row", x.row},
+                                {"col", x.col},
+                                {"step", x.step},
+                                {"measured", number_or_null(x.measured)},
+                                {"predicted", x.predicted},
+                                {"z", number_or_null(x.z)}});
+  }
+  QJsonArray drift;
+  int drifted = 0;
+  for (const DriftPoint& d : r.drift) {
+    drifted += d.drifted ? 1 : 0;
+    drift.append(QJsonObject{{"step", d.step},
+                             {"time_s", d.time_s},
+                             {"pair_detect_rate_per_s", number_or_null(d.pair_detect_rate_per_s)},
+                             {"pair_detect_rate_sigma", number_or_null(d.pair_detect_rate_sigma)},
+                             {"visibility", number_or_null(d.visibility)},
+                             {"visibility_sigma", number_or_null(d.visibility_sigma)},
+                             {"drifted", d.drifted}});
+  }
+  QJsonArray missing;
+  for (int s : run.check.missing) missing.append(s);
+  QJsonValue svm(QJsonValue::Null);
+  if (run.svm_trained) {
+    QJsonArray support;
+    for (int s : run.svm.support) support.append(s);
+    svm = QJsonObject{{"C", run.C},
+                      {"dual_coef", vector_json(run.svm.dual_coef)},
+                      {"bias", run.svm.bias},
+                      {"support", support},
+                      {"decision_train", vector_json(run.svm.decision_train)},
+                      {"decision_test", vector_json(run.decision_test)},
+                      {"test_accuracy", number_or_null(run.test_accuracy)},
+                      {"ideal_test_accuracy", number_or_null(run.ideal_test_accuracy)},
+                      {"psd_repaired", run.psd_repaired}};
+  }
+  const QJsonObject o{{"format", "gramline-ingest"},
+                      {"version", 1},
+                      {"bundle", q(run.bundle_source)},
+                      {"bundle_manifest_sha256", q(run.manifest_sha256)},
+                      {"counts", q(run.counts_source)},
+                      {"earlier_steps", run.earlier_steps},
+                      {"measured_entries", r.measured_entries},
+                      {"expected_entries", r.expected_entries},
+                      {"unmeasured_train_entries", run.unmeasured_train},
+                      {"unmeasured_test_entries", run.unmeasured_test},
+                      {"missing_steps", missing},
+                      {"z_mean", number_or_null(r.z_mean)},
+                      {"z_std", number_or_null(r.z_std)},
+                      {"outliers", outliers},
+                      {"drift", drift},
+                      {"drift_flagged", drifted},
+                      {"svm", svm},
+                      {"svm_skipped_reason", q(run.svm_skipped_reason)}};
+  const QByteArray text = QJsonDocument(o).toJson(QJsonDocument::Indented);
+  return std::string(text.constData(), static_cast<size_t>(text.size()));
+}
+
+std::vector<std::string> ingest_file_names() {
+  return {"measured_kernel.csv", "measured_sigma.csv", "test_block.csv", "test_sigma.csv",
+          "zscores.csv",         "drift.csv",          "ingest.json"};
+}
+
+void write_ingest_files(const IngestRun& run, const QString& dir, Overwrite overwrite) {
+  const QDir d(dir);
+  for (const std::string& name : ingest_file_names())
+    refuse_existing(d.filePath(q(name)), overwrite);
+  if (!QDir().mkpath(dir)) throw InputError(path_text(dir) + ": cannot create the folder");
+  const IngestResult& r = run.result;
+  const Plan& p = run.plan;
+  const int n = static_cast<int>(r.gram_measured.rows());
+  std::string z = "block,row,col,step,measured,predicted,sigma_measured,z\n";
+  auto add = [&](const char* block, long row, long col, int step, double measured, double predicted,
+                 double sigma, double zz) {
+    z += std::string(block) + "," + std::to_string(row) + "," + std::to_string(col) + "," +
+         std::to_string(step) + "," + seventeen_digit_text(measured) + "," +
+         seventeen_digit_text(predicted) + "," + seventeen_digit_text(sigma) + "," +
+         seventeen_digit_text(zz) + "\n";
+  };
+  for (int i = 0; i < n; ++i)
+    for (int j = i + 1; j < n; ++j)
+      if (std::isfinite(r.gram_measured(i, j)))
+        add("train", i, j, p.step_of_train(i, j), r.gram_measured(i, j), p.kernel_train(i, j),
+            r.gram_sigma(i, j), r.gram_z(i, j));
+  for (long t = 0; t < r.test_measured.rows(); ++t)
+    for (int j = 0; j < n; ++j)
+      if (std::isfinite(r.test_measured(t, j)))
+        add("test", t, j, p.step_of_test(t, j), r.test_measured(t, j), p.kernel_test(t, j),
+            r.test_sigma(t, j), r.test_z(t, j));
+  std::string drift =
+      "step,time_s,pair_detect_rate_per_s,pair_detect_rate_sigma,visibility,"
+      "visibility_sigma,drifted\n";
+  for (const DriftPoint& x : r.drift) {
+    drift += std::to_string(x.step) + "," + seventeen_digit_text(x.time_s) + "," +
+             seventeen_digit_text(x.pair_detect_rate_per_s) + "," +
+             seventeen_digit_text(x.pair_detect_rate_sigma) + "," +
+             seventeen_digit_text(x.visibility) + "," + seventeen_digit_text(x.visibility_sigma) +
+             "," + (x.drifted ? "1" : "0") + "\n";
+  }
+  Eigen::MatrixXd sigma = r.gram_sigma;
+  for (int i = 0; i < n; ++i)
+    for (int j = 0; j < n; ++j)
+      if (i != j && !std::isfinite(r.gram_measured(i, j))) sigma(i, j) = kNaN;
+  Eigen::MatrixXd test_sigma = r.test_sigma;
+  for (long t = 0; t < test_sigma.rows(); ++t)
+    for (int j = 0; j < n; ++j)
+      if (!std::isfinite(r.test_measured(t, j))) test_sigma(t, j) = kNaN;
+  const std::vector<std::pair<const char*, std::string>> files = {
+      {"measured_kernel.csv", matrix_csv(r.gram_measured)},
+      {"measured_sigma.csv", matrix_csv(sigma)},
+      {"test_block.csv", matrix_csv(r.test_measured)},
+      {"test_sigma.csv", matrix_csv(test_sigma)},
+      {"zscores.csv", z},
+      {"drift.csv", drift},
+      {"ingest.json", format_ingest_json(run)}};
+  for (const auto& [name, bytes] : files)
+    save_atomically(d.filePath(name), bytes, Overwrite::allow);
+}
+
+}  // namespace gramline::formats

@@ -1,0 +1,56 @@
+#pragma once
+// From a verified bundle and the rig's counts file to the measured kernel, its comparison with
+// the prediction, the drift of the night and a classifier trained on what was measured. One
+// function for the command line and the app; the files it writes live here too.
+#include <Eigen/Core>
+#include <QString>
+#include <string>
+#include <vector>
+
+#include "formats/atomic_file.h"
+#include "formats/bundle.h"
+#include "formats/counts_csv.h"
+#include "gramline/ingest.h"
+#include "gramline/plan.h"
+#include "gramline/svm.h"
+
+namespace gramline::formats {
+
+struct IngestRun {
+  std::string bundle_source;
+  std::string counts_source;
+  std::string manifest_sha256;
+  Plan plan;              ///< the bundle's steps (after any earlier measured steps), as ingested
+  int earlier_steps = 0;  ///< steps carried from earlier bundles (resumed bundle), first in plan
+  CountsCheck check;      ///< of the new counts against the bundle's own steps
+  IngestResult result;
+  int unmeasured_train = 0;  ///< off-diagonal training entries (i < j) without a value
+  int unmeasured_test = 0;
+  bool psd_repaired = false;  ///< a negative eigenvalue was clipped before training
+  bool svm_trained = false;
+  std::string svm_skipped_reason;
+  double C = 1.0;
+  SvmModel svm;                      ///< trained on the repaired measured Gram matrix
+  Eigen::VectorXd decision_test;     ///< f at the test points with the measured test block
+  double test_accuracy = 0.0;        ///< against the test labels (NaN without test points)
+  double ideal_test_accuracy = 0.0;  ///< same classifier setup on the ideal kernels
+  std::string report() const;
+};
+
+/// Ingests `counts` for `bundle`. Throws InputError listing every extra, duplicated and
+/// kind-mismatched row (file, line, column) when the counts do not fit the bundle's steps;
+/// missing steps are allowed (a partial night) and reported.
+IngestRun ingest_counts(const Bundle& bundle, const CountsFile& counts);
+
+/// The names write_ingest_files writes.
+std::vector<std::string> ingest_file_names();
+
+/// Writes measured_kernel.csv, measured_sigma.csv, test_block.csv, test_sigma.csv, zscores.csv,
+/// drift.csv and ingest.json into `dir` (created if needed), each atomically. With
+/// Overwrite::refuse nothing is written when any of them exists.
+void write_ingest_files(const IngestRun& run, const QString& dir, Overwrite overwrite);
+
+/// ingest.json text.
+std::string format_ingest_json(const IngestRun& run);
+
+}  // namespace gramline::formats
