@@ -336,3 +336,27 @@ TEST(MarginCheck, DemoCampaignEndToEndAndTheMinimumBudgetIsTheBoundary) {
 }
 
 }  // namespace
+
+namespace {
+
+TEST(MarginCheck, NonPositiveCIsChosenByCrossValidation) {
+  gramline::Campaign campaign = gramline::make_demo_campaign();
+  campaign.check.C = 0.0;
+  const gramline::Plan plan = gramline::plan_campaign(campaign);
+  gramline::MarginCheckOptions options;
+  options.trials = 20;
+  options.minimum_budget = false;
+  options.compare_allocations = false;
+  options.scan_scale = false;
+  const gramline::MarginCheck check = gramline::check_margin(campaign, plan, options);
+  EXPECT_TRUE(check.C_from_cross_validation);
+  EXPECT_EQ(check.C, check.cross_validation.best_C);
+  EXPECT_EQ(check.ideal.C, check.C);
+  const auto& cv = check.cross_validation;
+  for (double a : cv.accuracy) EXPECT_LE(a, cv.best_accuracy);
+  EXPECT_EQ(cv.folds, campaign.check.cv_folds);
+  EXPECT_FALSE(check.minimum_uniform.found);
+  EXPECT_TRUE(check.allocations.empty());
+}
+
+}  // namespace
