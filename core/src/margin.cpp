@@ -472,8 +472,15 @@ void allocate_pairs(MarginProblem& problem, Allocation strategy, const SvmModel&
     return std::sqrt(
         kernel_variance(problem.scheme, problem.photons, noise.calibration, noise.p_pass, 1.0));
   };
-  const Eigen::VectorXd a = ideal.dual_coef.cwiseAbs();
-  const Eigen::VectorXd f0 = ideal.decision(problem.kernel_test).cwiseAbs();
+  // Only the margin-aware strategy reads the ideal classifier; the others accept an empty one.
+  const bool aware = strategy == Allocation::margin_aware;
+  if (aware && ideal.dual_coef.size() != n)
+    throw std::invalid_argument("allocate_pairs: the margin-aware strategy needs the ideal SVM");
+  const Eigen::VectorXd a =
+      aware ? Eigen::VectorXd(ideal.dual_coef.cwiseAbs()) : Eigen::VectorXd::Zero(n);
+  const Eigen::VectorXd f0 = aware && m > 0
+                                 ? Eigen::VectorXd(ideal.decision(problem.kernel_test).cwiseAbs())
+                                 : Eigen::VectorXd::Ones(m);
   const double f_mean = m > 0 ? f0.mean() : 1.0;
   for (int i = 0; i < n; ++i)
     for (int j = i + 1; j < n; ++j) {

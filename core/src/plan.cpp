@@ -10,8 +10,10 @@
 #include "gramline/budget.h"
 #include "gramline/detection.h"
 #include "gramline/kernel.h"
+#include "gramline/margin.h"
 #include "gramline/motion.h"
 #include "gramline/schedule.h"
+#include "gramline/svm.h"
 #include "gramline/waveplates.h"
 
 namespace gramline {
@@ -83,6 +85,60 @@ double entry_sigma(const Campaign& c, const EntryStats& s, double pairs) {
                                    s.rates.p_pass, pairs));
 }
 
+// Shares the pairs among the entries by the campaign's allocation strategy. The precision
+// target fixes the per-entry need; `uniform` gives every entry the largest need (so every entry
+// meets the target), and the other strategies spend that same total time differently
+// (margin.h, allocate_pairs).
+void allocate(const Campaign& c, const Plan& plan, std::vector<EntryRequest>& entries,
+              const std::vector<EntryStats>& stats, double pair_rate_per_s) {
+  if (entries.empty() || c.precision.fixed_pairs > 0) return;
+  double most = 0.0;
+  for (const EntryRequest& r : entries) most = std::max(most, r.pairs);
+  const double total = most * static_cast<double>(entries.size());
+  if (c.precision.allocation == Allocation::uniform) {
+    for (EntryRequest& r : entries) r.pairs = most;
+  } else {
+    const int n = c.data.train_count(), m = c.data.test_count();
+    MarginProblem problem;
+    problem.scheme = c.rig.scheme;
+    problem.photons = c.encoding.photon_count();
+    problem.kernel_train = plan.kernel_train;
+    problem.kernel_test = plan.kernel_test;
+    problem.train_labels = c.data.train_labels;
+    problem.test_labels = c.data.test_labels;
+    problem.noise_train.resize(static_cast<size_t>(n) * n);
+    problem.noise_test.resize(static_cast<size_t>(m) * n);
+    for (size_t k = 0; k < entries.size(); ++k) {
+      const EntryRequest& r = entries[k];
+      EntryNoise e{stats[k].rates.p_pass,
+                   model_calibration(c.rig, problem.photons, stats[k].rates)};
+      if (r.block == Block::train)
+        problem.noise_train[static_cast<size_t>(r.a) * n + r.b] = e;
+      else
+        problem.noise_test[static_cast<size_t>(r.a - n) * n + r.b] = e;
+    }
+    SvmModel ideal;
+    if (c.precision.allocation == Allocation::margin_aware) {
+      SvmOptions so;
+      so.C = c.check.C;
+      if (so.C <= 0) {
+        CrossValidationOptions cv;
+        cv.folds = c.check.cv_folds;
+        cv.seed = c.seed;
+        so.C = choose_C(plan.kernel_train, c.data.train_labels, cv).best_C;
+      }
+      ideal = train_svm(plan.kernel_train, c.data.train_labels, so);
+    }
+    allocate_pairs(problem, c.precision.allocation, ideal, total);
+    for (EntryRequest& r : entries) {
+      const double pairs = r.block == Block::train ? problem.pairs_train(r.a, r.b)
+                                                   : problem.pairs_test(r.a - n, r.b);
+      r.pairs = std::max(1.0, std::round(pairs));
+    }
+  }
+  for (EntryRequest& r : entries) r.dwell_s = r.pairs / pair_rate_per_s;
+}
+
 }  // namespace
 
 Plan plan_campaign(const Campaign& campaign, const PlanOptions& options) {
@@ -147,6 +203,7 @@ Plan plan_campaign(const Campaign& campaign, const PlanOptions& options) {
     for (int j = 0; j < n; ++j)
       if (!done(n + t, j)) add_entry(n + t, j, Block::test, plan.kernel_test(t, j));
   options.hooks.throw_if_cancelled();
+  allocate(c, plan, in.entries, stats, in.pair_detect_rate_per_s);
 
   // A reference step is a diagonal setting (kernel 1); it gets the median entry's pairs unless
   // the campaign sets its own.
