@@ -5,7 +5,6 @@
 #include <QDateEdit>
 #include <QDoubleSpinBox>
 #include <QFormLayout>
-#include <QFutureWatcher>
 #include <QGroupBox>
 #include <QHBoxLayout>
 #include <QHeaderView>
@@ -20,12 +19,9 @@
 #include <QTableWidget>
 #include <QTimeEdit>
 #include <QVBoxLayout>
-#include <QtConcurrent/QtConcurrentRun>
 #include <cmath>
 
 #include "campaign_document.h"
-#include "gramline/kernel.h"
-#include "gramline/svm.h"
 #include "gui_text.h"
 #include "rig_tables.h"
 
@@ -280,18 +276,20 @@ QWidget* EditorPanel::build_encoding_page() {
   row->addWidget(scale_);
   row->addWidget(scale_apply);
   scale_form->addRow(tr("Multiply weights by"), row);
-  auto* advise = new QPushButton(tr("Suggest a scale"));
-  advise->setToolTip(
-      tr("Scans scale factors and reports where the ideal kernel best separates "
-         "the two classes (kernel–target alignment)"));
-  scale_advice_ =
-      new QLabel(tr("A scale too small makes every state alike; too large makes "
-                    "every pair of points look unrelated."));
+  use_advice_ = new QPushButton(tr("Use the suggested scale"));
+  use_advice_->setToolTip(
+      tr("The margin check scans scale factors: a scale too small makes "
+         "every state alike, too large makes every pair of points look "
+         "unrelated"));
+  use_advice_->setEnabled(false);
+  scale_advice_ = new QLabel;
   scale_advice_->setWordWrap(true);
-  scale_form->addRow(advise);
+  scale_advice_->setTextFormat(Qt::RichText);
   scale_form->addRow(scale_advice_);
+  scale_form->addRow(use_advice_);
+  clear_scale_scan();
   connect(scale_apply, &QPushButton::clicked, this, [this] { scale_encoding(scale_->value()); });
-  connect(advise, &QPushButton::clicked, this, &EditorPanel::suggest_scale);
+  connect(use_advice_, &QPushButton::clicked, this, [this] { scale_encoding(advised_scale_); });
   layout->addWidget(scale_box);
 
   auto* weights_box = new QGroupBox(tr("Current map (degrees per feature unit)"));
@@ -359,42 +357,34 @@ void EditorPanel::scale_encoding(double factor) {
                   [factor](Campaign& c) { c.encoding = c.encoding.scaled(factor); });
 }
 
-void EditorPanel::suggest_scale() {
-  const Campaign c = document_->campaign();
-  if (c.data.train_count() < 2 || !c.encoding.check(c.data.feature_count()).empty()) {
-    scale_advice_->setText(tr("The encoding must fit the data before a scale can be suggested."));
+void EditorPanel::set_scale_scan(const std::vector<ScalePoint>& scan, double advised) {
+  advised_scale_ = advised;
+  if (scan.empty()) {
+    scale_advice_->setText(tr("The margin check found no scale to suggest."));
+    use_advice_->setEnabled(false);
     return;
   }
-  scale_advice_->setText(tr("Scanning scale factors…"));
-  // Kernel-target alignment of the ideal kernel over a range of scales, off the GUI thread.
-  struct Scan {
-    std::vector<double> factors, alignment;
-  };
-  auto* watcher = new QFutureWatcher<Scan>(this);
-  connect(watcher, &QFutureWatcher<Scan>::finished, this, [this, watcher] {
-    const Scan s = watcher->result();
-    watcher->deleteLater();
-    std::size_t best = 0, now = 0;
-    for (std::size_t i = 0; i < s.factors.size(); ++i) {
-      if (s.alignment[i] > s.alignment[best]) best = i;
-      if (std::abs(s.factors[i] - 1.0) < 1e-9) now = i;
-    }
-    scale_advice_->setText(tr("Kernel–target alignment is highest at × %1 (%2; now %3). "
-                              "Enter the factor above and press “Scale all weights” to use it.")
-                               .arg(number_text(s.factors[best], 2))
-                               .arg(number_text(s.alignment[best], 3))
-                               .arg(number_text(s.alignment[now], 3)));
-    scale_->setValue(s.factors[best]);
-  });
-  watcher->setFuture(QtConcurrent::run([c]() {
-    Scan s;
-    for (double f = 0.25; f <= 2.001; f += 0.125) {
-      s.factors.push_back(f);
-      s.alignment.push_back(kernel_target_alignment(ideal_gram(c.encoding.scaled(f), c.data.train),
-                                                    c.data.train_labels));
-    }
-    return s;
-  }));
+  QStringList rows;
+  for (const ScalePoint& p : scan) {
+    rows << tr("<tr><td align=right>× %1</td><td align=right>%2</td><td align=right>%3 %</td></tr>")
+                .arg(number_text(p.factor, 2))
+                .arg(number_text(p.alignment, 3))
+                .arg(number_text(100.0 * p.cv_accuracy, 1));
+  }
+  scale_advice_->setText(
+      tr("<p>From the last margin check: the suggested scale is <b>× %1</b> of the current "
+         "weights.</p><table cellspacing=6><tr><th>scale</th><th>alignment</th><th>held-out "
+         "accuracy</th></tr>%2</table>")
+          .arg(number_text(advised, 2))
+          .arg(rows.join(QString())));
+  use_advice_->setEnabled(std::abs(advised - 1.0) > 1e-9);
+}
+
+void EditorPanel::clear_scale_scan() {
+  scale_advice_->setText(
+      tr("The scale advice appears when the margin check of the current "
+         "plan is done."));
+  use_advice_->setEnabled(false);
 }
 
 QWidget* EditorPanel::build_rig_page() {

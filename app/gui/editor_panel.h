@@ -6,6 +6,7 @@
 #include <vector>
 
 #include "gramline/campaign.h"
+#include "gramline/margin.h"
 
 class QCheckBox;
 class QComboBox;
@@ -35,6 +36,9 @@ class EditorPanel : public QWidget {
   MotorsModel* motors_model() const { return motors_; }
   /// Reads every control back from the document's campaign.
   void refresh();
+  /// Shows the encoding-scale scan of the latest margin check.
+  void set_scale_scan(const std::vector<ScalePoint>& scan, double advised);
+  void clear_scale_scan();
 
  signals:
   void import_requested();
@@ -63,7 +67,6 @@ class EditorPanel : public QWidget {
                     std::function<void(Campaign&, int)> set);
   void apply_preset();
   void scale_encoding(double factor);
-  void suggest_scale();
   void refresh_encoding_table();
   void refresh_detectors();
 
@@ -84,6 +87,8 @@ class EditorPanel : public QWidget {
   QDoubleSpinBox* phi_high_;
   QDoubleSpinBox* scale_;
   QLabel* scale_advice_;
+  QPushButton* use_advice_;
+  double advised_scale_ = 1.0;
   QTableWidget* weights_;
   QLabel* window_info_;
 };

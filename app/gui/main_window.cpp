@@ -35,6 +35,8 @@
 #include "formats/plan_files.h"
 #include "gram_view.h"
 #include "gramline/demo.h"
+#include "gui_text.h"
+#include "margin_runner.h"
 #include "margin_view.h"
 #include "plan_runner.h"
 #include "steps_view.h"
@@ -55,6 +57,7 @@ MainWindow::MainWindow(QWidget* parent) : QMainWindow(parent) {
   setWindowIcon(app_icon());
   document_ = new CampaignDocument(this);
   runner_ = new PlanRunner(this);
+  margin_runner_ = new MarginRunner(this);
 
   summary_ = new SummaryView;
   steps_ = new StepsView;
@@ -101,6 +104,8 @@ MainWindow::MainWindow(QWidget* parent) : QMainWindow(parent) {
     if (confirm_discard()) load_demo();
   });
   connect(runner_, &PlanRunner::stale, this, [this] {
+    margin_runner_->cancel();
+    editor_->clear_scale_scan();
     set_all_stale(true, tr("Recomputing: the figures below belong to the campaign before your "
                            "last edit."));
   });
@@ -120,6 +125,38 @@ MainWindow::MainWindow(QWidget* parent) : QMainWindow(parent) {
     status_->setText(tr("Planning cancelled. Edit anything, or press F5, to plan again."));
     set_all_stale(true, tr("Planning was cancelled: the figures below belong to an older "
                            "campaign. Press F5 to plan again."));
+  });
+
+  connect(margin_runner_, &MarginRunner::started, this, [this] {
+    margin_status_->setText(tr("Margin check…"));
+    margin_status_->show();
+    margin_progress_->setValue(0);
+    margin_progress_->show();
+    margin_cancel_->show();
+    margin_->set_status(
+        tr("<b>Margin check running…</b> Simulating the measurement many times "
+           "with the planned pairs; progress is shown at the bottom right."));
+    summary_->set_margin_verdict(tr("Margin check: running…"), false);
+  });
+  connect(margin_runner_, &MarginRunner::progress, this,
+          [this](double f) { margin_progress_->setValue(static_cast<int>(f * 1000.0)); });
+  connect(margin_runner_, &MarginRunner::finished, this, &MainWindow::on_margin_finished);
+  const auto margin_done = [this] {
+    margin_status_->hide();
+    margin_progress_->hide();
+    margin_cancel_->hide();
+  };
+  connect(margin_runner_, &MarginRunner::failed, this, [this, margin_done](const QString& m) {
+    margin_done();
+    margin_->set_status(tr("<b>Margin check failed:</b> %1").arg(m.toHtmlEscaped()));
+    summary_->set_margin_verdict(tr("Margin check failed: %1").arg(m), false);
+  });
+  connect(margin_runner_, &MarginRunner::cancelled, this, [this, margin_done] {
+    margin_done();
+    if (!runner_->busy()) {
+      margin_->set_status(tr("<b>Margin check cancelled.</b> Press F5 to plan and check again."));
+      summary_->set_margin_verdict(tr("Margin check: cancelled."), false);
+    }
   });
 
   QSettings settings;
@@ -235,9 +272,23 @@ void MainWindow::build_status_bar() {
   cancel_->setAccessibleName(tr("Cancel planning"));
   cancel_->hide();
   connect(cancel_, &QPushButton::clicked, runner_, &PlanRunner::cancel);
+  margin_status_ = new QLabel;
+  margin_status_->hide();
+  margin_progress_ = new QProgressBar;
+  margin_progress_->setRange(0, 1000);
+  margin_progress_->setMaximumWidth(180);
+  margin_progress_->setAccessibleName(tr("Margin check progress"));
+  margin_progress_->hide();
+  margin_cancel_ = new QPushButton(tr("Stop Check"));
+  margin_cancel_->setAccessibleName(tr("Cancel the margin check"));
+  margin_cancel_->hide();
+  connect(margin_cancel_, &QPushButton::clicked, margin_runner_, &MarginRunner::cancel);
   statusBar()->addWidget(status_, 1);
   statusBar()->addPermanentWidget(progress_);
   statusBar()->addPermanentWidget(cancel_);
+  statusBar()->addPermanentWidget(margin_status_);
+  statusBar()->addPermanentWidget(margin_progress_);
+  statusBar()->addPermanentWidget(margin_cancel_);
 }
 
 void MainWindow::on_campaign_changed() {
@@ -262,6 +313,7 @@ void MainWindow::on_plan_finished(std::shared_ptr<const Plan> plan) {
   gram_->set_plan(plan, c);
   margin_->set_plan(plan, c);
   set_all_stale(false, QString());
+  margin_runner_->start(c, plan);
   if (!plan->summary.fits) {
     frames_[kSummary]->set_banner(tr("The plan needs more nights than allowed (%1). Allow more "
                                      "nights, loosen ε, or turn on “Scale pairs to fit”.")
@@ -271,6 +323,24 @@ void MainWindow::on_plan_finished(std::shared_ptr<const Plan> plan) {
   status_->setText(tr("Planned %1 steps in %2 ms.")
                        .arg(plan->steps.size())
                        .arg(static_cast<long>(plan->summary.plan_ms)));
+}
+
+void MainWindow::on_margin_finished() {
+  margin_status_->hide();
+  margin_progress_->hide();
+  margin_cancel_->hide();
+  const auto check = margin_runner_->check();
+  margin_->set_check(check, margin_runner_->grid());
+  if (!check) return;
+  QString line = check->verdict.pass ? tr("Margin check: pass") : tr("Margin check: fail");
+  line += tr(" (largest flip probability %1 %, median margin ratio %2)")
+              .arg(QLocale().toString(100.0 * check->trials.flip_probability_max.value, 'f', 2))
+              .arg(QLocale().toString(check->trials.margin_ratio_median.value, 'f', 3));
+  if (check->minimum_uniform.found)
+    line += tr("; the minimum budget needs %1 of counting")
+                .arg(duration_text(check->minimum_uniform.integration_s));
+  summary_->set_margin_verdict(line + QLatin1Char('.'), check->verdict.pass);
+  editor_->set_scale_scan(check->scale_scan, check->advised_scale);
 }
 
 void MainWindow::on_plan_failed(const QString& message) {
@@ -579,17 +649,16 @@ void MainWindow::take_screenshots(const QString& dir, const std::function<void(b
     editor_->pages()->setCurrentIndex(0);
     done(ok);
   };
-  if (runner_->plan() && !runner_->busy()) {
-    QTimer::singleShot(200, this, shoot);
-    return;
-  }
-  auto* once = new QObject(this);
-  const auto fire = [once, shoot] {
-    once->deleteLater();
-    QTimer::singleShot(200, shoot);
-  };
-  connect(runner_, &PlanRunner::finished, once, fire);
-  connect(runner_, &PlanRunner::failed, once, fire);
+  // Wait until the plan and its margin check are done, polling so a failed plan also ends.
+  auto* poll = new QTimer(this);
+  poll->setInterval(200);
+  connect(poll, &QTimer::timeout, this, [this, poll, shoot] {
+    if (runner_->busy() || margin_runner_->busy()) return;
+    poll->stop();
+    poll->deleteLater();
+    shoot();
+  });
+  poll->start();
 }
 
 }  // namespace gramline::gui

@@ -22,6 +22,7 @@ class CampaignDocument;
 class EditorPanel;
 class GramView;
 class MarginView;
+class MarginRunner;
 class PlanRunner;
 class StepsView;
 class SummaryView;
@@ -39,6 +40,8 @@ class MainWindow : public QMainWindow {
 
   CampaignDocument* document() const { return document_; }
   PlanRunner* runner() const { return runner_; }
+  MarginRunner* margin_runner() const { return margin_runner_; }
+  MarginView* margin_view() const { return margin_; }
   SummaryView* summary_view() const { return summary_; }
   StepsView* steps_view() const { return steps_; }
   EditorPanel* editor() const { return editor_; }
@@ -66,6 +69,7 @@ class MainWindow : public QMainWindow {
   void on_campaign_changed();
   void on_plan_finished(std::shared_ptr<const Plan> plan);
   void on_plan_failed(const QString& message);
+  void on_margin_finished();
   void set_all_stale(bool stale, const QString& message);
   void update_title();
   bool confirm_discard();
@@ -85,6 +89,10 @@ class MainWindow : public QMainWindow {
 
   CampaignDocument* document_;
   PlanRunner* runner_;
+  MarginRunner* margin_runner_;
+  QProgressBar* margin_progress_;
+  QPushButton* margin_cancel_;
+  QLabel* margin_status_;
   EditorPanel* editor_ = nullptr;
   QTabWidget* tabs_;
   ViewFrame* frames_[kViewCount] = {};

@@ -1,113 +1,416 @@
 #include "margin_view.h"
 
+#include <QBarCategoryAxis>
+#include <QBarSet>
 #include <QChart>
 #include <QChartView>
+#include <QCoreApplication>
+#include <QGridLayout>
+#include <QHeaderView>
 #include <QLabel>
-#include <QScatterSeries>
+#include <QMouseEvent>
+#include <QPainter>
+#include <QPainterPath>
+#include <QScrollArea>
+#include <QSplitter>
+#include <QStackedBarSeries>
+#include <QTableWidget>
+#include <QToolTip>
 #include <QVBoxLayout>
 #include <QValueAxis>
+#include <algorithm>
+#include <cmath>
 
 #include "chart_style.h"
+#include "gui_text.h"
 
 namespace gramline::gui {
 
+namespace {
+
+QColor class_colour(int label) {
+  return label > 0 ? work_colour::park() : work_colour::reference();
+}
+
+QString percent(double fraction, int decimals = 1) {
+  return QCoreApplication::translate("gramline::gui", "%1 %")
+      .arg(number_text(100.0 * fraction, decimals));
+}
+
+}  // namespace
+
+DecisionMap::DecisionMap(QWidget* parent) : QWidget(parent) {
+  setMouseTracking(true);
+  setMinimumSize(280, 280);
+  setAccessibleName(tr("Data and decision boundary"));
+}
+
+void DecisionMap::set_content(const Campaign& campaign, std::shared_ptr<const MarginCheck> check,
+                              std::shared_ptr<const DecisionGrid> grid) {
+  campaign_ = campaign;
+  check_ = std::move(check);
+  grid_ = std::move(grid);
+  const DataSet& d = campaign_.data;
+  shade_ = QImage();
+  if (grid_ && grid_->size > 1) {
+    x_low_ = grid_->x_low;
+    x_high_ = grid_->x_high;
+    y_low_ = grid_->y_low;
+    y_high_ = grid_->y_high;
+    const int n = grid_->size;
+    shade_ = QImage(n, n, QImage::Format_ARGB32);
+    const QColor base = palette().color(QPalette::Base);
+    for (int r = 0; r < n; ++r) {
+      for (int c = 0; c < n; ++c) {
+        const double f = grid_->values(r * n + c);
+        QColor tint = class_colour(f > 0 ? 1 : -1);
+        const double a = 0.22;
+        QColor mixed = QColor::fromRgbF(base.redF() * (1 - a) + tint.redF() * a,
+                                        base.greenF() * (1 - a) + tint.greenF() * a,
+                                        base.blueF() * (1 - a) + tint.blueF() * a);
+        shade_.setPixelColor(c, n - 1 - r, mixed);  // row 0 is y_low: bottom of the image
+      }
+    }
+  } else if (d.train_count() > 0 && d.feature_count() >= 1) {
+    const int fy = d.feature_count() >= 2 ? 1 : 0;
+    x_low_ = std::min(d.train.col(0).minCoeff(), d.test_count() ? d.test.col(0).minCoeff() : 1e300);
+    x_high_ =
+        std::max(d.train.col(0).maxCoeff(), d.test_count() ? d.test.col(0).maxCoeff() : -1e300);
+    y_low_ =
+        std::min(d.train.col(fy).minCoeff(), d.test_count() ? d.test.col(fy).minCoeff() : 1e300);
+    y_high_ =
+        std::max(d.train.col(fy).maxCoeff(), d.test_count() ? d.test.col(fy).maxCoeff() : -1e300);
+    const double px = 0.06 * std::max(1e-9, x_high_ - x_low_),
+                 py = 0.06 * std::max(1e-9, y_high_ - y_low_);
+    x_low_ -= px;
+    x_high_ += px;
+    y_low_ -= py;
+    y_high_ += py;
+  }
+  update();
+}
+
+QRectF DecisionMap::plot_rect() const {
+  const double fh = fontMetrics().height();
+  QRectF area = QRectF(rect()).adjusted(fh * 2.2, fh * 0.5, -fh * 0.5, -fh * 2.2);
+  const double side = std::min(area.width(), area.height());
+  return QRectF(area.left(), area.top(), side, side);
+}
+
+QPointF DecisionMap::to_screen(double x, double y) const {
+  const QRectF r = plot_rect();
+  return {r.left() + (x - x_low_) / (x_high_ - x_low_) * r.width(),
+          r.bottom() - (y - y_low_) / (y_high_ - y_low_) * r.height()};
+}
+
+void DecisionMap::paintEvent(QPaintEvent*) {
+  QPainter p(this);
+  p.setRenderHint(QPainter::Antialiasing);
+  p.fillRect(rect(), palette().color(QPalette::Base));
+  const DataSet& d = campaign_.data;
+  if (d.train_count() == 0) return;
+  const QRectF r = plot_rect();
+  if (!shade_.isNull()) {
+    p.drawImage(r,
+                shade_.scaled(r.size().toSize(), Qt::IgnoreAspectRatio, Qt::SmoothTransformation));
+    // The boundary f = 0: cells whose sign differs from a neighbour's.
+    const int n = grid_->size;
+    QPen pen(palette().color(QPalette::Text), 2.0);
+    p.setPen(pen);
+    const double cw = r.width() / (n - 1), ch = r.height() / (n - 1);
+    for (int row = 0; row < n; ++row) {
+      for (int c = 0; c < n; ++c) {
+        const double f = grid_->values(row * n + c);
+        // Linear interpolation of the zero crossing along x and along y.
+        if (c + 1 < n) {
+          const double g = grid_->values(row * n + c + 1);
+          if ((f > 0) != (g > 0)) {
+            const double t = f / (f - g);
+            const QPointF a(r.left() + (c + t) * cw, r.bottom() - row * ch);
+            p.drawPoint(a);
+          }
+        }
+        if (row + 1 < n) {
+          const double g = grid_->values((row + 1) * n + c);
+          if ((f > 0) != (g > 0)) {
+            const double t = f / (f - g);
+            const QPointF a(r.left() + c * cw, r.bottom() - (row + t) * ch);
+            p.drawPoint(a);
+          }
+        }
+      }
+    }
+  }
+  p.setPen(palette().color(QPalette::Mid));
+  p.setBrush(Qt::NoBrush);
+  p.drawRect(r);
+  // Axis labels: feature names and the ends of each range.
+  p.setPen(palette().color(QPalette::Text));
+  const auto name = [&](int f) {
+    return f < static_cast<int>(d.feature_names.size()) ? QString::fromStdString(d.feature_names[f])
+                                                        : tr("feature %1").arg(f);
+  };
+  const double fh = fontMetrics().height();
+  p.drawText(QRectF(r.left(), r.bottom() + 2, r.width(), fh), Qt::AlignHCenter, name(0));
+  p.drawText(QRectF(r.left(), r.bottom() + 2, r.width(), fh), Qt::AlignLeft,
+             number_text(x_low_, 2));
+  p.drawText(QRectF(r.left(), r.bottom() + 2, r.width(), fh), Qt::AlignRight,
+             number_text(x_high_, 2));
+  if (d.feature_count() >= 2) {
+    p.save();
+    p.translate(r.left() - 4, r.bottom());
+    p.rotate(-90);
+    p.drawText(QRectF(0, -fh, r.height(), fh), Qt::AlignHCenter, name(1));
+    p.drawText(QRectF(0, -fh, r.height(), fh), Qt::AlignLeft, number_text(y_low_, 2));
+    p.drawText(QRectF(0, -fh, r.height(), fh), Qt::AlignRight, number_text(y_high_, 2));
+    p.restore();
+  }
+  const int fy = d.feature_count() >= 2 ? 1 : 0;
+  // Training points: filled circles (class +1) and squares (class -1).
+  for (int i = 0; i < d.train_count(); ++i) {
+    const QPointF s = to_screen(d.train(i, 0), d.train(i, fy));
+    const QColor col = class_colour(d.train_labels(i));
+    p.setPen(QPen(col.darker(150), 1));
+    p.setBrush(col);
+    if (d.train_labels(i) > 0)
+      p.drawEllipse(s, 4.5, 4.5);
+    else
+      p.drawRect(QRectF(s.x() - 4, s.y() - 4, 8, 8));
+  }
+  // Test points: diamonds, outline by true class, fill by flip probability.
+  const double worst = 0.5;  // a flip probability of 1/2 is a coin toss
+  for (int i = 0; i < d.test_count(); ++i) {
+    const QPointF s = to_screen(d.test(i, 0), d.test(i, fy));
+    QPainterPath diamond;
+    diamond.moveTo(s + QPointF(0, -7));
+    diamond.lineTo(s + QPointF(7, 0));
+    diamond.lineTo(s + QPointF(0, 7));
+    diamond.lineTo(s + QPointF(-7, 0));
+    diamond.closeSubpath();
+    QColor fill = palette().color(QPalette::Base);
+    if (check_ && static_cast<std::size_t>(i) < check_->trials.points.size())
+      fill =
+          heat_colour(1.0 - std::min(1.0, check_->trials.points[i].flip_probability.value / worst));
+    p.setPen(QPen(class_colour(d.test_labels(i)).darker(130), 2.0));
+    p.setBrush(fill);
+    p.drawPath(diamond);
+  }
+}
+
+void DecisionMap::mouseMoveEvent(QMouseEvent* event) {
+  const DataSet& d = campaign_.data;
+  const QPointF pos = event->position();
+  const int fy = d.feature_count() >= 2 ? 1 : 0;
+  for (int i = 0; i < d.test_count(); ++i) {
+    const QPointF s = to_screen(d.test(i, 0), d.test(i, fy));
+    if (QLineF(s, pos).length() > 8) continue;
+    QString text =
+        tr("<b>Test point %1</b> (point %2), class %3")
+            .arg(i)
+            .arg(d.train_count() + i)
+            .arg(QString::fromStdString(d.test_labels(i) > 0 ? d.positive_name : d.negative_name));
+    if (check_ && static_cast<std::size_t>(i) < check_->trials.points.size()) {
+      const TestPointOutcome& o = check_->trials.points[i];
+      text += tr("<br>noiseless f = %1<br>flip probability %2 (%3 – %4)")
+                  .arg(number_text(o.decision_ideal, 3))
+                  .arg(percent(o.flip_probability.value, 2))
+                  .arg(percent(o.flip_probability.low, 2))
+                  .arg(percent(o.flip_probability.high, 2));
+    }
+    QToolTip::showText(event->globalPosition().toPoint(), text, this);
+    return;
+  }
+  QToolTip::hideText();
+}
+
 MarginView::MarginView(QWidget* parent) : QWidget(parent) {
-  status_ = new QLabel;
-  status_->setWordWrap(true);
-  status_->setAccessibleName(tr("Margin check status"));
-  points_view_ = new QChartView;
-  points_view_->setRenderHint(QPainter::Antialiasing);
-  points_view_->setAccessibleName(tr("Data in two dimensions"));
+  map_ = new DecisionMap;
+  verdict_ = new QLabel;
+  verdict_->setWordWrap(true);
+  verdict_->setTextFormat(Qt::RichText);
+  verdict_->setAccessibleName(tr("Margin verdict"));
+  figures_ = new QLabel;
+  figures_->setWordWrap(true);
+  figures_->setTextInteractionFlags(Qt::TextSelectableByMouse);
+  budget_ = new QLabel;
+  budget_->setWordWrap(true);
+  budget_->setTextInteractionFlags(Qt::TextSelectableByMouse);
+  allocations_ = new QTableWidget;
+  allocations_->setAccessibleName(tr("Pairs shared by strategy"));
+  allocations_->setEditTriggers(QAbstractItemView::NoEditTriggers);
+  allocations_->verticalHeader()->setVisible(false);
+  allocations_->horizontalHeader()->setStretchLastSection(true);
+  allocations_->setMaximumHeight(fontMetrics().height() * 7);
+  ratio_view_ = new QChartView;
+  ratio_view_->setRenderHint(QPainter::Antialiasing);
+  ratio_view_->setAccessibleName(tr("Distribution of the margin ratio"));
+  ratio_view_->setMinimumHeight(220);
+
+  auto* legend =
+      new QLabel(tr("Circles and squares: training points of each class. Diamonds: "
+                    "test points, outlined by class, filled pale when they keep their "
+                    "side and dark when noise flips them. The line is the noiseless "
+                    "decision boundary."));
+  legend->setWordWrap(true);
+  legend->setForegroundRole(QPalette::PlaceholderText);
+  auto* left = new QWidget;
+  auto* ll = new QVBoxLayout(left);
+  ll->setContentsMargins(0, 0, 0, 0);
+  ll->addWidget(map_, 1);
+  ll->addWidget(legend);
+
+  auto* right = new QWidget;
+  auto* rl = new QVBoxLayout(right);
+  rl->setContentsMargins(0, 0, 0, 0);
+  rl->addWidget(verdict_);
+  rl->addWidget(figures_);
+  rl->addWidget(budget_);
+  rl->addWidget(allocations_);
+  rl->addWidget(ratio_view_, 1);
+  auto* scroll = new QScrollArea;
+  scroll->setWidget(right);
+  scroll->setWidgetResizable(true);
+  scroll->setFrameShape(QFrame::NoFrame);
+
+  auto* split = new QSplitter(Qt::Horizontal);
+  split->addWidget(left);
+  split->addWidget(scroll);
+  split->setStretchFactor(0, 1);
+  split->setStretchFactor(1, 1);
   auto* layout = new QVBoxLayout(this);
-  layout->addWidget(status_);
-  layout->addWidget(points_view_, 1);
-  status_->setText(
-      tr("<b>Margin check not computed.</b> This build has no margin check yet; "
-         "the chart shows the data only. The check will tell whether the "
-         "classifier trained on the measured kernel keeps its decisions despite "
-         "the predicted noise."));
+  layout->addWidget(split);
+  set_status(tr("The margin check runs after each plan."));
 }
 
 void MarginView::set_campaign(const Campaign& campaign) {
   campaign_ = campaign;
-  draw_points();
+  if (!check_) map_->set_content(campaign_, nullptr, nullptr);
 }
 
-void MarginView::set_plan(std::shared_ptr<const Plan>, const Campaign& campaign) {
+void MarginView::set_plan(std::shared_ptr<const Plan> plan, const Campaign& campaign) {
+  plan_ = std::move(plan);
   campaign_ = campaign;
-  draw_points();
+  check_.reset();
+  map_->set_content(campaign_, nullptr, nullptr);
+  figures_->clear();
+  budget_->clear();
+  allocations_->clear();
+  allocations_->setRowCount(0);
+  allocations_->hide();
+  draw_ratio_chart();
 }
 
-QString MarginView::status_text() const { return status_->text(); }
+void MarginView::set_status(const QString& text) { verdict_->setText(text); }
 
-void MarginView::draw_points() {
+QString MarginView::verdict_text() const { return verdict_->text(); }
+
+void MarginView::set_check(std::shared_ptr<const MarginCheck> check,
+                           std::shared_ptr<const DecisionGrid> grid) {
+  check_ = std::move(check);
+  map_->set_content(campaign_, check_, grid);
+  if (!check_) return;
+  const MarginCheck& m = *check_;
+  const TrialSummary& t = m.trials;
+  QString verdict = m.verdict.pass ? tr("<h3>Pass: the measured kernel keeps every decision.</h3>")
+                                   : tr("<h3>Fail: noise would change decisions.</h3>");
+  if (!m.verdict.reasons.empty()) {
+    verdict += QStringLiteral("<ul>");
+    for (const std::string& r : m.verdict.reasons)
+      verdict += QStringLiteral("<li>%1</li>").arg(QString::fromStdString(r).toHtmlEscaped());
+    verdict += QStringLiteral("</ul>");
+  }
+  verdict_->setText(verdict);
+  figures_->setText(
+      tr("Over %1 simulated runs with the planned pairs: largest flip probability of a test "
+         "point %2 (allowed %3); median accuracy %4; median margin ratio %5 (required %6); "
+         "PSD repair needed in %7 of runs. Classifier C = %8%9.")
+          .arg(t.trials)
+          .arg(percent(t.flip_probability_max.value, 2))
+          .arg(percent(campaign_.check.flip_threshold, 2))
+          .arg(percent(t.accuracy_median.value, 1))
+          .arg(number_text(t.margin_ratio_median.value, 3))
+          .arg(number_text(campaign_.check.margin_ratio_threshold, 2))
+          .arg(percent(t.psd_repair_fraction.value, 1))
+          .arg(number_text(m.C, 3))
+          .arg(m.C_from_cross_validation ? tr(" (chosen by cross-validation)") : QString()));
+  if (m.minimum_uniform.found) {
+    budget_->setText(
+        tr("<b>Minimum budget:</b> %1 pairs per entry, %2 of counting (the plan counts %3).")
+            .arg(count_text(m.minimum_uniform.pairs_per_entry))
+            .arg(duration_text(m.minimum_uniform.integration_s))
+            .arg(duration_text(m.plan_integration_s)));
+  } else if (m.minimum_uniform.evaluations > 0) {
+    budget_->setText(tr("<b>Minimum budget:</b> no budget in the searched range passes."));
+  } else {
+    budget_->setText(tr("<b>Minimum budget:</b> not searched."));
+  }
+  allocations_->clear();
+  allocations_->setColumnCount(4);
+  allocations_->setHorizontalHeaderLabels(
+      {tr("Share pairs"), tr("At the planned time"), tr("Largest flip"), tr("Counting needed")});
+  allocations_->setRowCount(static_cast<int>(m.allocations.size()));
+  for (std::size_t i = 0; i < m.allocations.size(); ++i) {
+    const AllocationOutcome& a = m.allocations[i];
+    const int r = static_cast<int>(i);
+    allocations_->setItem(r, 0, new QTableWidgetItem(allocation_text(a.strategy)));
+    allocations_->setItem(r, 1,
+                          new QTableWidgetItem(a.pass_at_plan_time ? tr("pass") : tr("fail")));
+    allocations_->setItem(r, 2, new QTableWidgetItem(percent(a.flip_probability_max, 2)));
+    allocations_->setItem(
+        r, 3,
+        new QTableWidgetItem(a.time_for_pass.found ? duration_text(a.time_for_pass.integration_s)
+                                                   : tr("not found")));
+  }
+  allocations_->resizeColumnsToContents();
+  allocations_->setVisible(!m.allocations.empty());
+  draw_ratio_chart();
+}
+
+void MarginView::draw_ratio_chart() {
   auto* chart = new QChart;
-  const DataSet& d = campaign_.data;
-  if (d.feature_count() >= 1 && d.train_count() > 0) {
-    const int fx = 0, fy = d.feature_count() >= 2 ? 1 : 0;
-    const QString name_x = QString::fromStdString(
-        fx < static_cast<int>(d.feature_names.size()) ? d.feature_names[fx] : "x0");
-    const QString name_y = QString::fromStdString(
-        fy < static_cast<int>(d.feature_names.size()) ? d.feature_names[fy] : "x1");
-    chart->setTitle(d.feature_count() > 2
-                        ? tr("Points by their first two features (of %1)").arg(d.feature_count())
-                        : tr("Points"));
-    const auto series = [](const QString& name, const QColor& colour,
-                           QScatterSeries::MarkerShape shape, double size) {
-      auto* s = new QScatterSeries;
-      s->setName(name);
-      s->setColor(colour);
-      s->setBorderColor(colour.darker(140));
-      s->setMarkerShape(shape);
-      s->setMarkerSize(size);
-      return s;
-    };
-    const QString pos = QString::fromStdString(d.positive_name);
-    const QString neg = QString::fromStdString(d.negative_name);
-    auto* train_pos = series(tr("training, %1").arg(pos), work_colour::park(),
-                             QScatterSeries::MarkerShapeCircle, 10);
-    auto* train_neg = series(tr("training, %1").arg(neg), work_colour::reference(),
-                             QScatterSeries::MarkerShapeRectangle, 9);
-    QColor pos_light = work_colour::park(), neg_light = work_colour::reference();
-    pos_light.setAlphaF(0.35);
-    neg_light.setAlphaF(0.35);
-    auto* test_pos =
-        series(tr("test, %1").arg(pos), pos_light, QScatterSeries::MarkerShapeTriangle, 12);
-    auto* test_neg =
-        series(tr("test, %1").arg(neg), neg_light, QScatterSeries::MarkerShapeTriangle, 12);
-    double xmin = 1e300, xmax = -1e300, ymin = 1e300, ymax = -1e300;
-    const auto add = [&](QScatterSeries* s, double x, double y) {
-      s->append(x, y);
-      xmin = std::min(xmin, x);
-      xmax = std::max(xmax, x);
-      ymin = std::min(ymin, y);
-      ymax = std::max(ymax, y);
-    };
-    for (int i = 0; i < d.train_count(); ++i)
-      add(d.train_labels(i) > 0 ? train_pos : train_neg, d.train(i, fx), d.train(i, fy));
-    for (int i = 0; i < d.test_count(); ++i)
-      add(d.test_labels(i) > 0 ? test_pos : test_neg, d.test(i, fx), d.test(i, fy));
-    auto* ax = new QValueAxis;
+  chart->setTitle(tr("Margin ratio over the simulated runs (noisy margin ÷ noiseless)"));
+  if (check_ && !check_->trials.margin_ratio.empty()) {
+    const std::vector<double>& v = check_->trials.margin_ratio;
+    const double lo =
+        std::min(*std::min_element(v.begin(), v.end()), campaign_.check.margin_ratio_threshold);
+    const double hi = std::max(*std::max_element(v.begin(), v.end()), 1.0);
+    const int bins = 24;
+    const double width = std::max(1e-9, (hi - lo) / bins);
+    std::vector<int> counts(bins, 0);
+    for (double x : v)
+      counts[static_cast<std::size_t>(std::clamp(int((x - lo) / width), 0, bins - 1))]++;
+    auto* below = new QBarSet(tr("below the required ratio"));
+    auto* above = new QBarSet(tr("runs"));
+    below->setColor(work_colour::moving());
+    above->setColor(work_colour::counting());
+    QStringList cats;
+    for (int b = 0; b < bins; ++b) {
+      const double centre = lo + (b + 0.5) * width;
+      const bool low = centre < campaign_.check.margin_ratio_threshold;
+      *below << (low ? counts[b] : 0);
+      *above << (low ? 0 : counts[b]);
+      cats << number_text(centre, 2);
+    }
+    auto* series = new QStackedBarSeries;
+    series->append(above);
+    series->append(below);
+    series->setBarWidth(0.95);
+    chart->addSeries(series);
+    auto* ax = new QBarCategoryAxis;
+    ax->append(cats);
+    ax->setLabelsAngle(-60);
     auto* ay = new QValueAxis;
-    const double px = 0.05 * std::max(1e-9, xmax - xmin), py = 0.05 * std::max(1e-9, ymax - ymin);
-    ax->setRange(xmin - px, xmax + px);
-    ay->setRange(ymin - py, ymax + py);
-    ax->setTitleText(name_x);
-    ay->setTitleText(name_y);
+    ay->setLabelFormat(QStringLiteral("%.0f"));
+    ay->setTitleText(tr("runs"));
     chart->addAxis(ax, Qt::AlignBottom);
     chart->addAxis(ay, Qt::AlignLeft);
-    for (QScatterSeries* s : {train_pos, train_neg, test_pos, test_neg}) {
-      chart->addSeries(s);
-      s->attachAxis(ax);
-      s->attachAxis(ay);
-    }
-    chart->legend()->setAlignment(Qt::AlignRight);
-  } else {
-    chart->setTitle(tr("No data"));
+    series->attachAxis(ax);
+    series->attachAxis(ay);
+    chart->legend()->setAlignment(Qt::AlignBottom);
   }
   style_chart(chart, palette());
-  QChart* old = points_view_->chart();
-  points_view_->setChart(chart);
+  QChart* old = ratio_view_->chart();
+  ratio_view_->setChart(chart);
   delete old;
 }
 

@@ -1,17 +1,45 @@
 #pragma once
-// Margin: the data in two dimensions and, once the margin check is computed, the decision
-// boundary, the flip probability of each test point, the margin-ratio distribution, the verdict
-// and the minimum budget.
+// Margin: the data in two dimensions with the noiseless decision boundary and the test points
+// coloured by flip probability; the margin-ratio distribution; the verdict and the minimum
+// budget. Every figure comes from the engine's margin check.
 #include <QWidget>
 #include <memory>
 
 #include "gramline/campaign.h"
+#include "gramline/margin.h"
 #include "gramline/plan.h"
+#include "margin_runner.h"
 
 class QChartView;
 class QLabel;
+class QTableWidget;
 
 namespace gramline::gui {
+
+/// The points over the sign of the noiseless decision function, drawn with QPainter.
+class DecisionMap : public QWidget {
+  Q_OBJECT
+
+ public:
+  explicit DecisionMap(QWidget* parent = nullptr);
+  void set_content(const Campaign& campaign, std::shared_ptr<const MarginCheck> check,
+                   std::shared_ptr<const DecisionGrid> grid);
+  QSize sizeHint() const override { return {440, 440}; }
+
+ protected:
+  void paintEvent(QPaintEvent* event) override;
+  void mouseMoveEvent(QMouseEvent* event) override;
+
+ private:
+  QRectF plot_rect() const;
+  QPointF to_screen(double x, double y) const;
+
+  Campaign campaign_;
+  std::shared_ptr<const MarginCheck> check_;
+  std::shared_ptr<const DecisionGrid> grid_;
+  QImage shade_;
+  double x_low_ = 0, x_high_ = 1, y_low_ = 0, y_high_ = 1;
+};
 
 class MarginView : public QWidget {
   Q_OBJECT
@@ -19,15 +47,25 @@ class MarginView : public QWidget {
  public:
   explicit MarginView(QWidget* parent = nullptr);
   void set_campaign(const Campaign& campaign);
+  /// A new plan: its margin check is pending.
   void set_plan(std::shared_ptr<const Plan> plan, const Campaign& campaign);
-  QString status_text() const;
+  void set_check(std::shared_ptr<const MarginCheck> check,
+                 std::shared_ptr<const DecisionGrid> grid);
+  void set_status(const QString& text);
+  QString verdict_text() const;
 
  private:
-  void draw_points();
+  void draw_ratio_chart();
 
   Campaign campaign_;
-  QChartView* points_view_;
-  QLabel* status_;
+  std::shared_ptr<const Plan> plan_;
+  std::shared_ptr<const MarginCheck> check_;
+  DecisionMap* map_;
+  QLabel* verdict_;
+  QLabel* figures_;
+  QLabel* budget_;
+  QTableWidget* allocations_;
+  QChartView* ratio_view_;
 };
 
 }  // namespace gramline::gui

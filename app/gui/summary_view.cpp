@@ -1,7 +1,9 @@
 #include "summary_view.h"
 
+#include <QFontDatabase>
 #include <QFrame>
 #include <QGridLayout>
+#include <QHash>
 #include <QLabel>
 #include <QPlainTextEdit>
 #include <QScrollArea>
@@ -119,9 +121,13 @@ void SummaryView::set_plan(std::shared_ptr<const Plan> plan, const Campaign& cam
   };
   const int allowed = campaign.nights.max_nights;
   if (s.fits) {
-    verdict_->setText(tr("Fits: %n night(s) of %1 allowed, done by %2.", "", s.nights)
-                          .arg(allowed)
-                          .arg(clock_text(campaign.nights, s.total_s)));
+    const QString end = clock_text(campaign.nights, s.total_s);
+    verdict_->setText(
+        s.nights == 1 ? tr("Fits in one night (of %1 allowed), done by %2.").arg(allowed).arg(end)
+                      : tr("Fits in %1 nights (of %2 allowed), done by %3.")
+                            .arg(s.nights)
+                            .arg(allowed)
+                            .arg(end));
   } else {
     verdict_->setText(tr("Does not fit in %1 nights: more nights, fewer pairs or a looser "
                          "precision are needed.")
@@ -155,7 +161,12 @@ void SummaryView::set_plan(std::shared_ptr<const Plan> plan, const Campaign& cam
           .arg(number_text(plan->gram_error.sigma_max, 4))
           .arg(number_text(plan->gram_error.spectral_estimate, 4)));
   set("negative", tr("%1 %").arg(number_text(100.0 * plan->gram_error.p_negative_eigenvalue, 2)),
-      tr("smallest ideal eigenvalue %1").arg(number_text(plan->gram_error.min_eigenvalue, 4)));
+      std::abs(plan->gram_error.min_eigenvalue) < 1e-3
+          ? tr("the ideal matrix is nearly singular (smallest eigenvalue %1), so noise almost "
+               "surely makes one negative; the margin check repairs this")
+                .arg(QLocale().toString(plan->gram_error.min_eigenvalue, 'g', 2))
+          : tr("smallest ideal eigenvalue %1")
+                .arg(number_text(plan->gram_error.min_eigenvalue, 4)));
   set("pairs", count_text(s.pairs_total),
       s.epsilon_reached > 0
           ? tr("kernel half-width reached ±%1").arg(number_text(s.epsilon_reached, 4))

@@ -1,5 +1,6 @@
 #pragma once
 // Summary: the few figures checked before booking the lab.
+#include <QHash>
 #include <QWidget>
 #include <memory>
 
@@ -11,8 +12,6 @@ class QGridLayout;
 class QPlainTextEdit;
 
 namespace gramline::gui {
-
-struct MarginOutcome;
 
 class SummaryView : public QWidget {
   Q_OBJECT
