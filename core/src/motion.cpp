@@ -70,13 +70,15 @@ std::vector<double> equivalent_positions_deg(const Motor& motor, double target_d
     lo = motor.range->low_deg;
     hi = motor.range->high_deg;
   }
-  std::vector<double> out;
-  const double k0 = std::ceil((lo - target_deg) / period);
-  for (double k = k0;; k += 1.0) {
-    const double y = target_deg + k * period;
-    if (y > hi) break;
-    if (y >= lo) out.push_back(y);
+  const double k_lo = std::ceil((lo - target_deg) / period);
+  const double k_hi = std::floor((hi - target_deg) / period);
+  // Counted up front: stepping k one by one never ends where k + 1 == k (huge ranges).
+  if (!(k_hi - k_lo < 1e6)) {
+    throw std::invalid_argument("motor " + motor.name +
+                                ": travel range too wide to list its equivalent positions");
   }
+  std::vector<double> out;
+  for (double k = k_lo; k <= k_hi; k += 1.0) out.push_back(target_deg + k * period);
   return out;
 }
 
@@ -96,23 +98,30 @@ double nearest_equivalent_deg(const Motor& motor, double target_deg, double from
   }
   const double lo = motor.range->low_deg;
   const double hi = motor.range->high_deg;
-  double best = 0.0;
-  double best_s = -1.0;
   const double k = std::round((from_deg - target_deg) / period);
   if (std::abs(target_deg + k * period - from_deg) <= 1e-9 && from_deg >= lo && from_deg <= hi) {
     return from_deg;
   }
-  for (double y = target_deg + std::ceil((lo - target_deg) / period) * period; y <= hi;
-       y += period) {
+  const double k_lo = std::ceil((lo - target_deg) / period);
+  const double k_hi = std::floor((hi - target_deg) / period);
+  if (!(k_lo <= k_hi)) {
+    throw std::invalid_argument("motor " + motor.name + ": no position equivalent to " +
+                                std::to_string(target_deg) + " deg inside its travel range");
+  }
+  // Moving farther in one direction never takes less time (T grows with distance, and the
+  // from-below penalty only depends on the direction), so the best position is the nearest
+  // equivalent at or above the motor or the nearest below it, both clamped into the range.
+  // Candidates are visited in ascending order: ties go to the lower position.
+  const double k_here = std::floor((from_deg - target_deg) / period);
+  double best = 0.0;
+  double best_s = -1.0;
+  for (double dk = -1.0; dk <= 2.0; dk += 1.0) {
+    const double y = target_deg + std::clamp(k_here + dk, k_lo, k_hi) * period;
     const double s = motor_move_s(motor, from_deg, y);
     if (best_s < 0.0 || s < best_s) {
       best = y;
       best_s = s;
     }
-  }
-  if (best_s < 0.0) {
-    throw std::invalid_argument("motor " + motor.name + ": no position equivalent to " +
-                                std::to_string(target_deg) + " deg inside its travel range");
   }
   return best;
 }

@@ -84,7 +84,12 @@ class TimelineBuilder {
         pending.clear();
         std::vector<double> p = pos;
         const bool ref_due = ref_every_s > 0.0 && t - last_ref_s >= ref_every_s;
-        if (ref_due) pending.push_back(reference_step(prepared, p, scale));
+        // A reference due before any measure step of the plan (the night's opening steps
+        // outlasted the interval) is taken on the point this measure step prepares.
+        if (ref_due) {
+          const int ref_point = prepared >= 0 ? prepared : model_.prep_point(order_[k]);
+          pending.push_back(reference_step(ref_point, p, scale));
+        }
         pending.push_back(measure_step(k, p, scale));
         double dur = 0.0;
         for (const Step& s : pending) dur += s.move_s + s.dwell_s;
@@ -201,11 +206,54 @@ std::vector<NightUse> night_use(const std::vector<Step>& steps, int nights, doub
   return use;
 }
 
+std::string seconds_text(double s) {
+  std::ostringstream o;
+  o << s << " s";
+  return o.str();
+}
+
+/// Refuses durations that no night can hold (or that are not numbers at all) with a message
+/// naming the campaign field, before any timeline is laid: a step longer than the nightly
+/// window can never be placed, and non-finite times would poison every sum after them.
+void check_durations(const ScheduleInput& in) {
+  const double window_s = in.nights.length_s();
+  const std::string longer = " is longer than the nightly window (" + seconds_text(window_s) + ")";
+  auto check = [&](const std::string& field, double value_s) {
+    if (!(value_s >= 0.0) || !std::isfinite(value_s)) {
+      throw std::invalid_argument(field + ": " + seconds_text(value_s) +
+                                  " is not a usable duration");
+    }
+    if (value_s > window_s)
+      throw std::invalid_argument(field + ": " + seconds_text(value_s) + longer);
+  };
+  const Controller& ctl = in.rig->controller;
+  check("rig.controller.settle_s", ctl.settle_s);
+  check("rig.controller.overhead_s", ctl.overhead_s);
+  check("rig.controller: settle_s + overhead_s", ctl.settle_s + ctl.overhead_s);
+  if (in.settings.dark_steps) check("schedule.dark_dwell_s", in.settings.dark_dwell_s);
+  const double rate = in.pair_detect_rate_per_s;
+  const bool counts = rate > 0.0;  // the timeline gives no dwell without a pair rate
+  if (counts && in.settings.reference_interval_min > 0.0 && in.reference_pairs > 0.0) {
+    check("schedule.reference_pairs (a reference step's counting time)", in.reference_pairs / rate);
+  }
+  // Fit to nights scales the entries' pairs down, at most by the search's smallest factor.
+  const double least_scale = in.settings.fit_to_nights ? 1e-9 : 1.0;
+  for (const EntryRequest& e : in.entries) {
+    std::ostringstream field;
+    field << "precision (the pairs of kernel entry " << e.a << "/" << e.b << ": " << e.pairs
+          << " at " << rate << " pairs/s; see precision.fixed_pairs, the precision goal and the "
+          << "rig's rates)";
+    // Also covers references without pairs of their own: they count the mean entry's pairs.
+    check(field.str(), e.dwell_s * least_scale);
+  }
+}
+
 }  // namespace
 
 ScheduleResult build_schedule(const ScheduleInput& input, const ScheduleOptions& options) {
   ScheduleResult result;
   const MoveModel model(input);
+  check_durations(input);
   options.hooks.report(0.0);
   const SideCosts costs = compute_side_costs(model);
   options.hooks.throw_if_cancelled();

@@ -2,8 +2,11 @@
 #include <gtest/gtest.h>
 
 #include <algorithm>
+#include <limits>
 #include <map>
 #include <random>
+#include <stdexcept>
+#include <string>
 
 #include "gramline/motion.h"
 #include "gramline/schedule.h"
@@ -320,4 +323,52 @@ TEST(Schedule, CancelThrows) {
   ScheduleOptions opt;
   opt.hooks.cancel = &flag;
   EXPECT_THROW(build_schedule(in, opt), Cancelled);
+}
+
+TEST(Schedule, ReferenceDueBeforeTheFirstMeasureStepUsesARealPoint) {
+  const Rig rig = make_rig(RigShape{2});
+  ScheduleInput in = make_input(rig, 2, 5, 1, 3);
+  in.settings.reference_interval_min = 1.0;
+  in.reference_pairs = 120000.0;  // 120 s per reference at 1000 pairs/s: longer than 1 min
+  in.settings.dark_steps = true;
+  in.settings.park = true;
+  const ScheduleResult r = build_schedule(in, ScheduleOptions{});
+  int references = 0;
+  for (const Step& s : r.steps) {
+    if (s.kind != StepKind::reference) continue;
+    ++references;
+    ASSERT_GE(s.prep_point, 0);
+    EXPECT_EQ(s.prep_point, s.analysis_point);
+  }
+  // Every measure step is preceded by a due reference, plus the night's opening one.
+  EXPECT_EQ(references, static_cast<int>(in.entries.size()) + 1);
+  expect_moves_recomputable(rig, r.steps);
+}
+
+TEST(Schedule, AbsurdDurationsAreRefusedNamingTheField) {
+  auto message = [](const ScheduleInput& in) -> std::string {
+    try {
+      build_schedule(in, ScheduleOptions{});
+    } catch (const std::invalid_argument& e) {
+      return e.what();
+    }
+    return "";
+  };
+  Rig rig = make_rig(RigShape{1});
+  const ScheduleInput in = make_input(rig, 1, 4, 0, 1);
+  rig.controller.settle_s = 1e6;  // longer than any night
+  EXPECT_NE(message(in).find("rig.controller.settle_s"), std::string::npos) << message(in);
+  rig.controller.settle_s = 0.5;
+  rig.controller.overhead_s = std::numeric_limits<double>::infinity();
+  EXPECT_NE(message(in).find("rig.controller.overhead_s"), std::string::npos) << message(in);
+  rig.controller.overhead_s = 0.1;
+  ScheduleInput huge = in;
+  huge.entries[2].pairs = 1e308;
+  huge.entries[2].dwell_s = 1e308 / huge.pair_detect_rate_per_s;
+  EXPECT_NE(message(huge).find("precision"), std::string::npos) << message(huge);
+  huge = in;
+  huge.settings.reference_interval_min = 20.0;
+  huge.reference_pairs = 1e308;
+  EXPECT_NE(message(huge).find("schedule.reference_pairs"), std::string::npos) << message(huge);
+  EXPECT_EQ(message(in), "");
 }
