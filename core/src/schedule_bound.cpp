@@ -1,52 +1,145 @@
 // Lower bound on the measure steps' move time, and the exact solver for tiny instances.
 //
-// Why the bound holds. Every measure step s (prepare p, analyse a) is entered from exactly one
-// configuration: the initial positions (first step of a night, also after a park), another
-// measure step, a reference step (a diagonal setting i/i) or a dark step (which keeps the
-// positions of whatever came before it). Whatever it is, its prepared point q and analysed
-// point r cannot both equal p and a (each entry is measured once, and p != a), so:
-//  - if q = p, the analysis side changes, and the joined motor time is at least the cheapest
-//    analysis move into a from any other point, nnA(a);
-//  - if r = a, likewise at least nnP(p);
-//  - otherwise both sides change and the joined time (max or sum) is at least either one;
-//  - from the initial positions it is the move from there.
-// Each side's cost is itself a lower bound: every group (one stage of one photon) takes its
-// cheapest pair of discrete solutions, and every motor its angle distance modulo the plate
-// period, which no range can shorten. The step time (settle if moved, overhead always) grows
-// with the joined motor time, so summing the per-step minima over the cheaper orientation of
-// each entry bounds any order, with any reference, dark or park steps interleaved.
+// Notation. A configuration is a (prepared point, analysed point) pair, or the start positions,
+// or the park (initial) positions. c(x -> y) is the true step time (SPEC section 2) between
+// configurations. For a measure setting s = (p, a) (p != a) the relaxed cost of a move from
+// (q, r) is l(q, r -> s) = step_s(join(cP(q, p), cA(r, a))), where cP / cA are the side costs
+// of compute_side_costs: per group the cheapest pair of discrete solutions, per motor the angle
+// distance modulo the plate period (no range can shorten it, no backlash rule can beat it).
+// The joined time (max or sum) of all motors is the join of the two sides' joined times, each
+// side is at least its relaxed cost, and step_s (overhead always, settle when anything moved)
+// grows with the motor part, so c >= l for every move. Side costs are rounded down to float.
+//
+// (1) In-costs. Every measure step is entered from exactly one configuration: the start
+// positions (first step of the plan), the park positions (after a park step), another measure
+// setting, or a reference setting (i, i); a dark step keeps the positions before it. None of
+// them is s itself (each entry is measured once, p != a). A configuration (q, r) with q != p and
+// r != a costs at least both l(q, a -> s) and l(p, r -> s), since join(x, y) >= x, y. So the move
+// into s costs at least in_min(s): the least of l from the start, l from the park positions
+// (only when park steps are enabled) and l from every single-side neighbour (q, a), q != p, and
+// (p, r), r != a, over ALL points q, r (this covers references (p, p) and (a, a)).
+//
+// (2) Pairs of moves (the degree-two argument of TSP bounds). Let s_1..s_K be the measure steps
+// in schedule order and B the set of k whose next step is not a measure step (a reference,
+// dark or park step follows, or k = K); |B| >= 1. For k not in B the move of s_{k+1} is an
+// "out" move of s_k. Each measure step's move is counted once as an in-move and at most once as
+// an out-move, so 2 M >= sum_k in(s_k) + sum_{k not in B} out(s_k). For k not in B the
+// predecessor x and the successor y of s_k are different configurations (y is a measure setting
+// of another entry; x is the start, the park positions, a reference, or a third measure step),
+// and in(s_k) + out(s_k) >= pair_min(s_k) = min over x != y of l(x -> s_k) + l(s_k -> y). By the
+// domination in (1), applied to x and to y (if both would be replaced by the same configuration,
+// replace one by its other single-side choice), the minimum is reached with x and y among the
+// start, park and single-side neighbours, and then among the two cheapest single-side
+// neighbours on each side (in and out separately: costs from below are asymmetric) and the
+// start and park positions. With symmetric costs this is the sum of the two cheapest
+// neighbours, not twice the cheapest.
+//
+// (3) Per entry e, with both orientations allowed: I_e = min in_min, P_e = min pair_min; then
+// P_e >= I_e. Summing, 2 M >= sum_{e not in B} P_e + sum_{e in B} I_e >= sum_e P_e - D(|B|),
+// where D(b) is the sum of the b largest values of P_e - I_e over all entries. Hence
+//     M >= max( sum_e I_e,  (sum_e P_e - D(|B|)) / 2 ),
+// the first term by (1) alone. The bound holds for every order of the same measure steps, with
+// any orientation and solutions, in which at most |B| measure steps are followed by a
+// non-measure step or end the plan; build_schedule takes |B| from the realized timeline.
 #include <algorithm>
+#include <array>
+#include <cmath>
+#include <functional>
 #include <limits>
 #include <stdexcept>
 
 #include "schedule_internal.h"
 
 namespace gramline::sched {
+namespace {
 
-double measure_lower_bound_s(const MoveModel& model, const SideCosts& costs) {
+constexpr double kInf = std::numeric_limits<double>::infinity();
+
+/// A neighbour configuration of a setting (p, a), as a label and a relaxed cost. Labels:
+/// side * n + point for a single-side neighbour (the other side stays), -1 start, -2 park.
+struct Neighbour {
+  int label = -3;
+  double cost_s = kInf;
+};
+
+/// The two cheapest single-side neighbours of `point` on `side`, moving into it (`into`) or
+/// out of it, as relaxed step times.
+void two_cheapest(const MoveModel& model, const SideCosts& costs, int side, int point, bool into,
+                  Neighbour out[2]) {
+  out[0] = out[1] = Neighbour{};
+  for (int i = 0; i < costs.n; ++i) {
+    if (i == point) continue;
+    const double c = model.step_s(into ? costs.at(side, i, point) : costs.at(side, point, i));
+    const Neighbour nb{side * costs.n + i, c};
+    if (c < out[0].cost_s) {
+      out[1] = out[0];
+      out[0] = nb;
+    } else if (c < out[1].cost_s) {
+      out[1] = nb;
+    }
+  }
+}
+
+}  // namespace
+
+BoundTerms bound_terms(const MoveModel& model, const SideCosts& costs) {
   const int n = costs.n;
-  std::vector<double> nn[2];
+  const bool park = model.input().settings.park;
+  // [side][point][rank]
+  std::vector<std::array<Neighbour, 2>> in[2], out[2];
   for (int side = 0; side < 2; ++side) {
-    nn[side].assign(n, std::numeric_limits<double>::infinity());
+    in[side].resize(n);
+    out[side].resize(n);
     for (int j = 0; j < n; ++j) {
-      for (int i = 0; i < n; ++i) {
-        if (i != j) nn[side][j] = std::min(nn[side][j], costs.at(side, i, j));
-      }
+      two_cheapest(model, costs, side, j, true, in[side][j].data());
+      two_cheapest(model, costs, side, j, false, out[side][j].data());
     }
   }
-  double total = 0.0;
-  for (const EntryRequest& e : model.input().entries) {
-    double best = std::numeric_limits<double>::infinity();
+  BoundTerms terms;
+  const auto& entries = model.input().entries;
+  terms.in_min_s.resize(entries.size());
+  terms.pair_min_s.resize(entries.size());
+  for (std::size_t e = 0; e < entries.size(); ++e) {
+    double best_in = kInf, best_pair = kInf;
     for (int flip = 0; flip < 2; ++flip) {
-      const int p = flip ? e.b : e.a;
-      const int a = flip ? e.a : e.b;
-      double c = std::min(nn[0][p], nn[1][a]);
-      c = std::min(c, model.join(costs.initial[0][p], costs.initial[1][a]));
-      best = std::min(best, model.step_s(c));
+      const int p = flip ? entries[e].b : entries[e].a;
+      const int a = flip ? entries[e].a : entries[e].b;
+      Neighbour from[6] = {in[0][p][0], in[0][p][1], in[1][a][0], in[1][a][1]};
+      from[4] = Neighbour{-1, model.step_s(model.join(costs.start[0][p], costs.start[1][a]))};
+      if (park) {
+        from[5] = Neighbour{-2, model.step_s(model.join(costs.park[0][p], costs.park[1][a]))};
+      }
+      const Neighbour to[4] = {out[0][p][0], out[0][p][1], out[1][a][0], out[1][a][1]};
+      double in_min = kInf, pair_min = kInf;
+      for (const Neighbour& x : from) {
+        in_min = std::min(in_min, x.cost_s);
+        for (const Neighbour& y : to) {
+          if (x.label != y.label) pair_min = std::min(pair_min, x.cost_s + y.cost_s);
+        }
+      }
+      best_in = std::min(best_in, in_min);
+      best_pair = std::min(best_pair, pair_min);
     }
-    total += best;
+    // Two points leave no distinct successor only in degenerate inputs; then use (1) alone.
+    terms.in_min_s[e] = best_in;
+    terms.pair_min_s[e] = std::isfinite(best_pair) ? std::max(best_pair, best_in) : best_in;
   }
-  return total;
+  return terms;
+}
+
+double measure_lower_bound_s(const BoundTerms& terms, long breaks) {
+  double in_sum = 0.0, pair_sum = 0.0;
+  std::vector<double> excess(terms.in_min_s.size());
+  for (std::size_t e = 0; e < excess.size(); ++e) {
+    in_sum += terms.in_min_s[e];
+    pair_sum += terms.pair_min_s[e];
+    excess[e] = terms.pair_min_s[e] - terms.in_min_s[e];
+  }
+  const std::size_t b = std::min<std::size_t>(std::max(breaks, 1L), excess.size());
+  std::nth_element(excess.begin(), excess.begin() + b, excess.end(), std::greater<double>());
+  double dropped = 0.0;
+  for (std::size_t k = 0; k < b; ++k) dropped += excess[k];
+  return std::max(in_sum, 0.5 * (pair_sum - dropped));
 }
 
 }  // namespace gramline::sched
@@ -71,8 +164,8 @@ double exact_min_move_s(const ScheduleInput& input) {
   for (int u = 0; u < S; ++u) {
     double t0 = 0.0;
     for (int g = 0; g < G; ++g) {
-      t0 = model.join(
-          t0, model.group_from_initial_s(g, model.target(point(u, g), g, ((u % K) >> g) & 1)));
+      t0 = model.join(t0, model.group_from_s(g, model.start_deg(),
+                                             model.target(point(u, g), g, ((u % K) >> g) & 1)));
     }
     first[u] = model.step_s(t0);
     for (int w = 0; w < S; ++w) {

@@ -53,13 +53,17 @@ class MoveModel {
   double motor_angle_s(int motor, double from_deg, double to_deg) const;
   /// Joined time of a group's two motors between two plate pairs (angle model above).
   double group_s(int group, const PlatePair& from, const PlatePair& to) const;
-  /// Joined time of a group from the initial motor positions.
-  double group_from_initial_s(int group, const PlatePair& to) const;
+  /// Joined time of a group from physical motor positions (one per rig motor).
+  double group_from_s(int group, const std::vector<double>& from_deg, const PlatePair& to) const;
+  /// Where the first step starts: ScheduleInput::start_positions_deg, or initial_deg.
+  const std::vector<double>& start_deg() const { return start_deg_; }
+  /// Where a park step leaves the motors: every motor's initial_deg.
+  const std::vector<double>& park_deg() const { return park_deg_; }
 
   /// Lower bound on the joined motor time of one side when its point changes i -> j: each
   /// group takes its best pair of solutions (valid because groups choose independently).
   double side_s(int side, int from_point, int to_point) const;
-  double side_from_initial_s(int side, int to_point) const;
+  double side_from_s(int side, const std::vector<double>& from_deg, int to_point) const;
 
  private:
   const ScheduleInput* input_;
@@ -68,13 +72,15 @@ class MoveModel {
   double settle_s_ = 0.0;
   double overhead_s_ = 0.0;
   std::vector<int> hwp_, qwp_;
+  std::vector<double> start_deg_, park_deg_;
 };
 
 /// Dense point-to-point side costs (motor part only), lower bounds as in MoveModel::side_s.
 struct SideCosts {
   int n = 0;
-  std::vector<float> cost[2];     ///< [side][from * n + to]
-  std::vector<float> initial[2];  ///< [side][to]
+  std::vector<float> cost[2];   ///< [side][from * n + to]
+  std::vector<float> start[2];  ///< [side][to]: from the start positions
+  std::vector<float> park[2];   ///< [side][to]: from the park (initial) positions
   double at(int side, int from, int to) const { return cost[side][std::size_t(from) * n + to]; }
 };
 SideCosts compute_side_costs(const MoveModel& model);
@@ -87,7 +93,7 @@ double relaxed_order_s(const MoveModel& model, const SideCosts& costs,
                        const std::vector<Code>& order);
 
 /// Best choice of discrete solutions along a fixed order (dynamic programming over the joint
-/// solution of all groups, from the initial positions). Returns the total measure move time
+/// solution of all groups, from the start positions). Returns the total measure move time
 /// under the angle model, exact for continuous motors; `solutions_out` gets one bit mask per
 /// step (bit g: solution of group g). Requires at most 6 groups.
 double choose_solutions(const MoveModel& model, const std::vector<Code>& order,
@@ -101,11 +107,21 @@ std::vector<Code> naive_order(const ScheduleInput& input);
 std::vector<Code> optimized_order(const MoveModel& model, const SideCosts& costs,
                                   bool truncation_safe, const ScheduleOptions& options);
 
-/// Lower bound on the measure steps' move time (see schedule_bound.cpp for the argument).
-double measure_lower_bound_s(const MoveModel& model, const SideCosts& costs);
+/// Per-entry terms of the lower bound (schedule_bound.cpp states the argument): the cheapest
+/// move into the entry's setting, and the cheapest move in plus move out through it with two
+/// different neighbours; both over the better orientation, seconds.
+struct BoundTerms {
+  std::vector<double> in_min_s;
+  std::vector<double> pair_min_s;
+};
+BoundTerms bound_terms(const MoveModel& model, const SideCosts& costs);
 
-/// Physical positions along an order: each group takes the solution given (or, when
-/// `solutions` is empty, the one it reaches fastest), each motor the nearest equivalent.
+/// Proven lower bound on the measure steps' total move time for any order of them in which
+/// at most `breaks` measure steps are followed by a non-measure step or end the plan.
+double measure_lower_bound_s(const BoundTerms& terms, long breaks);
+
+/// Physical positions along an order from the start positions: each group takes the solution given
+/// (or, when `solutions` is empty, the one it reaches fastest), each motor the nearest equivalent.
 /// Returns the total move time under step_move_s.
 double realized_order_s(const MoveModel& model, const std::vector<Code>& order,
                         const std::vector<std::uint8_t>& solutions);

@@ -28,6 +28,18 @@ MoveModel::MoveModel(const ScheduleInput& input) : input_(&input) {
                                   " lacks a motor on its " + to_string(stage) + " stage");
     }
   }
+  park_deg_.resize(rig.motors.size());
+  for (std::size_t m = 0; m < park_deg_.size(); ++m) park_deg_[m] = rig.motors[m].initial_deg;
+  start_deg_ = park_deg_;
+  if (!input.start_positions_deg.empty()) {
+    if (input.start_positions_deg.size() != rig.motors.size()) {
+      throw std::invalid_argument("schedule: start_positions_deg needs one position per motor");
+    }
+    for (double x : input.start_positions_deg) {
+      if (!std::isfinite(x)) throw std::invalid_argument("schedule: start position not finite");
+    }
+    start_deg_ = input.start_positions_deg;
+  }
   for (const PointTargets& p : input.points) {
     if (static_cast<int>(p.prep.size()) != photons_ ||
         static_cast<int>(p.analysis.size()) != photons_) {
@@ -75,10 +87,10 @@ double MoveModel::group_s(int group, const PlatePair& from, const PlatePair& to)
               motor_angle_s(qwp_[group], from.qwp_deg, to.qwp_deg));
 }
 
-double MoveModel::group_from_initial_s(int group, const PlatePair& to) const {
-  const auto& motors = input_->rig->motors;
-  return join(motor_angle_s(hwp_[group], motors[hwp_[group]].initial_deg, to.hwp_deg),
-              motor_angle_s(qwp_[group], motors[qwp_[group]].initial_deg, to.qwp_deg));
+double MoveModel::group_from_s(int group, const std::vector<double>& from_deg,
+                               const PlatePair& to) const {
+  return join(motor_angle_s(hwp_[group], from_deg[hwp_[group]], to.hwp_deg),
+              motor_angle_s(qwp_[group], from_deg[qwp_[group]], to.qwp_deg));
 }
 
 double MoveModel::side_s(int side, int from_point, int to_point) const {
@@ -97,15 +109,24 @@ double MoveModel::side_s(int side, int from_point, int to_point) const {
   return t;
 }
 
-double MoveModel::side_from_initial_s(int side, int to_point) const {
+double MoveModel::side_from_s(int side, const std::vector<double>& from_deg, int to_point) const {
   double t = 0.0;
   for (int p = 0; p < photons_; ++p) {
     const int g = side * photons_ + p;
-    t = join(t, std::min(group_from_initial_s(g, target(to_point, g, 0)),
-                         group_from_initial_s(g, target(to_point, g, 1))));
+    t = join(t, std::min(group_from_s(g, from_deg, target(to_point, g, 0)),
+                         group_from_s(g, from_deg, target(to_point, g, 1))));
   }
   return t;
 }
+
+namespace {
+/// Rounds toward zero, so that the stored costs stay lower bounds.
+float float_below(double x) {
+  float f = static_cast<float>(x);
+  if (static_cast<double>(f) > x) f = std::nextafter(f, 0.0f);
+  return f;
+}
+}  // namespace
 
 SideCosts compute_side_costs(const MoveModel& model) {
   SideCosts c;
@@ -113,11 +134,13 @@ SideCosts compute_side_costs(const MoveModel& model) {
   const std::size_t n = static_cast<std::size_t>(c.n);
   for (int side = 0; side < 2; ++side) {
     c.cost[side].assign(n * n, 0.0f);
-    c.initial[side].resize(n);
+    c.start[side].resize(n);
+    c.park[side].resize(n);
     for (int i = 0; i < c.n; ++i) {
-      c.initial[side][i] = static_cast<float>(model.side_from_initial_s(side, i));
+      c.start[side][i] = float_below(model.side_from_s(side, model.start_deg(), i));
+      c.park[side][i] = float_below(model.side_from_s(side, model.park_deg(), i));
       for (int j = 0; j < c.n; ++j) {
-        c.cost[side][i * n + j] = static_cast<float>(model.side_s(side, i, j));
+        c.cost[side][i * n + j] = float_below(model.side_s(side, i, j));
       }
     }
   }
@@ -131,8 +154,8 @@ double relaxed_step_s(const MoveModel& model, const SideCosts& costs, Code from,
 }
 
 double relaxed_first_step_s(const MoveModel& model, const SideCosts& costs, Code to) {
-  return model.step_s(model.join(costs.initial[0][model.prep_point(to)],
-                                 costs.initial[1][model.analysis_point(to)]));
+  return model.step_s(
+      model.join(costs.start[0][model.prep_point(to)], costs.start[1][model.analysis_point(to)]));
 }
 
 double relaxed_order_s(const MoveModel& model, const SideCosts& costs,
@@ -165,11 +188,11 @@ double choose_solutions(const MoveModel& model, const std::vector<Code>& order,
                                      std::vector<double>(side_states * side_states)};
   double group_tab[6][2][2];
 
-  // Step 0: from the initial positions.
+  // Step 0: from the start positions.
   for (int g = 0; g < G; ++g) {
     const int pt = model.group_point(order[0], g);
     for (int w = 0; w < 2; ++w) {
-      group_tab[g][0][w] = model.group_from_initial_s(g, model.target(pt, g, w));
+      group_tab[g][0][w] = model.group_from_s(g, model.start_deg(), model.target(pt, g, w));
     }
   }
   for (int w = 0; w < K; ++w) {
@@ -276,8 +299,7 @@ void place_group(const MoveModel& model, int group, int point, int sol,
 double realized_order_s(const MoveModel& model, const std::vector<Code>& order,
                         const std::vector<std::uint8_t>& solutions) {
   const Rig& rig = model.rig();
-  std::vector<double> pos(rig.motors.size()), next;
-  for (std::size_t m = 0; m < pos.size(); ++m) pos[m] = rig.motors[m].initial_deg;
+  std::vector<double> pos = model.start_deg(), next;
   double total = 0.0;
   for (std::size_t k = 0; k < order.size(); ++k) {
     next = pos;

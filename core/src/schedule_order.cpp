@@ -288,7 +288,7 @@ std::vector<Code> optimized_order(const MoveModel& model, const SideCosts& costs
     }
     int start = 0;
     for (int i = 1; i < train; ++i) {
-      if (costs.initial[sweep_side][i] < costs.initial[sweep_side][start]) start = i;
+      if (costs.start[sweep_side][i] < costs.start[sweep_side][start]) start = i;
     }
     std::vector<int> tour = improve_path(train, w, start, budget);
     options.hooks.report(0.2 + 0.3 * row_side);

@@ -26,8 +26,7 @@ class TimelineBuilder {
   TimelineBuilder(const MoveModel& model, const std::vector<Code>& order,
                   const std::vector<std::uint8_t>& solutions)
       : model_(model), in_(model.input()), rig_(model.rig()), order_(order), sols_(solutions) {
-    initial_.resize(rig_.motors.size());
-    for (std::size_t m = 0; m < initial_.size(); ++m) initial_[m] = rig_.motors[m].initial_deg;
+    initial_ = model_.park_deg();
     double pairs = 0.0;
     for (const EntryRequest& e : in_.entries) pairs += e.pairs;
     mean_pairs_ = in_.entries.empty() ? 0.0 : pairs / static_cast<double>(in_.entries.size());
@@ -39,8 +38,7 @@ class TimelineBuilder {
     const double window_s = in_.nights.length_s();
     const double ref_every_s = set.reference_interval_min * 60.0;
     // A resumed campaign starts where the motors stopped; parks still return to initial_deg.
-    std::vector<double> pos =
-        in_.start_positions_deg.size() == initial_.size() ? in_.start_positions_deg : initial_;
+    std::vector<double> pos = model_.start_deg();
     int night = 1;
     double t = 0.0;
     double last_ref_s = -1e300;
@@ -257,7 +255,7 @@ ScheduleResult build_schedule(const ScheduleInput& input, const ScheduleOptions&
   options.hooks.report(0.0);
   const SideCosts costs = compute_side_costs(model);
   options.hooks.throw_if_cancelled();
-  result.move_lower_bound_s = measure_lower_bound_s(model, costs);
+  const BoundTerms bound = bound_terms(model, costs);
   result.move_naive_s = realized_order_s(model, naive_order(input), {});
   options.hooks.report(0.1);
 
@@ -313,6 +311,13 @@ ScheduleResult build_schedule(const ScheduleInput& input, const ScheduleOptions&
         "nights: the nightly window is too short to hold a single measure step with its "
         "dark and park steps");
   }
+  // The bound depends on how often the run of measure steps is broken (schedule_bound.cpp).
+  long breaks = 0;
+  for (std::size_t k = 0; k < layout.steps.size(); ++k) {
+    breaks += layout.steps[k].kind == StepKind::measure &&
+              (k + 1 == layout.steps.size() || layout.steps[k + 1].kind != StepKind::measure);
+  }
+  result.move_lower_bound_s = measure_lower_bound_s(bound, breaks);
   result.steps = std::move(layout.steps);
   result.nights = layout.nights;
   result.fits = layout.nights <= max_nights;

@@ -54,10 +54,15 @@ struct ScheduleOptions {
 
 struct ScheduleResult {
   std::vector<Step> steps;
-  double move_lower_bound_s = 0.0;  ///< proven bound on the measure steps' total move time
-  double move_naive_s = 0.0;        ///< measure steps in row-by-row order, same model
-  double truncation_cost_s = 0.0;   ///< extra move time of the truncation-safe order
-  double pairs_scale = 1.0;         ///< factor applied to every entry's pairs (fit to nights)
+  /// Proven lower bound on the measure steps' total move time (SPEC section 2), seconds. It
+  /// holds for every order of the same measure steps (any orientations and solutions, from the
+  /// same start positions) in which at most as many measure steps as in this schedule are
+  /// followed by a reference, dark or park step or end the plan; the argument is in
+  /// schedule_bound.cpp.
+  double move_lower_bound_s = 0.0;
+  double move_naive_s = 0.0;       ///< measure steps in row-by-row order, same model
+  double truncation_cost_s = 0.0;  ///< extra move time of the truncation-safe order
+  double pairs_scale = 1.0;        ///< factor applied to every entry's pairs (fit to nights)
   int nights = 0;
   bool fits = true;
   std::vector<NightUse> night_use;
@@ -68,10 +73,11 @@ struct ScheduleResult {
 ScheduleResult build_schedule(const ScheduleInput& input, const ScheduleOptions& options);
 
 /// Exact minimum total move time (seconds, SPEC section 2) of the measure steps alone, from the
-/// initial positions, over every order, orientation and choice of discrete solutions:
-/// Held-Karp dynamic programming over subsets of entries. Exact when every motor rotates
-/// continuously (then only angles modulo the plate period matter); a lower bound otherwise.
-/// For tests: at most 12 entries; time grows as 2^n (n 2^(2P+1))^2 for P photons.
+/// start positions (ScheduleInput::start_positions_deg, else initial_deg), over every order,
+/// orientation and choice of discrete solutions: Held-Karp dynamic programming over subsets of
+/// entries. Exact when every motor rotates continuously (then only angles modulo the plate period
+/// matter); a lower bound otherwise. For tests: at most 12 entries; time grows as 2^n (n
+/// 2^(2P+1))^2 for P photons.
 double exact_min_move_s(const ScheduleInput& input);
 
 }  // namespace gramline
