@@ -199,6 +199,8 @@ QWidget* EditorPanel::build_data_page() {
   table->verticalHeader()->setDefaultSectionSize(fontMetrics().height() + 6);
   table->setAlternatingRowColors(true);
   table->horizontalHeader()->setStretchLastSection(true);
+  table->horizontalHeader()->setDefaultSectionSize(fontMetrics().horizontalAdvance("0000.0000") +
+                                                   12);
   layout->addWidget(table, 1);
   refreshers_.push_back([this] {
     const DataSet& d = document_->campaign().data;

@@ -104,6 +104,7 @@ void HeatmapWidget::mouseMoveEvent(QMouseEvent* event) {
   if (cell != hover_) {
     hover_ = cell;
     update();
+    if (hover_callback_) hover_callback_(cell.y(), cell.x());
   }
   if (cell.x() >= 0 && cell_text_) {
     QToolTip::showText(event->globalPosition().toPoint(), cell_text_(cell.y(), cell.x()), this);
@@ -125,15 +126,30 @@ GramView::GramView(QWidget* parent) : QWidget(parent) {
   kernel_ = new HeatmapWidget(tr("Ideal kernel"));
   sigma_ = new HeatmapWidget(tr("Predicted σ per entry"));
   pairs_ = new HeatmapWidget(tr("Planned pairs per entry"));
+  order_ = new QComboBox;
+  order_->addItem(tr("file order"));
+  order_->addItem(tr("grouped by class"));
+  order_->setCurrentIndex(1);
+  order_->setAccessibleName(tr("Order of the points in the maps"));
+  details_ =
+      new QLabel(tr("Hover over an entry to see its values, the step that measures it "
+                    "and when."));
+  details_->setTextFormat(Qt::RichText);
+  details_->setWordWrap(true);
+  details_->setAccessibleName(tr("Entry under the pointer"));
+  details_->setMinimumHeight(fontMetrics().height() * 3);
   note_ =
-      new QLabel(tr("Rows: prepared point; columns: analysed training point. Hover over an "
-                    "entry to see the step that measures it and when."));
+      new QLabel(tr("Rows: the point prepared; columns: the training point analysed. "
+                    "Grouped by class, a good kernel shows two bright blocks."));
   note_->setWordWrap(true);
   note_->setForegroundRole(QPalette::PlaceholderText);
 
   auto* top = new QHBoxLayout;
   top->addWidget(new QLabel(tr("Show")));
   top->addWidget(block_);
+  top->addSpacing(12);
+  top->addWidget(new QLabel(tr("Points in")));
+  top->addWidget(order_);
   top->addStretch(1);
   auto* maps = new QHBoxLayout;
   maps->addWidget(kernel_);
@@ -142,19 +158,44 @@ GramView::GramView(QWidget* parent) : QWidget(parent) {
   auto* layout = new QVBoxLayout(this);
   layout->addLayout(top);
   layout->addLayout(maps, 1);
+  layout->addWidget(details_);
   layout->addWidget(note_);
   connect(block_, &QComboBox::currentIndexChanged, this, [this] { redraw(); });
+  connect(order_, &QComboBox::currentIndexChanged, this, [this] { redraw(); });
+  for (HeatmapWidget* h : {kernel_, sigma_, pairs_}) {
+    h->set_hover_callback([this](int r, int c) {
+      if (r >= 0)
+        details_->setText(entry_text(r, c).replace(QStringLiteral("<br>"), QStringLiteral(" · ")));
+    });
+  }
 }
 
 void GramView::set_plan(std::shared_ptr<const Plan> plan, const Campaign& campaign) {
   plan_ = std::move(plan);
   nights_ = campaign.nights;
   train_count_ = campaign.data.train_count();
+  train_labels_ = campaign.data.train_labels;
+  test_labels_ = campaign.data.test_labels;
   redraw();
 }
 
-QString GramView::entry_text(int row, int col) const {
-  if (!plan_) return {};
+Eigen::MatrixXd GramView::ordered(const Eigen::MatrixXd& m) const {
+  Eigen::MatrixXd out(static_cast<Eigen::Index>(row_order_.size()),
+                      static_cast<Eigen::Index>(col_order_.size()));
+  for (std::size_t r = 0; r < row_order_.size(); ++r)
+    for (std::size_t c = 0; c < col_order_.size(); ++c)
+      out(static_cast<Eigen::Index>(r), static_cast<Eigen::Index>(c)) =
+          m(row_order_[r], col_order_[c]);
+  return out;
+}
+
+QString GramView::entry_text(int display_row, int display_col) const {
+  if (!plan_ || display_row < 0 || display_col < 0) return {};
+  if (static_cast<std::size_t>(display_row) >= row_order_.size() ||
+      static_cast<std::size_t>(display_col) >= col_order_.size())
+    return {};
+  const int row = row_order_[static_cast<std::size_t>(display_row)];
+  const int col = col_order_[static_cast<std::size_t>(display_col)];
   const bool train = block_->currentIndex() == 0;
   const Eigen::MatrixXd& k = train ? plan_->kernel_train : plan_->kernel_test;
   const Eigen::MatrixXd& s = train ? plan_->sigma_train : plan_->sigma_test;

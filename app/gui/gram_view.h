@@ -20,11 +20,14 @@ class HeatmapWidget : public QWidget {
 
  public:
   using CellText = std::function<QString(int row, int col)>;
+  using CellHover = std::function<void(int row, int col)>;
   explicit HeatmapWidget(const QString& title, QWidget* parent = nullptr);
   /// `low`..`high` maps onto the colour scale; `scale_text` labels a value on the colour bar.
   void set_matrix(const Eigen::MatrixXd& values, double low, double high,
                   std::function<QString(double)> scale_text, CellText cell_text);
   void clear_matrix();
+  /// Called with the hovered cell (matrix indices, after any reordering), or (-1, -1).
+  void set_hover_callback(CellHover hover) { hover_callback_ = std::move(hover); }
   /// Cell under a widget position, or (-1, -1).
   QPoint cell_at(const QPoint& pos) const;
   QString cell_text(int row, int col) const {
@@ -48,6 +51,7 @@ class HeatmapWidget : public QWidget {
   double high_ = 1.0;
   std::function<QString(double)> scale_text_;
   CellText cell_text_;
+  CellHover hover_callback_;
   QPoint hover_{-1, -1};
 };
 
@@ -63,12 +67,20 @@ class GramView : public QWidget {
 
  private:
   void redraw();
+  /// Text for the entry drawn at (row, col) of the (possibly class-ordered) map.
   QString entry_text(int row, int col) const;
+  /// The matrix with rows and columns in display order.
+  Eigen::MatrixXd ordered(const Eigen::MatrixXd& m) const;
 
   std::shared_ptr<const Plan> plan_;
   NightWindow nights_;
   int train_count_ = 0;
   QComboBox* block_;
+  QComboBox* order_;
+  std::vector<int> row_order_;  ///< display row -> matrix row
+  std::vector<int> col_order_;  ///< display column -> matrix column
+  Eigen::VectorXi train_labels_, test_labels_;
+  QLabel* details_;
   HeatmapWidget* kernel_;
   HeatmapWidget* sigma_;
   HeatmapWidget* pairs_;

@@ -163,7 +163,10 @@ MainWindow::MainWindow(QWidget* parent) : QMainWindow(parent) {
   restoreGeometry(settings.value(QStringLiteral("window/geometry")).toByteArray());
   restoreState(settings.value(QStringLiteral("window/state")).toByteArray());
   tabs_->setCurrentIndex(settings.value(QStringLiteral("window/view"), 0).toInt());
-  if (!settings.contains(QStringLiteral("window/geometry"))) resize(1360, 820);
+  if (!settings.contains(QStringLiteral("window/geometry"))) {
+    resize(1400, 860);
+    resizeDocks({dock}, {560}, Qt::Horizontal);
+  }
 
   // Autosave: this session's file is locked while we run, so a later start can tell a
   // crashed session's autosave from a running one's.

@@ -241,10 +241,7 @@ MarginView::MarginView(QWidget* parent) : QWidget(parent) {
   allocations_->verticalHeader()->setVisible(false);
   allocations_->horizontalHeader()->setStretchLastSection(true);
   allocations_->setMaximumHeight(fontMetrics().height() * 7);
-  ratio_view_ = new QChartView;
-  ratio_view_->setRenderHint(QPainter::Antialiasing);
-  ratio_view_->setAccessibleName(tr("Distribution of the margin ratio"));
-  ratio_view_->setMinimumHeight(220);
+  ratio_view_ = new RatioHistogram;
 
   auto* legend =
       new QLabel(tr("Circles and squares: training points of each class. Diamonds: "
@@ -277,6 +274,8 @@ MarginView::MarginView(QWidget* parent) : QWidget(parent) {
   split->addWidget(scroll);
   split->setStretchFactor(0, 1);
   split->setStretchFactor(1, 1);
+  split->setSizes({480, 520});
+  scroll->setMinimumWidth(380);
   auto* layout = new QVBoxLayout(this);
   layout->addWidget(split);
   set_status(tr("The margin check runs after each plan."));
@@ -297,7 +296,7 @@ void MarginView::set_plan(std::shared_ptr<const Plan> plan, const Campaign& camp
   allocations_->clear();
   allocations_->setRowCount(0);
   allocations_->hide();
-  draw_ratio_chart();
+  ratio_view_->set_values({}, campaign_.check.margin_ratio_threshold);
 }
 
 void MarginView::set_status(const QString& text) { verdict_->setText(text); }
@@ -363,55 +362,67 @@ void MarginView::set_check(std::shared_ptr<const MarginCheck> check,
   }
   allocations_->resizeColumnsToContents();
   allocations_->setVisible(!m.allocations.empty());
-  draw_ratio_chart();
+  ratio_view_->set_values(t.margin_ratio, campaign_.check.margin_ratio_threshold);
 }
 
-void MarginView::draw_ratio_chart() {
-  auto* chart = new QChart;
-  chart->setTitle(tr("Margin ratio over the simulated runs (noisy margin ÷ noiseless)"));
-  if (check_ && !check_->trials.margin_ratio.empty()) {
-    const std::vector<double>& v = check_->trials.margin_ratio;
-    const double lo =
-        std::min(*std::min_element(v.begin(), v.end()), campaign_.check.margin_ratio_threshold);
-    const double hi = std::max(*std::max_element(v.begin(), v.end()), 1.0);
-    const int bins = 24;
-    const double width = std::max(1e-9, (hi - lo) / bins);
-    std::vector<int> counts(bins, 0);
-    for (double x : v)
-      counts[static_cast<std::size_t>(std::clamp(int((x - lo) / width), 0, bins - 1))]++;
-    auto* below = new QBarSet(tr("below the required ratio"));
-    auto* above = new QBarSet(tr("runs"));
-    below->setColor(work_colour::moving());
-    above->setColor(work_colour::counting());
-    QStringList cats;
-    for (int b = 0; b < bins; ++b) {
-      const double centre = lo + (b + 0.5) * width;
-      const bool low = centre < campaign_.check.margin_ratio_threshold;
-      *below << (low ? counts[b] : 0);
-      *above << (low ? 0 : counts[b]);
-      cats << number_text(centre, 2);
-    }
-    auto* series = new QStackedBarSeries;
-    series->append(above);
-    series->append(below);
-    series->setBarWidth(0.95);
-    chart->addSeries(series);
-    auto* ax = new QBarCategoryAxis;
-    ax->append(cats);
-    ax->setLabelsAngle(-60);
-    auto* ay = new QValueAxis;
-    ay->setLabelFormat(QStringLiteral("%.0f"));
-    ay->setTitleText(tr("runs"));
-    chart->addAxis(ax, Qt::AlignBottom);
-    chart->addAxis(ay, Qt::AlignLeft);
-    series->attachAxis(ax);
-    series->attachAxis(ay);
-    chart->legend()->setAlignment(Qt::AlignBottom);
+RatioHistogram::RatioHistogram(QWidget* parent) : QWidget(parent) {
+  setMinimumHeight(200);
+  setAccessibleName(tr("Distribution of the margin ratio"));
+}
+
+void RatioHistogram::set_values(std::vector<double> ratios, double threshold) {
+  ratios_ = std::move(ratios);
+  threshold_ = threshold;
+  update();
+}
+
+void RatioHistogram::paintEvent(QPaintEvent*) {
+  QPainter p(this);
+  p.setRenderHint(QPainter::Antialiasing);
+  p.fillRect(rect(), palette().color(QPalette::Base));
+  const double fh = fontMetrics().height();
+  p.setPen(palette().color(QPalette::Text));
+  QFont bold = font();
+  bold.setBold(true);
+  p.setFont(bold);
+  p.drawText(QRectF(0, 2, width(), fh + 2), Qt::AlignHCenter,
+             tr("Margin ratio per simulated run (noisy margin ÷ noiseless)"));
+  p.setFont(font());
+  if (ratios_.empty()) {
+    p.drawText(rect(), Qt::AlignCenter, tr("No runs yet"));
+    return;
   }
-  style_chart(chart, palette());
-  QChart* old = ratio_view_->chart();
-  ratio_view_->setChart(chart);
-  delete old;
+  const auto [mn, mx] = std::minmax_element(ratios_.begin(), ratios_.end());
+  const double lo = std::min(*mn, threshold_) - 0.01;
+  const double hi = std::max(*mx, 1.0) + 0.01;
+  const int bins = 30;
+  std::vector<int> counts(bins, 0);
+  for (double x : ratios_)
+    counts[static_cast<std::size_t>(std::clamp(int((x - lo) / (hi - lo) * bins), 0, bins - 1))]++;
+  const int top = *std::max_element(counts.begin(), counts.end());
+  const QRectF plot = QRectF(rect()).adjusted(fh * 2.5, fh * 1.8, -fh, -fh * 2.6);
+  const double bw = plot.width() / bins;
+  for (int b = 0; b < bins; ++b) {
+    const double centre = lo + (b + 0.5) * (hi - lo) / bins;
+    const QColor c = centre < threshold_ ? work_colour::moving() : work_colour::counting();
+    const double h = top > 0 ? plot.height() * counts[b] / top : 0.0;
+    p.fillRect(QRectF(plot.left() + b * bw + 1, plot.bottom() - h, bw - 2, h), c);
+  }
+  p.setPen(palette().color(QPalette::Mid));
+  p.drawLine(plot.bottomLeft(), plot.bottomRight());
+  // The required ratio as a dashed line.
+  const double tx = plot.left() + (threshold_ - lo) / (hi - lo) * plot.width();
+  QPen dash(palette().color(QPalette::Text), 1.5, Qt::DashLine);
+  p.setPen(dash);
+  p.drawLine(QPointF(tx, plot.top()), QPointF(tx, plot.bottom()));
+  p.setPen(palette().color(QPalette::Text));
+  p.drawText(QRectF(tx + 4, plot.top(), plot.width(), fh), Qt::AlignLeft,
+             tr("required %1").arg(number_text(threshold_, 2)));
+  const QRectF axis(plot.left(), plot.bottom() + 2, plot.width(), fh);
+  p.drawText(axis, Qt::AlignLeft, number_text(lo, 2));
+  p.drawText(axis, Qt::AlignRight, number_text(hi, 2));
+  p.drawText(QRectF(plot.left(), plot.bottom() + fh + 2, plot.width(), fh), Qt::AlignHCenter,
+             tr("%1 runs; tallest bar %2").arg(ratios_.size()).arg(top));
 }
 
 }  // namespace gramline::gui

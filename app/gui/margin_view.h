@@ -10,7 +10,6 @@
 #include "gramline/plan.h"
 #include "margin_runner.h"
 
-class QChartView;
 class QLabel;
 class QTableWidget;
 
@@ -41,6 +40,23 @@ class DecisionMap : public QWidget {
   double x_low_ = 0, x_high_ = 1, y_low_ = 0, y_high_ = 1;
 };
 
+/// Histogram of the per-run margin ratio with the required ratio marked.
+class RatioHistogram : public QWidget {
+  Q_OBJECT
+
+ public:
+  explicit RatioHistogram(QWidget* parent = nullptr);
+  void set_values(std::vector<double> ratios, double threshold);
+  QSize sizeHint() const override { return {420, 240}; }
+
+ protected:
+  void paintEvent(QPaintEvent* event) override;
+
+ private:
+  std::vector<double> ratios_;
+  double threshold_ = 0.9;
+};
+
 class MarginView : public QWidget {
   Q_OBJECT
 
@@ -55,8 +71,6 @@ class MarginView : public QWidget {
   QString verdict_text() const;
 
  private:
-  void draw_ratio_chart();
-
   Campaign campaign_;
   std::shared_ptr<const Plan> plan_;
   std::shared_ptr<const MarginCheck> check_;
@@ -65,7 +79,7 @@ class MarginView : public QWidget {
   QLabel* figures_;
   QLabel* budget_;
   QTableWidget* allocations_;
-  QChartView* ratio_view_;
+  RatioHistogram* ratio_view_;
 };
 
 }  // namespace gramline::gui

@@ -5,11 +5,11 @@
 #include <QChart>
 #include <QChartView>
 #include <QComboBox>
-#include <QDateTimeAxis>
 #include <QHBoxLayout>
 #include <QHorizontalStackedBarSeries>
 #include <QLabel>
 #include <QLineSeries>
+#include <QLogValueAxis>
 #include <QSplitter>
 #include <QVBoxLayout>
 #include <QValueAxis>
@@ -220,9 +220,8 @@ void TimelineView::draw_progress() {
     auto* error = new QLineSeries;
     error->setName(tr("predicted Gram error σ_F (right)"));
     error->setColor(work_colour::moving());
-    const auto ms = [this](double s) {
-      return static_cast<qreal>(step_clock(campaign_.nights, s).toMSecsSinceEpoch());
-    };
+    // x: hours after this night's window opens, the same axis as the chart above.
+    const auto ms = [night_start_s](double s) { return (s - night_start_s) / 3600.0; };
     // Carry the previous night's end state into this night's start.
     std::size_t first = 0;
     while (first < progress_.size() && progress_[first].night < night) ++first;
@@ -243,27 +242,38 @@ void TimelineView::draw_progress() {
     }
     auto* end_line = new QLineSeries;
     end_line->setName(tr("window closes"));
+    chart->legend()->setShowToolTips(true);
     QPen pen(palette().color(QPalette::Text));
     pen.setStyle(Qt::DashLine);
     end_line->setPen(pen);
     end_line->append(ms(night_end_s), 0.0);
     end_line->append(ms(night_end_s), 100.0);
+    // The error falls by orders of magnitude: a log axis shows the whole night.
+    for (const QPointF& pt : error->points())
+      if (!(pt.y() > 0)) error->replace(pt, QPointF(pt.x(), 1e-6));
 
     chart->addSeries(share);
     chart->addSeries(error);
     chart->addSeries(end_line);
-    auto* axis_t = new QDateTimeAxis;
-    axis_t->setFormat(QStringLiteral("HH:mm"));
-    axis_t->setRange(step_clock(campaign_.nights, night_start_s),
-                     step_clock(campaign_.nights, night_end_s + 600.0));
-    axis_t->setTitleText(tr("local time"));
+    auto* axis_t = new QValueAxis;
+    axis_t->setRange(0.0, (night_end_s - night_start_s) / 3600.0 + 0.25);
+    axis_t->setTickType(QValueAxis::TicksDynamic);
+    axis_t->setTickAnchor(0.0);
+    axis_t->setTickInterval(1.0);
+    axis_t->setLabelFormat(QStringLiteral("%.0f"));
+    axis_t->setTitleText(tr("hours after the window opens (%1); dashed: the window closes")
+                             .arg(QLocale().toString(step_clock(campaign_.nights, night_start_s),
+                                                     QStringLiteral("ddd d MMM HH:mm"))));
     auto* axis_share = new QValueAxis;
     axis_share->setRange(0.0, 100.0);
     axis_share->setLabelFormat(QStringLiteral("%.0f %%"));
     axis_share->setTitleText(tr("measured"));
-    auto* axis_error = new QValueAxis;
-    axis_error->setRange(0.0, progress_.front().sigma_frobenius * 1.02);
-    axis_error->setTitleText(tr("σ_F"));
+    auto* axis_error = new QLogValueAxis;
+    double err_min = progress_.front().sigma_frobenius;
+    for (const ProgressPoint& pp : progress_) err_min = std::min(err_min, pp.sigma_frobenius);
+    axis_error->setRange(std::max(1e-6, err_min * 0.5), progress_.front().sigma_frobenius * 1.5);
+    axis_error->setLabelFormat(QStringLiteral("%.3g"));
+    axis_error->setTitleText(tr("σ_F (log scale)"));
     chart->addAxis(axis_t, Qt::AlignBottom);
     chart->addAxis(axis_share, Qt::AlignLeft);
     chart->addAxis(axis_error, Qt::AlignRight);

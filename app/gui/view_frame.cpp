@@ -37,7 +37,7 @@ void ViewFrame::set_banner(const QString& message, bool warning) {
   banner_->setPalette(p);
 }
 
-QString ViewFrame::banner() const { return banner_->isVisible() ? banner_->text() : QString(); }
+QString ViewFrame::banner() const { return banner_->isHidden() ? QString() : banner_->text(); }
 
 void ViewFrame::set_stale(bool stale) {
   if (stale == stale_) return;

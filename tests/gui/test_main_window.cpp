@@ -1,0 +1,166 @@
+// The desktop app end to end: open the demo, edit a motor, watch the plan and the summary
+// follow; undo; save and open again. Runs on the offscreen platform.
+#include <QSignalSpy>
+#include <QStandardPaths>
+#include <QTemporaryDir>
+#include <QTest>
+#include <QUndoStack>
+
+#include "campaign_document.h"
+#include "editor_panel.h"
+#include "formats/campaign_json.h"
+#include "gramline/demo.h"
+#include "main_window.h"
+#include "margin_runner.h"
+#include "plan_runner.h"
+#include "rig_tables.h"
+#include "steps_view.h"
+#include "summary_view.h"
+#include "view_frame.h"
+
+using gramline::gui::MainWindow;
+
+namespace {
+
+constexpr int kWaitMs = 120000;
+
+// Keeps the Monte Carlo small: these tests are about the window, not the statistics.
+void make_quick(MainWindow& w) {
+  auto& o = w.margin_runner()->options();
+  o.trials = 20;
+  o.minimum_budget = false;
+  o.compare_allocations = false;
+  o.scan_scale = false;
+}
+
+bool settled(const MainWindow& w) {
+  return !w.runner()->busy() && !w.margin_runner()->busy() && w.runner()->plan() != nullptr;
+}
+
+}  // namespace
+
+class MainWindowTest : public QObject {
+  Q_OBJECT
+
+ private slots:
+  void initTestCase() {
+    QStandardPaths::setTestModeEnabled(true);
+    QCoreApplication::setOrganizationName(QStringLiteral("gramline-tests"));
+    QCoreApplication::setApplicationName(QStringLiteral("gramline-tests"));
+  }
+
+  void demo_edit_undo() {
+    MainWindow w;
+    make_quick(w);
+    w.load_demo();
+    QTRY_VERIFY_WITH_TIMEOUT(settled(w), kWaitMs);
+    const auto before = w.runner()->plan();
+    const QString moving_before = w.summary_view()->figure(QStringLiteral("moving"));
+    const QString total_before = w.summary_view()->figure(QStringLiteral("total"));
+    QVERIFY(!moving_before.isEmpty() && moving_before != QStringLiteral("–"));
+    QVERIFY(!w.document()->modified());
+
+    // Slow the first motor down through the motors table, as a user would.
+    auto* motors = w.editor()->motors_model();
+    const QModelIndex speed = motors->index(0, gramline::gui::MotorsModel::kSpeed);
+    const double old_speed = w.document()->campaign().rig.motors[0].speed_deg_per_s;
+    QVERIFY(motors->setData(speed, old_speed / 5.0, Qt::EditRole));
+    QCOMPARE(w.document()->campaign().rig.motors[0].speed_deg_per_s, old_speed / 5.0);
+    QVERIFY(w.document()->modified());
+    // The views are marked stale until the new plan arrives.
+    QVERIFY(!w.frame(MainWindow::kSummary)->banner().isEmpty());
+    QTRY_VERIFY_WITH_TIMEOUT(settled(w) && w.runner()->plan() != before, kWaitMs);
+    const auto slower = w.runner()->plan();
+    QVERIFY(slower->summary.move_s > before->summary.move_s);
+    QVERIFY(w.summary_view()->figure(QStringLiteral("moving")) != moving_before);
+    QVERIFY(w.frame(MainWindow::kSummary)->banner().isEmpty());
+
+    // Undo restores the campaign, the plan's figures and what the summary shows.
+    w.document()->undo_stack()->undo();
+    QCOMPARE(w.document()->campaign().rig.motors[0].speed_deg_per_s, old_speed);
+    QVERIFY(!w.document()->modified());
+    QTRY_VERIFY_WITH_TIMEOUT(settled(w) && w.runner()->plan() != slower, kWaitMs);
+    const auto restored = w.runner()->plan();
+    QCOMPARE(restored->summary.move_s, before->summary.move_s);
+    QCOMPARE(restored->summary.total_s, before->summary.total_s);
+    QCOMPARE(restored->steps.size(), before->steps.size());
+    QCOMPARE(w.summary_view()->figure(QStringLiteral("moving")), moving_before);
+    QCOMPARE(w.summary_view()->figure(QStringLiteral("total")), total_before);
+
+    // Redo brings the edit back.
+    w.document()->undo_stack()->redo();
+    QCOMPARE(w.document()->campaign().rig.motors[0].speed_deg_per_s, old_speed / 5.0);
+  }
+
+  void save_and_open_round_trip() {
+    QTemporaryDir dir;
+    QVERIFY(dir.isValid());
+    const QString path = dir.filePath(QStringLiteral("night.json"));
+    std::string saved_text;
+    double saved_total_s = 0.0;
+    {
+      MainWindow w;
+      make_quick(w);
+      w.load_demo();
+      w.document()->edit(QStringLiteral("test edit"), [](gramline::Campaign& c) {
+        c.rig.controller.settle_s = 0.8;
+        c.nights.max_nights = 5;
+      });
+      QTRY_VERIFY_WITH_TIMEOUT(settled(w), kWaitMs);
+      QVERIFY(w.save_to(path));
+      QVERIFY(!w.document()->modified());
+      QCOMPARE(w.document()->path(), QFileInfo(path).absoluteFilePath());
+      saved_text = gramline::formats::format_campaign(w.document()->campaign());
+      saved_total_s = w.runner()->plan()->summary.total_s;
+    }
+    MainWindow w2;
+    make_quick(w2);
+    QVERIFY(w2.open_file(path));
+    QVERIFY(!w2.document()->modified());
+    QCOMPARE(gramline::formats::format_campaign(w2.document()->campaign()), saved_text);
+    QCOMPARE(w2.document()->campaign().rig.controller.settle_s, 0.8);
+    QTRY_VERIFY_WITH_TIMEOUT(settled(w2), kWaitMs);
+    QCOMPARE(w2.runner()->plan()->summary.total_s, saved_total_s);
+  }
+
+  void steps_filter_and_jump() {
+    MainWindow w;
+    make_quick(w);
+    w.load_demo();
+    QTRY_VERIFY_WITH_TIMEOUT(settled(w), kWaitMs);
+    auto* steps = w.steps_view();
+    auto* model = steps->model();
+    const auto plan = w.runner()->plan();
+    QCOMPARE(model->rowCount(), static_cast<int>(plan->steps.size()));
+    gramline::gui::StepFilter f;
+    f.kind = static_cast<int>(gramline::StepKind::reference);
+    model->set_filter(f);
+    QVERIFY(model->rowCount() > 0);
+    for (int r = 0; r < model->rowCount(); ++r)
+      QCOMPARE(plan->steps[static_cast<std::size_t>(model->step_at_row(r))].kind,
+               gramline::StepKind::reference);
+    // Jumping to a measure step clears a filter that hides it.
+    int measure = 0;
+    while (plan->steps[static_cast<std::size_t>(measure)].kind != gramline::StepKind::measure)
+      ++measure;
+    QVERIFY(steps->go_to_step(measure));
+    QVERIFY(model->row_of_step(measure) >= 0);
+  }
+
+  void unplannable_campaign_says_why() {
+    MainWindow w;
+    make_quick(w);
+    w.load_demo();
+    QTRY_VERIFY_WITH_TIMEOUT(settled(w), kWaitMs);
+    w.document()->edit(QStringLiteral("break it"),
+                       [](gramline::Campaign& c) { c.rig.source.visibility = -1.0; });
+    QTRY_VERIFY_WITH_TIMEOUT(!w.runner()->busy(), kWaitMs);
+    QVERIFY(w.frame(MainWindow::kSummary)->banner().contains(QStringLiteral("Cannot plan")));
+    w.document()->undo_stack()->undo();
+    QTRY_VERIFY_WITH_TIMEOUT(settled(w) && w.frame(MainWindow::kSummary)->banner().isEmpty(),
+                             kWaitMs);
+  }
+};
+
+QTEST_MAIN(MainWindowTest)
+#include "test_main_window.moc"
