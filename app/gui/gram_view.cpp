@@ -140,7 +140,8 @@ GramView::GramView(QWidget* parent) : QWidget(parent) {
   details_->setMinimumHeight(fontMetrics().height() * 3);
   note_ =
       new QLabel(tr("Rows: the point prepared; columns: the training point analysed. "
-                    "Grouped by class, a good kernel shows two bright blocks."));
+                    "“Grouped by class” puts all points of one class first; the dark "
+                    "diagonal of σ and pairs is not measured (it is 1 by construction)."));
   note_->setWordWrap(true);
   note_->setForegroundRole(QPalette::PlaceholderText);
 

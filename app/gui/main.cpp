@@ -13,6 +13,7 @@ int main(int argc, char** argv) {
   QApplication::setApplicationName(QStringLiteral("gramline"));
   QApplication::setApplicationDisplayName(QStringLiteral("Gramline"));
   QApplication::setApplicationVersion(QStringLiteral(GRAMLINE_VERSION));
+  QGuiApplication::setDesktopFileName(QStringLiteral("io.github.gramline.Gramline"));
   QApplication::setWindowIcon(gramline::gui::app_icon());
 
   QCommandLineParser parser;

@@ -240,7 +240,8 @@ MarginView::MarginView(QWidget* parent) : QWidget(parent) {
   allocations_->setEditTriggers(QAbstractItemView::NoEditTriggers);
   allocations_->verticalHeader()->setVisible(false);
   allocations_->horizontalHeader()->setStretchLastSection(true);
-  allocations_->setMaximumHeight(fontMetrics().height() * 7);
+  allocations_->setMinimumHeight(fontMetrics().height() * 8);
+  allocations_->setMaximumHeight(fontMetrics().height() * 9);
   ratio_view_ = new RatioHistogram;
 
   auto* legend =
@@ -351,7 +352,10 @@ void MarginView::set_check(std::shared_ptr<const MarginCheck> check,
   for (std::size_t i = 0; i < m.allocations.size(); ++i) {
     const AllocationOutcome& a = m.allocations[i];
     const int r = static_cast<int>(i);
-    allocations_->setItem(r, 0, new QTableWidgetItem(allocation_text(a.strategy)));
+    const QString names[] = {tr("uniform"), tr("Neyman"), tr("margin-aware")};
+    auto* name = new QTableWidgetItem(names[static_cast<int>(a.strategy)]);
+    name->setToolTip(allocation_text(a.strategy));
+    allocations_->setItem(r, 0, name);
     allocations_->setItem(r, 1,
                           new QTableWidgetItem(a.pass_at_plan_time ? tr("pass") : tr("fail")));
     allocations_->setItem(r, 2, new QTableWidgetItem(percent(a.flip_probability_max, 2)));

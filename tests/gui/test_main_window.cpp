@@ -1,5 +1,6 @@
 // The desktop app end to end: open the demo, edit a motor, watch the plan and the summary
 // follow; undo; save and open again. Runs on the offscreen platform.
+#include <QElapsedTimer>
 #include <QSignalSpy>
 #include <QStandardPaths>
 #include <QTemporaryDir>
@@ -145,6 +146,41 @@ class MainWindowTest : public QObject {
       ++measure;
     QVERIFY(steps->go_to_step(measure));
     QVERIFY(model->row_of_step(measure) >= 0);
+  }
+
+  // The steps table reads the plan in place: half a million steps cost one int per shown row.
+  void steps_view_with_half_a_million_rows() {
+    const gramline::Campaign campaign = gramline::make_demo_campaign();
+    auto plan = std::make_shared<gramline::Plan>();
+    const int count = 500000;
+    plan->steps.resize(count);
+    for (int i = 0; i < count; ++i) {
+      gramline::Step& s = plan->steps[static_cast<std::size_t>(i)];
+      s.kind = i % 50 == 0 ? gramline::StepKind::reference : gramline::StepKind::measure;
+      s.night = 1 + i / 100000;
+      s.prep_point = i % 48;
+      s.analysis_point = (i / 48) % 48;
+      s.start_s = i * 2.0;
+      s.position_deg.assign(campaign.rig.motors.size(), 1.0);
+    }
+    plan->summary.nights = 5;
+    gramline::gui::StepsView view;
+    QElapsedTimer timer;
+    timer.start();
+    view.set_plan(plan, campaign);
+    QCOMPARE(view.model()->rowCount(), count);
+    gramline::gui::StepFilter f;
+    f.night = 3;
+    view.model()->set_filter(f);
+    QCOMPARE(view.model()->rowCount(), 100000);
+    view.resize(900, 600);
+    view.show();
+    QVERIFY(view.go_to_step(count - 1));  // clears the night filter that hides it
+    QCOMPARE(view.model()->rowCount(), count);
+    QCoreApplication::processEvents();
+    qInfo("500 000 steps: load, filter, jump and paint in %lld ms", timer.elapsed());
+    QVERIFY(view.model()->data(view.model()->index(count - 1, 0), Qt::DisplayRole).toInt() ==
+            count - 1);
   }
 
   void unplannable_campaign_says_why() {

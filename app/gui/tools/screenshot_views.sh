@@ -1,0 +1,33 @@
+#!/bin/sh
+# Renders every view of the desktop app (and every page of the campaign editor) into a folder
+# of PNG files, under a virtual X server, for review.
+# Usage: app/gui/tools/screenshot_views.sh [OUT_DIR] [CAMPAIGN_FILE]
+#   OUT_DIR defaults to build/screenshots; without CAMPAIGN_FILE the bundled demo is shown.
+#   GRAMLINE_APP may name the binary (default: the first of build*/app/gui/gramline).
+set -eu
+here=$(cd "$(dirname "$0")/../../.." && pwd)
+out=${1:-"$here/build/screenshots"}
+campaign=${2:-}
+app=${GRAMLINE_APP:-}
+if [ -z "$app" ]; then
+  for candidate in "$here"/build/app/gui/gramline "$here"/build-*/app/gui/gramline; do
+    if [ -x "$candidate" ]; then app=$candidate; break; fi
+  done
+fi
+if [ -z "$app" ] || [ ! -x "$app" ]; then
+  echo "screenshot_views.sh: build the app first (cmake --build BUILD --target gramline)" >&2
+  exit 2
+fi
+command -v xvfb-run >/dev/null 2>&1 || { echo "screenshot_views.sh: needs xvfb-run (apt-get install xvfb)" >&2; exit 2; }
+mkdir -p "$out"
+# A private settings folder: a reviewer's saved window layout must not change the pictures.
+export XDG_CONFIG_HOME="$(mktemp -d)"
+export XDG_DATA_HOME="$XDG_CONFIG_HOME"
+trap 'rm -rf "$XDG_CONFIG_HOME"' EXIT
+if [ -n "$campaign" ]; then
+  xvfb-run -a -s "-screen 0 1600x1000x24" "$app" --screenshots "$out" "$campaign"
+else
+  xvfb-run -a -s "-screen 0 1600x1000x24" "$app" --screenshots "$out"
+fi
+echo "Screenshots in $out:"
+ls "$out"
