@@ -510,7 +510,7 @@ QWidget* EditorPanel::build_measurement_page() {
       QString(), [](const Campaign& c) { return c.precision.budget.epsilon; },
       [](Campaign& c, double v) { c.precision.budget.epsilon = v; });
   number(
-      tf, "precision/confidence", tr("Confidence"), tr("1 − δ"), 50.0, 99.9999, 4, tr(" %"),
+      tf, "precision/confidence", tr("Confidence"), tr("1 − δ"), 50.0, 99.999, 3, tr(" %"),
       [](const Campaign& c) { return c.precision.budget.confidence * 100.0; },
       [](Campaign& c, double v) { c.precision.budget.confidence = v / 100.0; });
   choice(

@@ -178,8 +178,14 @@ void SummaryView::set_plan(std::shared_ptr<const Plan> plan, const Campaign& cam
 }
 
 void SummaryView::set_margin_verdict(const QString& text, bool pass) {
-  Q_UNUSED(pass);
   margin_verdict_->setText(text.isEmpty() ? tr("Margin check: not computed yet.") : text);
+  // Pass in the pine of the counting bars, anything else in plain text colour.
+  QPalette p = palette();
+  if (pass) p.setColor(QPalette::WindowText, QColor(0x2a, 0x7f, 0x62));
+  margin_verdict_->setPalette(p);
+  QFont f = margin_verdict_->font();
+  f.setBold(pass);
+  margin_verdict_->setFont(f);
 }
 
 QString SummaryView::figure(const QString& key) const {
