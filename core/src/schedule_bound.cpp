@@ -144,12 +144,18 @@ double measure_lower_bound_s(const BoundTerms& terms, long breaks) {
 
 }  // namespace gramline::sched
 
-namespace gramline {
+namespace gramline::sched {
 
-double exact_min_move_s(const ScheduleInput& input) {
-  using namespace sched;
-  const MoveModel model(input);
+double exact_work(const MoveModel& model) {
+  const double n = static_cast<double>(model.input().entries.size());
+  const double S = n * 2.0 * static_cast<double>(1 << model.groups());
+  return std::ldexp(S * S, static_cast<int>(n));
+}
+
+double exact_order(const MoveModel& model, std::vector<Code>* order_out) {
+  const ScheduleInput& input = model.input();
   const int n = static_cast<int>(input.entries.size());
+  if (order_out) order_out->clear();
   if (n == 0) return 0.0;
   if (n > 12) throw std::invalid_argument("exact_min_move_s: at most 12 entries");
   const int G = model.groups();
@@ -180,6 +186,7 @@ double exact_min_move_s(const ScheduleInput& input) {
   const double inf = std::numeric_limits<double>::infinity();
   const std::size_t subsets = std::size_t(1) << n;
   std::vector<double> dp(subsets * S, inf);
+  std::vector<int> parent(order_out ? subsets * S : 0, -1);
   for (int u = 0; u < S; ++u) dp[(std::size_t(1) << (u / per_entry)) * S + u] = first[u];
   for (std::size_t set = 1; set < subsets; ++set) {
     for (int u = 0; u < S; ++u) {
@@ -189,13 +196,38 @@ double exact_min_move_s(const ScheduleInput& input) {
         const std::size_t bit = std::size_t(1) << (w / per_entry);
         if (set & bit) continue;
         double& to = dp[(set | bit) * S + w];
-        to = std::min(to, here + edge[std::size_t(u) * S + w]);
+        const double t = here + edge[std::size_t(u) * S + w];
+        if (t < to) {
+          to = t;
+          if (order_out) parent[(set | bit) * S + w] = u;
+        }
       }
     }
   }
-  double best = inf;
-  for (int u = 0; u < S; ++u) best = std::min(best, dp[(subsets - 1) * S + u]);
+  int end = 0;
+  for (int u = 1; u < S; ++u) {
+    if (dp[(subsets - 1) * S + u] < dp[(subsets - 1) * S + end]) end = u;
+  }
+  const double best = dp[(subsets - 1) * S + end];
+  if (order_out) {
+    std::size_t set = subsets - 1;
+    for (int u = end; u >= 0;) {
+      order_out->push_back(make_code(u / per_entry, (u / K) % 2 != 0));
+      const int prev = parent[set * S + u];
+      set &= ~(std::size_t(1) << (u / per_entry));
+      u = prev;
+    }
+    std::reverse(order_out->begin(), order_out->end());
+  }
   return best;
+}
+
+}  // namespace gramline::sched
+
+namespace gramline {
+
+double exact_min_move_s(const ScheduleInput& input) {
+  return sched::exact_order(sched::MoveModel(input), nullptr);
 }
 
 }  // namespace gramline

@@ -120,6 +120,12 @@ BoundTerms bound_terms(const MoveModel& model, const SideCosts& costs);
 /// at most `breaks` measure steps are followed by a non-measure step or end the plan.
 double measure_lower_bound_s(const BoundTerms& terms, long breaks);
 
+/// Held-Karp dynamic programming over subsets of entries (at most 12): the minimum measure move
+/// time under the angle model from the start positions, and (when `order_out` is given) an
+/// order reaching it. exact_work estimates its inner-loop count, 2^n S^2.
+double exact_order(const MoveModel& model, std::vector<Code>* order_out);
+double exact_work(const MoveModel& model);
+
 /// Physical positions along an order from the start positions: each group takes the solution given
 /// (or, when `solutions` is empty, the one it reaches fastest), each motor the nearest equivalent.
 /// Returns the total move time under step_move_s.

@@ -454,7 +454,13 @@ std::vector<Code> optimized_order(const MoveModel& model, const SideCosts& costs
     or_opt_sequence(model, costs, layout, best, budget);
   }
   if (best.size() <= 12 && !truncation_safe) {
-    best = small_search(model, best, options.seed, budget);
+    // Tiny instances: exact when the dynamic programme is cheap (up to tens of milliseconds),
+    // multi-start local search on the exact cost otherwise.
+    if (exact_work(model) <= 4e7) {
+      exact_order(model, &best);
+    } else {
+      best = small_search(model, best, options.seed, budget);
+    }
   }
   return best;
 }
