@@ -18,7 +18,7 @@ jobs="$(nproc 2>/dev/null || echo 2)"
 packages=(
   cmake ninja-build g++ pkg-config
   qt6-base-dev qt6-charts-dev qt6-tools-dev qt6-tools-dev-tools qt6-l10n-tools
-  libgl-dev libquazip1-qt6-dev libeigen3-dev
+  libgl-dev libqt6opengl6-dev libquazip1-qt6-dev libeigen3-dev
   libgtest-dev libsvm-dev libboost-math-dev
 )
 missing=()
