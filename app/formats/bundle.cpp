@@ -277,6 +277,12 @@ void check_steps_fit(const StepsFile& steps, const Campaign& c, const std::strin
     const std::string at = where + ": steps[" + std::to_string(k) + "]";
     if (s.position_deg.size() != c.rig.motors.size())
       throw InputError(at + ".position_deg: one position per motor is needed");
+    // Any step naming points (a reference step may) must name existing ones: the ingest
+    // engine looks them up.
+    for (int point : {s.prep_point, s.analysis_point})
+      if (point >= n + m)
+        throw InputError(at + ": point " + std::to_string(point) + " does not exist (" +
+                         std::to_string(n + m) + " points)");
     if (s.kind != StepKind::measure) continue;
     const int a = std::min(s.prep_point, s.analysis_point);
     const int b = std::max(s.prep_point, s.analysis_point);

@@ -173,6 +173,23 @@ TEST_F(DemoBundle, OversizedEntriesAreRefused) {
   EXPECT_NE(error_of(bomb, small).find("limit"), std::string::npos);
 }
 
+TEST_F(DemoBundle, StepsNamingPointsThatDoNotExistAreRefusedEvenWithAValidManifest) {
+  // A reference step naming point 999 would make the ingest engine read past the data set.
+  std::map<std::string, std::string> changed = entries_;
+  changed.erase("manifest.json");
+  std::string& steps = changed["steps.json"];
+  const size_t ref = steps.find("\"kind\": \"reference\"");
+  ASSERT_NE(ref, std::string::npos);
+  // Keys are written in alphabetical order, so the step's own prep_point follows its kind.
+  const size_t prep = steps.find("\"prep_point\": null", ref);
+  ASSERT_NE(prep, std::string::npos);
+  steps.replace(prep, std::string("\"prep_point\": null").size(), "\"prep_point\": 999");
+  changed["manifest.json"] = formats::format_manifest(changed, 1, {});
+  const std::string e = error_of(raw_zip(changed));
+  EXPECT_NE(e.find("steps.json"), std::string::npos) << e;
+  EXPECT_NE(e.find("point 999 does not exist"), std::string::npos) << e;
+}
+
 TEST(BundleReader, EntriesThatEscapeTheFolderAreRefused) {
   for (const char* name :
        {"../evil.txt", "a/../../evil.txt", "/etc/passwd", "C:/x.txt", "a\\..\\b", "./x", "a//b"}) {
