@@ -60,28 +60,6 @@ std::vector<NightBreakdown> night_breakdown(const Plan& plan, const NightWindow&
   return out;
 }
 
-std::vector<ProgressPoint> gram_progress(const Plan& plan, int train_count) {
-  std::vector<ProgressPoint> out;
-  const double n = train_count;
-  const double entries = n * (n - 1) / 2;  // unordered training pairs
-  if (entries <= 0) return out;
-  const double unmeasured_var = 0.25;  // sigma 1/2 for an entry not yet measured
-  double sum_sq = 2.0 * entries * unmeasured_var;
-  long done = 0;
-  out.push_back({0.0, 0.0, std::sqrt(sum_sq), 1});
-  for (const Step& s : plan.steps) {
-    if (s.kind != StepKind::measure || s.block != Block::train) continue;
-    const int a = s.prep_point, b = s.analysis_point;
-    if (a < 0 || b < 0 || a >= train_count || b >= train_count) continue;
-    const double sigma = plan.sigma_train(a, b);
-    sum_sq += 2.0 * (sigma * sigma - unmeasured_var);
-    ++done;
-    out.push_back({s.start_s + s.move_s + s.dwell_s, done / entries,
-                   std::sqrt(std::max(0.0, sum_sq)), s.night});
-  }
-  return out;
-}
-
 TimelineView::TimelineView(QWidget* parent) : QWidget(parent) {
   nights_view_ = new QChartView;
   nights_view_->setRenderHint(QPainter::Antialiasing);
@@ -120,8 +98,7 @@ TimelineView::TimelineView(QWidget* parent) : QWidget(parent) {
 void TimelineView::set_plan(std::shared_ptr<const Plan> plan, const Campaign& campaign) {
   plan_ = std::move(plan);
   campaign_ = campaign;
-  progress_ =
-      plan_ ? gram_progress(*plan_, campaign.data.train_count()) : std::vector<ProgressPoint>{};
+  progress_ = plan_ ? gram_progress(*plan_) : std::vector<GramProgressPoint>{};
   {
     const QSignalBlocker block(night_);
     const int keep = std::max(0, night_->currentIndex());
@@ -225,7 +202,7 @@ void TimelineView::draw_progress() {
     // Carry the previous night's end state into this night's start.
     std::size_t first = 0;
     while (first < progress_.size() && progress_[first].night < night) ++first;
-    const ProgressPoint start = first > 0 ? progress_[first - 1] : progress_.front();
+    const GramProgressPoint start = first > 0 ? progress_[first - 1] : progress_.front();
     share->append(ms(night_start_s), 100.0 * start.share_done);
     error->append(ms(night_start_s), start.sigma_frobenius);
     std::size_t last = first;
@@ -270,7 +247,7 @@ void TimelineView::draw_progress() {
     axis_share->setTitleText(tr("measured"));
     auto* axis_error = new QLogValueAxis;
     double err_min = progress_.front().sigma_frobenius;
-    for (const ProgressPoint& pp : progress_) err_min = std::min(err_min, pp.sigma_frobenius);
+    for (const GramProgressPoint& pp : progress_) err_min = std::min(err_min, pp.sigma_frobenius);
     axis_error->setRange(std::max(1e-6, err_min * 0.5), progress_.front().sigma_frobenius * 1.5);
     axis_error->setLabelFormat(QStringLiteral("%.3g"));
     axis_error->setTitleText(tr("σ_F (log scale)"));

@@ -28,18 +28,6 @@ struct NightBreakdown {
 /// Sums the steps of `plan` per night.
 std::vector<NightBreakdown> night_breakdown(const Plan& plan, const NightWindow& nights);
 
-/// One point of the progress curve: after the step ending at `end_s`, the share of training
-/// Gram entries measured and the Frobenius norm of the per-entry sigma, where an entry not yet
-/// measured counts with sigma 1/2 (half the range of a kernel value). At the end of the plan
-/// the norm equals the plan's gram_sigma_frobenius.
-struct ProgressPoint {
-  double end_s = 0.0;
-  double share_done = 0.0;
-  double sigma_frobenius = 0.0;
-  int night = 1;
-};
-std::vector<ProgressPoint> gram_progress(const Plan& plan, int train_count);
-
 class TimelineView : public QWidget {
   Q_OBJECT
 
@@ -53,7 +41,7 @@ class TimelineView : public QWidget {
 
   std::shared_ptr<const Plan> plan_;
   Campaign campaign_;
-  std::vector<ProgressPoint> progress_;
+  std::vector<GramProgressPoint> progress_;
   QChartView* nights_view_;
   QChartView* progress_view_;
   QComboBox* night_;

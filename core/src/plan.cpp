@@ -291,6 +291,26 @@ Plan plan_campaign(const Campaign& campaign, const PlanOptions& options) {
   return plan;
 }
 
+std::vector<GramProgressPoint> gram_progress(const Plan& plan) {
+  std::vector<GramProgressPoint> out;
+  const int n = static_cast<int>(plan.kernel_train.rows());
+  const double entries = n * (n - 1) / 2.0;
+  if (entries <= 0) return out;
+  const double unmeasured_var = 0.25;
+  double sum_sq = 2.0 * entries * unmeasured_var;  // both triangles of the matrix
+  long done = 0;
+  out.push_back({0.0, 0.0, std::sqrt(sum_sq), 1});
+  for (const Step& s : plan.steps) {
+    if (s.kind != StepKind::measure || s.block != Block::train) continue;
+    const double sigma = plan.sigma_train(s.prep_point, s.analysis_point);
+    sum_sq += 2.0 * (sigma * sigma - unmeasured_var);
+    ++done;
+    out.push_back({s.start_s + s.move_s + s.dwell_s, done / entries,
+                   std::sqrt(std::max(0.0, sum_sq)), s.night});
+  }
+  return out;
+}
+
 double recompute_moves(const Rig& rig, std::vector<Step>& steps) {
   std::vector<double> at(rig.motors.size());
   for (size_t k = 0; k < rig.motors.size(); ++k) at[k] = rig.motors[k].initial_deg;

@@ -142,12 +142,10 @@ TEST(BadCampaigns, EveryFieldSpoiledIsRefusedOrPlannedNeverCrashes) {
 
 namespace {
 
-// Disabled until the scheduler copes with steps longer than the reference interval or a night:
-// today a reference step due before the first measure step is built for point -1 (segmentation
-// fault in sched::place_group via TimelineBuilder::reference_step, schedule_timeline.cpp:85), so
-// e.g. rig.coincidence_window_s = 1000, rig.controller.settle_s = 1e6 or
-// precision.fixed_pairs = 1e308 crash plan_campaign. Each value runs in a child process, so a
-// crash fails only its own check.
+// Huge values (steps longer than the reference interval or a whole night, e.g.
+// rig.coincidence_window_s = 1000, rig.controller.settle_s = 1e6, precision.fixed_pairs = 1e308)
+// once crashed the scheduler; they must be refused with a message or planned. Each value runs
+// in a child process, so a crash fails only its own check.
 TEST(BadCampaignsDeathTest, HugeNumbersAreRefusedOrPlannedWithoutCrashing) {
   const QJsonObject root = small_campaign();
   std::vector<Path> paths;

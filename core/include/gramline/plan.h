@@ -97,6 +97,20 @@ struct Plan {
 /// Plans the campaign. Throws std::invalid_argument naming the field for an invalid campaign.
 Plan plan_campaign(const Campaign& campaign, const PlanOptions& options = {});
 
+/// One point of the Gram progress curve: after the training measure step ending at end_s, the
+/// share of training entries measured and the Frobenius norm of the per-entry sigma of the
+/// training Gram matrix if the run stopped there. An entry not yet measured counts with sigma
+/// 1/2, the largest standard deviation of a value confined to [0, 1] (Popoviciu's inequality),
+/// so the curve starts at sqrt(N(N-1))/2 and ends at summary.gram_sigma_frobenius.
+struct GramProgressPoint {
+  double end_s = 0.0;  ///< seconds from the first night's start
+  double share_done = 0.0;
+  double sigma_frobenius = 0.0;
+  int night = 1;
+};
+/// The curve, starting with the point before any step (end_s = 0).
+std::vector<GramProgressPoint> gram_progress(const Plan& plan);
+
 /// Recomputes every step's move_s from positions alone (SPEC section 2); used by tests and the
 /// resume path. Returns the total.
 double recompute_moves(const Rig& rig, std::vector<Step>& steps);
