@@ -2,6 +2,7 @@
 #include <gtest/gtest.h>
 
 #include <QString>
+#include <cctype>
 #include <string>
 
 #include "formats/data_csv.h"
@@ -140,7 +141,15 @@ INSTANTIATE_TEST_SUITE_P(
                       ErrorCase{"bad_extra_field.csv", "2:", "column 4", "extra field"},
                       ErrorCase{"empty.csv", "1:", "", "empty"},
                       ErrorCase{"bad_no_label_column.csv", "1:", "'label' column", "no"},
-                      ErrorCase{"bad_set.csv", "3:", "column 4 (set)", "neither train nor test"}));
+                      ErrorCase{"bad_set.csv", "3:", "column 4 (set)", "neither train nor test"}),
+    [](const ::testing::TestParamInfo<ErrorCase>& info) {
+      // Test names from the fixture file: bad_not_a_number.csv -> bad_not_a_number.
+      std::string name = info.param.file;
+      name = name.substr(0, name.find('.'));
+      for (char& ch : name)
+        if (!std::isalnum(static_cast<unsigned char>(ch))) ch = '_';
+      return name;
+    });
 
 TEST(DataCsv, DuplicateNamesTheEarlierLine) {
   const std::string m = error_of_file("bad_duplicate.csv");
