@@ -22,10 +22,6 @@ std::string json_text(const QJsonObject& object) {
   return std::string(bytes.constData(), static_cast<size_t>(bytes.size()));
 }
 
-QJsonValue point_or_null(int index) {
-  return index < 0 ? QJsonValue(QJsonValue::Null) : QJsonValue(index);
-}
-
 int point_from(const JsonField& f, int point_limit) {
   if (f.is_null()) return -1;
   return static_cast<int>(f.integer(0, point_limit));
@@ -61,35 +57,47 @@ std::string steps_conventions_text() {
 }
 
 std::string format_steps_json(const Rig& rig, const std::vector<Step>& steps) {
+  // The header goes through QJsonDocument; the steps are written one compact object per line
+  // by hand, so half a million steps never exist as a JSON tree in memory at once.
   QJsonArray motors;
   for (const Motor& m : rig.motors) motors.append(motor_to_json(m));
-  QJsonArray rows;
-  for (size_t i = 0; i < steps.size(); ++i) {
-    const Step& s = steps[i];
-    QJsonObject positions;
-    for (size_t m = 0; m < rig.motors.size() && m < s.position_deg.size(); ++m) {
-      positions[q(rig.motors[m].name)] = s.position_deg[m];
-    }
-    rows.append(QJsonObject{{"index", static_cast<qint64>(i)},
-                            {"kind", q(to_string(s.kind))},
-                            {"block", q(to_string(s.block))},
-                            {"prep_point", point_or_null(s.prep_point)},
-                            {"analysis_point", point_or_null(s.analysis_point)},
-                            {"position_deg", positions},
-                            {"kernel_ideal", s.kernel_ideal},
-                            {"p_pass", s.p_pass},
-                            {"pairs", s.pairs},
-                            {"dwell_s", s.dwell_s},
-                            {"move_s", s.move_s},
-                            {"start_s", s.start_s},
-                            {"night", s.night}});
+  std::string head = json_text(QJsonObject{{"format", kStepsFormat},
+                                           {"version", kStepsVersion},
+                                           {"conventions", q(steps_conventions_text())},
+                                           {"motors", motors},
+                                           {"controller", controller_to_json(rig.controller)}});
+  // Drop the closing brace and newline of the header object to append "steps".
+  head.erase(head.find_last_of('}'));
+  while (!head.empty() && (head.back() == '\n' || head.back() == ' ')) head.pop_back();
+  std::vector<std::string> keys;  // "\"name\":" with the name escaped as JSON
+  for (const Motor& m : rig.motors) {
+    const QByteArray quoted = QJsonDocument(QJsonArray{q(m.name)}).toJson(QJsonDocument::Compact);
+    keys.push_back(std::string(quoted.constData() + 1, static_cast<size_t>(quoted.size() - 2)) +
+                   ":");
   }
-  return json_text(QJsonObject{{"format", kStepsFormat},
-                               {"version", kStepsVersion},
-                               {"conventions", q(steps_conventions_text())},
-                               {"motors", motors},
-                               {"controller", controller_to_json(rig.controller)},
-                               {"steps", rows}});
+  auto point = [](int index) { return index < 0 ? std::string("null") : std::to_string(index); };
+  std::string out = std::move(head);
+  out += ",\n    \"steps\": [";
+  for (size_t i = 0; i < steps.size(); ++i) {
+    const Step& st = steps[i];
+    out += i == 0 ? "\n      {" : ",\n      {";
+    out += "\"index\":" + std::to_string(i) + ",\"kind\":\"" + to_string(st.kind) +
+           "\",\"block\":\"" + to_string(st.block) + "\",\"prep_point\":" + point(st.prep_point) +
+           ",\"analysis_point\":" + point(st.analysis_point) + ",\"position_deg\":{";
+    for (size_t m = 0; m < keys.size() && m < st.position_deg.size(); ++m) {
+      if (m > 0) out += ",";
+      out += keys[m] + exact_number_text(st.position_deg[m]);
+    }
+    out += "},\"kernel_ideal\":" + exact_number_text(st.kernel_ideal) +
+           ",\"p_pass\":" + exact_number_text(st.p_pass) +
+           ",\"pairs\":" + exact_number_text(st.pairs) +
+           ",\"dwell_s\":" + exact_number_text(st.dwell_s) +
+           ",\"move_s\":" + exact_number_text(st.move_s) +
+           ",\"start_s\":" + exact_number_text(st.start_s) +
+           ",\"night\":" + std::to_string(st.night) + "}";
+  }
+  out += steps.empty() ? "]\n}\n" : "\n    ]\n}\n";
+  return out;
 }
 
 std::string format_steps_csv(const Rig& rig, const std::vector<Step>& steps) {

@@ -12,6 +12,9 @@ namespace gramline {
 double normal_quantile_two_sided(double confidence) {
   if (!(confidence > 0 && confidence < 1))
     throw std::invalid_argument("confidence must lie strictly between 0 and 1");
+  // Planning asks for the same confidence once per entry: remember the last answer.
+  thread_local double last_confidence = -1.0, last_z = 0.0;
+  if (confidence == last_confidence) return last_z;
   // Solve P(|Z| <= z) = erf(z / sqrt 2) = confidence by bisection: slow but exact to the last
   // bit, and it keeps the engine free of a statistics library.
   double lo = 0.0, hi = 40.0;
@@ -22,7 +25,9 @@ double normal_quantile_two_sided(double confidence) {
     else
       hi = mid;
   }
-  return 0.5 * (lo + hi);
+  last_confidence = confidence;
+  last_z = 0.5 * (lo + hi);
+  return last_z;
 }
 
 namespace {
