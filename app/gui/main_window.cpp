@@ -36,8 +36,10 @@
 #include "gram_view.h"
 #include "gramline/demo.h"
 #include "gui_text.h"
+#include "hand_off.h"
 #include "margin_runner.h"
 #include "margin_view.h"
+#include "measured_view.h"
 #include "plan_runner.h"
 #include "steps_view.h"
 #include "summary_view.h"
@@ -64,6 +66,7 @@ MainWindow::MainWindow(QWidget* parent) : QMainWindow(parent) {
   timeline_ = new TimelineView;
   gram_ = new GramView;
   margin_ = new MarginView;
+  measured_ = new MeasuredView;
 
   tabs_ = new QTabWidget;
   tabs_->setAccessibleName(tr("Views of the plan"));
@@ -78,6 +81,8 @@ MainWindow::MainWindow(QWidget* parent) : QMainWindow(parent) {
   add_view(kTimeline, timeline_, tr("Timeline"), tr("Where each night's time goes"));
   add_view(kGram, gram_, tr("Gram error"), tr("Kernel, predicted error and pairs per entry"));
   add_view(kMargin, margin_, tr("Margin"), tr("Whether the classifier survives the noise"));
+  add_view(kMeasured, measured_, tr("Measured"),
+           tr("A night's counts against the prediction, and the drift of the night"));
   add_view(kCautions, make_cautions_page(), tr("Cautions"),
            tr("Laser safety and unattended operation"));
   setCentralWidget(tabs_);
@@ -90,6 +95,8 @@ MainWindow::MainWindow(QWidget* parent) : QMainWindow(parent) {
                     QDockWidget::DockWidgetClosable);
   addDockWidget(Qt::LeftDockWidgetArea, dock);
 
+  hand_off_ = new HandOff(this, runner_, measured_, [this] { return cautions_acknowledged(); });
+  connect(hand_off_, &HandOff::ingested, this, [this] { tabs_->setCurrentIndex(kMeasured); });
   build_actions();
   build_status_bar();
   auto* show_editor = dock->toggleViewAction();
@@ -221,6 +228,7 @@ void MainWindow::build_actions() {
          [this] { import_data(); });
   QAction* export_a = action(file, tr("&Export Plan Files…"), QKeySequence(Qt::CTRL | Qt::Key_R),
                              [this] { export_plan(); });
+  hand_off_->add_actions(file);
   file->addSeparator();
   action(file, tr("&Quit"), QKeySequence::Quit, [this] { close(); });
 
@@ -235,8 +243,8 @@ void MainWindow::build_actions() {
                            [this] { runner_->request_now(document_->campaign()); });
   action(edit, tr("&Cancel Planning"), QKeySequence(Qt::Key_Escape), [this] { runner_->cancel(); });
 
-  const QStringList names = {tr("&Summary"),    tr("S&teps"),  tr("T&imeline"),
-                             tr("&Gram Error"), tr("&Margin"), tr("&Cautions")};
+  const QStringList names = {tr("&Summary"), tr("S&teps"),    tr("T&imeline"), tr("&Gram Error"),
+                             tr("&Margin"),  tr("M&easured"), tr("&Cautions")};
   for (int v = 0; v < kViewCount; ++v) {
     QAction* a = view->addAction(names[v]);
     a->setShortcut(QKeySequence(Qt::ALT | static_cast<Qt::Key>(Qt::Key_1 + v)));
@@ -352,14 +360,14 @@ void MainWindow::on_plan_failed(const QString& message) {
   status_->setText(tr("Cannot plan this campaign."));
   set_all_stale(true, tr("Cannot plan this campaign: %1").arg(message));
   for (ViewFrame* f : frames_) {
-    if (f != frames_[kCautions])
+    if (f != frames_[kCautions] && f != frames_[kMeasured])
       f->set_banner(tr("Cannot plan this campaign: %1").arg(message), true);
   }
 }
 
 void MainWindow::set_all_stale(bool stale, const QString& message) {
   for (int v = 0; v < kViewCount; ++v) {
-    if (v == kCautions) continue;
+    if (v == kCautions || v == kMeasured) continue;  // neither depends on the plan
     frames_[v]->set_stale(stale && runner_->plan() != nullptr);
     frames_[v]->set_banner(message);
   }
@@ -632,7 +640,8 @@ void MainWindow::take_screenshots(const QString& dir, const std::function<void(b
     bool ok = true;
     const QStringList names = {QStringLiteral("summary"),  QStringLiteral("steps"),
                                QStringLiteral("timeline"), QStringLiteral("gram-error"),
-                               QStringLiteral("margin"),   QStringLiteral("cautions")};
+                               QStringLiteral("margin"),   QStringLiteral("measured"),
+                               QStringLiteral("cautions")};
     const auto save = [&](const QString& name) {
       QApplication::processEvents();
       ok = grab().save(dir + QLatin1Char('/') + name + QStringLiteral(".png")) && ok;
@@ -652,11 +661,15 @@ void MainWindow::take_screenshots(const QString& dir, const std::function<void(b
     editor_->pages()->setCurrentIndex(0);
     done(ok);
   };
+  // The Measured view shows the counts named by the screenshot script (empty page without).
+  const QString bundle = qEnvironmentVariable("GRAMLINE_SCREENSHOT_BUNDLE");
+  const QString counts = qEnvironmentVariable("GRAMLINE_SCREENSHOT_COUNTS");
+  if (!bundle.isEmpty() && !counts.isEmpty()) hand_off_->ingest_files(bundle, counts);
   // Wait until the plan and its margin check are done, polling so a failed plan also ends.
   auto* poll = new QTimer(this);
   poll->setInterval(200);
   connect(poll, &QTimer::timeout, this, [this, poll, shoot] {
-    if (runner_->busy() || margin_runner_->busy()) return;
+    if (runner_->busy() || margin_runner_->busy() || hand_off_->busy()) return;
     poll->stop();
     poll->deleteLater();
     shoot();

@@ -21,8 +21,10 @@ namespace gramline::gui {
 class CampaignDocument;
 class EditorPanel;
 class GramView;
+class HandOff;
 class MarginView;
 class MarginRunner;
+class MeasuredView;
 class PlanRunner;
 class StepsView;
 class SummaryView;
@@ -33,7 +35,7 @@ class MainWindow : public QMainWindow {
   Q_OBJECT
 
  public:
-  enum View { kSummary, kSteps, kTimeline, kGram, kMargin, kCautions, kViewCount };
+  enum View { kSummary, kSteps, kTimeline, kGram, kMargin, kMeasured, kCautions, kViewCount };
 
   explicit MainWindow(QWidget* parent = nullptr);
   ~MainWindow() override;
@@ -44,6 +46,8 @@ class MainWindow : public QMainWindow {
   MarginView* margin_view() const { return margin_; }
   SummaryView* summary_view() const { return summary_; }
   StepsView* steps_view() const { return steps_; }
+  MeasuredView* measured_view() const { return measured_; }
+  HandOff* hand_off() const { return hand_off_; }
   EditorPanel* editor() const { return editor_; }
   ViewFrame* frame(View view) const { return frames_[view]; }
   QTabWidget* views() const { return tabs_; }
@@ -101,6 +105,8 @@ class MainWindow : public QMainWindow {
   TimelineView* timeline_ = nullptr;
   GramView* gram_ = nullptr;
   MarginView* margin_ = nullptr;
+  MeasuredView* measured_ = nullptr;
+  HandOff* hand_off_ = nullptr;
 
   QLabel* status_;
   QProgressBar* progress_;

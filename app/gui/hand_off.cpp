@@ -1,0 +1,378 @@
+#include "hand_off.h"
+
+#include <QAction>
+#include <QApplication>
+#include <QDialog>
+#include <QDialogButtonBox>
+#include <QDir>
+#include <QFileDialog>
+#include <QFileInfo>
+#include <QFontDatabase>
+#include <QFormLayout>
+#include <QLabel>
+#include <QMainWindow>
+#include <QMenu>
+#include <QMessageBox>
+#include <QPlainTextEdit>
+#include <QProgressBar>
+#include <QPushButton>
+#include <QRegularExpression>
+#include <QSettings>
+#include <QStatusBar>
+#include <QVBoxLayout>
+#include <QtConcurrent/QtConcurrentRun>
+#include <exception>
+
+#include "gui_text.h"
+#include "measured_view.h"
+#include "plan_runner.h"
+
+namespace gramline::gui {
+
+namespace {
+
+const char* kBundleFilter =
+    QT_TRANSLATE_NOOP("gramline::gui", "Gramline bundle (*.zip);;All files (*)");
+const char* kCountsFilter =
+    QT_TRANSLATE_NOOP("gramline::gui", "Counts file (*.csv);;All files (*)");
+
+// The filters marked above share the context of gui_text.cpp.
+QString gui_tr(const char* text) { return QCoreApplication::translate("gramline::gui", text); }
+
+QString message_of(const std::exception& e) { return QString::fromStdString(e.what()); }
+
+}  // namespace
+
+IngestOutcome load_and_ingest(const QString& bundle_path, const QString& counts_path) {
+  IngestOutcome out;
+  try {
+    const formats::Bundle bundle = formats::read_bundle(bundle_path);
+    const formats::CountsFile counts =
+        formats::read_counts_csv(counts_path, formats::counts_layout(bundle.campaign));
+    out.run = std::make_shared<const formats::IngestRun>(formats::ingest_counts(bundle, counts));
+  } catch (const std::exception& e) {
+    out.error = message_of(e);
+  } catch (...) {
+    out.error = QCoreApplication::translate("gramline::gui", "%1: unexpected error while ingesting")
+                    .arg(counts_path);
+  }
+  return out;
+}
+
+ResumeOutcome load_and_resume(const QString& bundle_path, const QString& counts_path) {
+  ResumeOutcome out;
+  out.bundle_path = bundle_path;
+  try {
+    auto bundle = std::make_shared<const formats::Bundle>(formats::read_bundle(bundle_path));
+    const formats::CountsFile counts =
+        formats::read_counts_csv(counts_path, formats::counts_layout(bundle->campaign));
+    out.run = std::make_shared<const formats::ResumeRun>(formats::plan_resume(*bundle, counts));
+    out.bundle = std::move(bundle);
+  } catch (const std::exception& e) {
+    out.error = message_of(e);
+  } catch (...) {
+    out.error =
+        QCoreApplication::translate("gramline::gui", "%1: unexpected error while planning the rest")
+            .arg(counts_path);
+  }
+  return out;
+}
+
+QString file_stem(const QString& name) {
+  QString stem = name.trimmed();
+  stem.replace(QRegularExpression(QStringLiteral("[^\\w.-]+")), QStringLiteral("-"));
+  stem.remove(QRegularExpression(QStringLiteral("^[-.]+|[-.]+$")));
+  return stem.isEmpty() ? QStringLiteral("campaign") : stem;
+}
+
+HandOff::HandOff(QMainWindow* window, PlanRunner* planner, MeasuredView* view,
+                 std::function<bool()> cautions_acknowledged)
+    : QObject(window),
+      window_(window),
+      planner_(planner),
+      view_(view),
+      cautions_acknowledged_(std::move(cautions_acknowledged)) {
+  busy_label_ = new QLabel;
+  busy_label_->setAccessibleName(tr("Hand-off status"));
+  busy_label_->hide();
+  busy_bar_ = new QProgressBar;
+  busy_bar_->setRange(0, 0);  // the formats calls report no progress: a busy indicator
+  busy_bar_->setMaximumWidth(140);
+  busy_bar_->setTextVisible(false);
+  busy_bar_->setAccessibleName(tr("Working on the counts"));
+  busy_bar_->hide();
+  window_->statusBar()->addPermanentWidget(busy_label_);
+  window_->statusBar()->addPermanentWidget(busy_bar_);
+  connect(view_, &MeasuredView::ingest_requested, this, &HandOff::ingest);
+}
+
+HandOff::~HandOff() {
+  // The worker threads hold no pointer to this object; wait so none outlives the app.
+  if (ingest_watcher_) ingest_watcher_->waitForFinished();
+  if (resume_watcher_) resume_watcher_->waitForFinished();
+}
+
+void HandOff::add_actions(QMenu* menu) {
+  QAction* bundle = menu->addAction(tr("Export &Bundle…"));
+  bundle->setShortcut(QKeySequence(Qt::CTRL | Qt::SHIFT | Qt::Key_E));
+  bundle->setStatusTip(
+      tr("Write one zip file for the rig: steps, campaign, data, checksums "
+         "and a printable summary"));
+  connect(bundle, &QAction::triggered, this, [this] { export_bundle(); });
+  menu->addSeparator();
+  QAction* ingest_a = menu->addAction(tr("Ingest &Counts…"));
+  ingest_a->setShortcut(QKeySequence(Qt::CTRL | Qt::SHIFT | Qt::Key_I));
+  ingest_a->setStatusTip(tr("Compare the counts a rig wrote for a bundle with the prediction"));
+  connect(ingest_a, &QAction::triggered, this, [this] { ingest(); });
+  QAction* resume_a = menu->addAction(tr("Res&ume from Counts…"));
+  resume_a->setStatusTip(tr("Plan the steps a partial night did not count, as a new bundle"));
+  connect(resume_a, &QAction::triggered, this, [this] { resume(); });
+  actions_ = {bundle, ingest_a, resume_a};
+}
+
+QString HandOff::last_dir() const {
+  return QSettings().value(QStringLiteral("files/last_dir")).toString();
+}
+
+void HandOff::remember_dir(const QString& path) const {
+  QSettings().setValue(QStringLiteral("files/last_dir"), QFileInfo(path).absolutePath());
+}
+
+void HandOff::show_error(const QString& title, const QString& message) {
+  last_error_ = message;
+  emit failed(message);
+  // Not exec(): the window keeps running (and tests can read and close the box).
+  auto* box = new QMessageBox(QMessageBox::Warning, title, message, QMessageBox::Ok, window_);
+  box->setAttribute(Qt::WA_DeleteOnClose);
+  box->setObjectName(QStringLiteral("hand_off_error"));
+  box->open();
+}
+
+void HandOff::set_busy(const QString& what) {
+  busy_label_->setText(what);
+  busy_label_->show();
+  busy_bar_->show();
+  for (QAction* a : actions_) a->setEnabled(false);
+}
+
+void HandOff::clear_busy() {
+  busy_label_->hide();
+  busy_bar_->hide();
+  for (QAction* a : actions_) a->setEnabled(true);
+}
+
+void HandOff::export_bundle() {
+  if (!planner_->plan() || planner_->busy()) {
+    QMessageBox::information(window_, tr("No current plan"),
+                             tr("Wait until the plan is up to date, then export it."));
+    return;
+  }
+  if (!cautions_acknowledged_()) return;
+  const QString start = last_dir() + QLatin1Char('/') +
+                        file_stem(QString::fromStdString(planner_->planned_campaign().name)) +
+                        QStringLiteral(".zip");
+  // The dialog asks before replacing an existing file.
+  QString path =
+      QFileDialog::getSaveFileName(window_, tr("Export Bundle"), start, gui_tr(kBundleFilter));
+  if (path.isEmpty()) return;
+  if (QFileInfo(path).suffix().isEmpty()) path += QStringLiteral(".zip");
+  remember_dir(path);
+  export_bundle_to(path);
+}
+
+bool HandOff::export_bundle_to(const QString& path) {
+  const auto plan = planner_->plan();
+  if (!plan || planner_->busy()) {
+    show_error(tr("Cannot export the bundle"),
+               tr("%1: the plan is not up to date yet; nothing was written.")
+                   .arg(QDir::toNativeSeparators(path)));
+    return false;
+  }
+  QApplication::setOverrideCursor(Qt::WaitCursor);
+  try {
+    formats::BundleWriteOptions options;
+    options.overwrite = formats::Overwrite::allow;  // the user agreed in the file dialog
+    const formats::BundleWritten written =
+        formats::write_bundle(planner_->planned_campaign(), *plan, path, options);
+    QApplication::restoreOverrideCursor();
+    last_error_.clear();
+    window_->statusBar()->showMessage(
+        tr("Wrote the bundle %1 (%2 files, manifest SHA-256 %3…)")
+            .arg(QDir::toNativeSeparators(path))
+            .arg(written.entries.size())
+            .arg(QString::fromStdString(written.manifest_sha256.substr(0, 12))),
+        8000);
+    return true;
+  } catch (const std::exception& e) {
+    QApplication::restoreOverrideCursor();
+    show_error(tr("Cannot export the bundle"),
+               tr("The bundle %1 was not written.\n\n%2")
+                   .arg(QDir::toNativeSeparators(path), message_of(e)));
+    return false;
+  }
+}
+
+void HandOff::ingest() {
+  if (busy()) return;
+  const QString bundle =
+      QFileDialog::getOpenFileName(window_, tr("Ingest Counts: Choose the Bundle the Rig Ran"),
+                                   last_dir(), gui_tr(kBundleFilter));
+  if (bundle.isEmpty()) return;
+  remember_dir(bundle);
+  const QString counts = QFileDialog::getOpenFileName(
+      window_, tr("Ingest Counts: Choose the Counts File for %1").arg(QFileInfo(bundle).fileName()),
+      QFileInfo(bundle).absolutePath(), gui_tr(kCountsFilter));
+  if (counts.isEmpty()) return;
+  ingest_files(bundle, counts);
+}
+
+void HandOff::ingest_files(const QString& bundle_path, const QString& counts_path) {
+  if (busy()) return;
+  set_busy(tr("Ingesting %1…").arg(QFileInfo(counts_path).fileName()));
+  ingest_watcher_ = new QFutureWatcher<IngestOutcome>(this);
+  connect(ingest_watcher_, &QFutureWatcher<IngestOutcome>::finished, this, [this] {
+    const IngestOutcome outcome = ingest_watcher_->result();
+    ingest_watcher_->deleteLater();
+    ingest_watcher_ = nullptr;
+    clear_busy();
+    if (!outcome.run) {
+      show_error(tr("Cannot ingest the counts"),
+                 tr("Nothing was ingested; your campaign and the Measured view are "
+                    "unchanged.\n\n%1")
+                     .arg(outcome.error));
+      return;
+    }
+    last_error_.clear();
+    view_->set_run(outcome.run);
+    window_->statusBar()->showMessage(
+        tr("Ingested %1: %2 of %3 entries measured.")
+            .arg(QFileInfo(QString::fromStdString(outcome.run->counts_source)).fileName())
+            .arg(outcome.run->result.measured_entries)
+            .arg(outcome.run->result.expected_entries),
+        8000);
+    emit ingested();
+  });
+  ingest_watcher_->setFuture(QtConcurrent::run(
+      [bundle_path, counts_path] { return load_and_ingest(bundle_path, counts_path); }));
+}
+
+void HandOff::resume() {
+  if (busy()) return;
+  const QString bundle = QFileDialog::getOpenFileName(
+      window_, tr("Resume: Choose the Bundle the Rig Ran"), last_dir(), gui_tr(kBundleFilter));
+  if (bundle.isEmpty()) return;
+  remember_dir(bundle);
+  const QString counts = QFileDialog::getOpenFileName(
+      window_,
+      tr("Resume: Choose the Partial Counts File for %1").arg(QFileInfo(bundle).fileName()),
+      QFileInfo(bundle).absolutePath(), gui_tr(kCountsFilter));
+  if (counts.isEmpty()) return;
+  resume_files(bundle, counts);
+}
+
+void HandOff::resume_files(const QString& bundle_path, const QString& counts_path) {
+  if (busy()) return;
+  set_busy(tr("Planning the rest after %1…").arg(QFileInfo(counts_path).fileName()));
+  resume_watcher_ = new QFutureWatcher<ResumeOutcome>(this);
+  connect(resume_watcher_, &QFutureWatcher<ResumeOutcome>::finished, this, [this] {
+    const ResumeOutcome outcome = resume_watcher_->result();
+    resume_watcher_->deleteLater();
+    resume_watcher_ = nullptr;
+    clear_busy();
+    if (!outcome.run) {
+      show_error(tr("Cannot resume"),
+                 tr("Nothing was planned; your campaign is unchanged.\n\n%1").arg(outcome.error));
+      return;
+    }
+    last_error_.clear();
+    resume_ = outcome;
+    emit resumed();
+    show_resume_dialog();
+  });
+  resume_watcher_->setFuture(QtConcurrent::run(
+      [bundle_path, counts_path] { return load_and_resume(bundle_path, counts_path); }));
+}
+
+void HandOff::show_resume_dialog() {
+  const formats::ResumeRun& run = *resume_.run;
+  const PlanSummary& s = run.plan.summary;
+  auto* dialog = new QDialog(window_);
+  dialog->setObjectName(QStringLiteral("resume_dialog"));
+  dialog->setAttribute(Qt::WA_DeleteOnClose);
+  dialog->setWindowTitle(tr("Resume from Counts"));
+  auto* layout = new QVBoxLayout(dialog);
+  auto* head = new QLabel(tr("<b>%1 entries are measured; %2 remain.</b> The remaining entries "
+                             "are planned from where the motors stopped. Save the new bundle "
+                             "and run it on the rig; it names %3 as its parent and carries the "
+                             "counts measured so far.")
+                              .arg(count_text(run.measured_entries))
+                              .arg(count_text(run.remaining_entries))
+                              .arg(QFileInfo(resume_.bundle_path).fileName()));
+  head->setWordWrap(true);
+  layout->addWidget(head);
+  auto* form = new QFormLayout;
+  const auto add = [form](const QString& label, const QString& value) {
+    auto* v = new QLabel(value);
+    v->setTextInteractionFlags(Qt::TextSelectableByMouse);
+    v->setAccessibleName(label);
+    form->addRow(label, v);
+  };
+  add(tr("Steps to run"), count_text(static_cast<double>(s.steps)));
+  add(tr("Nights"), tr("%1 of %2 allowed").arg(s.nights).arg(run.campaign.nights.max_nights));
+  add(tr("Total time"), duration_text(s.total_s));
+  add(tr("Counting time"), duration_text(s.integration_s));
+  add(tr("Moving time"), duration_text(s.move_s));
+  add(tr("Gram error of the remaining entries (Frobenius σ)"),
+      number_text(s.gram_sigma_frobenius, 4));
+  layout->addLayout(form);
+  layout->addWidget(new QLabel(tr("The same report as the command line prints:")));
+  auto* report = new QPlainTextEdit(QString::fromStdString(run.report()));
+  report->setReadOnly(true);
+  report->setAccessibleName(tr("Resume report"));
+  report->setFont(QFontDatabase::systemFont(QFontDatabase::FixedFont));
+  layout->addWidget(report, 1);
+  auto* buttons = new QDialogButtonBox;
+  QPushButton* save = buttons->addButton(tr("Save New Bundle…"), QDialogButtonBox::AcceptRole);
+  save->setAccessibleName(tr("Save the new bundle"));
+  buttons->addButton(QDialogButtonBox::Close);
+  connect(buttons, &QDialogButtonBox::rejected, dialog, &QDialog::reject);
+  connect(buttons, &QDialogButtonBox::accepted, dialog, [this, dialog] {
+    if (!cautions_acknowledged_()) return;
+    const QFileInfo parent(resume_.bundle_path);
+    QString path = QFileDialog::getSaveFileName(dialog, tr("Save the Resumed Bundle"),
+                                                parent.absolutePath() + QLatin1Char('/') +
+                                                    parent.completeBaseName() + tr("-resumed") +
+                                                    QStringLiteral(".zip"),
+                                                gui_tr(kBundleFilter));
+    if (path.isEmpty()) return;
+    if (QFileInfo(path).suffix().isEmpty()) path += QStringLiteral(".zip");
+    if (save_resumed_to(path)) dialog->accept();
+  });
+  layout->addWidget(buttons);
+  dialog->resize(620, 560);
+  dialog->open();
+}
+
+bool HandOff::save_resumed_to(const QString& path) {
+  if (!resume_.run || !resume_.bundle) return false;
+  QApplication::setOverrideCursor(Qt::WaitCursor);
+  try {
+    const formats::BundleWritten written = formats::write_resumed_bundle(
+        *resume_.run, *resume_.bundle, resume_.bundle_path, path, formats::Overwrite::allow);
+    QApplication::restoreOverrideCursor();
+    last_error_.clear();
+    window_->statusBar()->showMessage(tr("Wrote the resumed bundle %1 (%2 files)")
+                                          .arg(QDir::toNativeSeparators(path))
+                                          .arg(written.entries.size()),
+                                      8000);
+    return true;
+  } catch (const std::exception& e) {
+    QApplication::restoreOverrideCursor();
+    show_error(tr("Cannot save the resumed bundle"),
+               tr("The bundle %1 was not written.\n\n%2")
+                   .arg(QDir::toNativeSeparators(path), message_of(e)));
+    return false;
+  }
+}
+
+}  // namespace gramline::gui

@@ -1,0 +1,114 @@
+#pragma once
+// The hand-off to the rig and back, as the app does it: export the current plan as a bundle,
+// ingest the counts a rig wrote for a bundle (into the Measured view), and resume an
+// interrupted campaign from a partial counts file. Reading, ingesting and re-planning run on a
+// worker thread; the formats layer does all the work (formats::write_bundle, ingest_counts,
+// plan_resume, write_resumed_bundle), so the app and gramline-cli give the same numbers.
+#include <QFutureWatcher>
+#include <QObject>
+#include <QString>
+#include <functional>
+#include <memory>
+
+#include "formats/bundle.h"
+#include "formats/ingest_run.h"
+#include "formats/resume_run.h"
+
+class QAction;
+class QLabel;
+class QMainWindow;
+class QMenu;
+class QProgressBar;
+
+namespace gramline::gui {
+
+class MeasuredView;
+class PlanRunner;
+
+/// What reading and ingesting a bundle and its counts produced: the run, or the error message
+/// (which names the file, and the line for a counts file).
+struct IngestOutcome {
+  std::shared_ptr<const formats::IngestRun> run;
+  QString error;
+};
+/// read_bundle, read_counts_csv and ingest_counts; safe on any thread, never throws.
+IngestOutcome load_and_ingest(const QString& bundle_path, const QString& counts_path);
+
+struct ResumeOutcome {
+  std::shared_ptr<const formats::Bundle> bundle;
+  std::shared_ptr<const formats::ResumeRun> run;
+  QString bundle_path;
+  QString error;
+};
+/// read_bundle, read_counts_csv and plan_resume; safe on any thread, never throws.
+ResumeOutcome load_and_resume(const QString& bundle_path, const QString& counts_path);
+
+/// A file-name-safe version of a campaign name, for default file names.
+QString file_stem(const QString& name);
+
+class HandOff : public QObject {
+  Q_OBJECT
+
+ public:
+  /// `cautions_acknowledged` shows the cautions before the first export of a session and says
+  /// whether the user went on.
+  HandOff(QMainWindow* window, PlanRunner* planner, MeasuredView* view,
+          std::function<bool()> cautions_acknowledged);
+  ~HandOff() override;
+
+  /// Adds Export Bundle…, Ingest Counts… and Resume from Counts… to `menu`.
+  void add_actions(QMenu* menu);
+
+  /// File ▸ Export Bundle…: cautions (once a session), file dialog, then export_bundle_to.
+  void export_bundle();
+  /// Writes the bundle of the current plan to `path`, replacing a file the user agreed to
+  /// replace. False (after telling the user, naming the file) on failure.
+  bool export_bundle_to(const QString& path);
+
+  /// File ▸ Ingest Counts…: choose a bundle and a counts file, then ingest_files.
+  void ingest();
+  /// Ingests in the background; the Measured view shows the result (or a message box the
+  /// error). The view keeps its previous result when this fails.
+  void ingest_files(const QString& bundle_path, const QString& counts_path);
+
+  /// File ▸ Resume from Counts…: choose a bundle and a partial counts file, re-plan the rest in
+  /// the background, show its summary and offer to save the new bundle.
+  void resume();
+  void resume_files(const QString& bundle_path, const QString& counts_path);
+  /// Writes the new bundle of the last resume to `path` (cautions already acknowledged).
+  bool save_resumed_to(const QString& path);
+  std::shared_ptr<const formats::ResumeRun> last_resume() const { return resume_.run; }
+
+  bool busy() const { return ingest_watcher_ || resume_watcher_; }
+  /// The last error shown to the user (empty after a success).
+  QString last_error() const { return last_error_; }
+
+ signals:
+  /// The Measured view shows a new run.
+  void ingested();
+  /// A resume was planned and is held for saving.
+  void resumed();
+  void failed(const QString& message);
+
+ private:
+  void set_busy(const QString& what);
+  void clear_busy();
+  void show_error(const QString& title, const QString& message);
+  void show_resume_dialog();
+  QString last_dir() const;
+  void remember_dir(const QString& path) const;
+
+  QMainWindow* window_;
+  PlanRunner* planner_;
+  MeasuredView* view_;
+  std::function<bool()> cautions_acknowledged_;
+  QLabel* busy_label_;
+  QProgressBar* busy_bar_;
+  QList<QAction*> actions_;
+  QFutureWatcher<IngestOutcome>* ingest_watcher_ = nullptr;
+  QFutureWatcher<ResumeOutcome>* resume_watcher_ = nullptr;
+  ResumeOutcome resume_;
+  QString last_error_;
+};
+
+}  // namespace gramline::gui
