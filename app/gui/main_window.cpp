@@ -37,10 +37,12 @@
 #include "gramline/demo.h"
 #include "gui_text.h"
 #include "hand_off.h"
+#include "help_view.h"
 #include "margin_runner.h"
 #include "margin_view.h"
 #include "measured_view.h"
 #include "plan_runner.h"
+#include "preferences.h"
 #include "steps_view.h"
 #include "summary_view.h"
 #include "timeline_view.h"
@@ -242,6 +244,9 @@ void MainWindow::build_actions() {
   QAction* replan = action(edit, tr("Plan &Again"), QKeySequence::Refresh,
                            [this] { runner_->request_now(document_->campaign()); });
   action(edit, tr("&Cancel Planning"), QKeySequence(Qt::Key_Escape), [this] { runner_->cancel(); });
+  edit->addSeparator();
+  action(edit, tr("&Preferences…"), QKeySequence::Preferences,
+         [this] { PreferencesDialog(this).exec(); });
 
   const QStringList names = {tr("&Summary"), tr("S&teps"),    tr("T&imeline"), tr("&Gram Error"),
                              tr("&Margin"),  tr("M&easured"), tr("&Cautions")};
@@ -252,14 +257,11 @@ void MainWindow::build_actions() {
   }
   view->addSeparator();
 
+  action(help, tr("&User Guide"), QKeySequence(), [this] { show_user_guide(this); });
   action(help, tr("&Cautions"), QKeySequence::HelpContents, [this] { show_cautions(); });
-  action(help, tr("&About Gramline"), QKeySequence(), [this] {
-    QMessageBox::about(this, tr("About Gramline"),
-                       tr("<p><b>Gramline %1</b></p><p>Plans polarization-encoded quantum-kernel "
-                          "measurements with photon pairs: which settings, in which order, how "
-                          "long each, and how precise the Gram matrix will be.</p>")
-                           .arg(QStringLiteral(GRAMLINE_VERSION)));
-  });
+  help->addSeparator();
+  action(help, tr("&About Gramline"), QKeySequence(), [this] { show_about(this); });
+  action(help, tr("About &Qt"), QKeySequence(), [] { QApplication::aboutQt(); });
 
   for (QAction* a : {new_a, demo_a, open_a, save_action_}) bar->addAction(a);
   bar->addSeparator();
