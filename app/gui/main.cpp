@@ -2,10 +2,12 @@
 // `gramline --screenshots DIR [FILE]` renders every view into DIR as PNG files and exits.
 #include <QApplication>
 #include <QCommandLineParser>
+#include <QSettings>
 #include <QTimer>
 
 #include "app_icon.h"
 #include "main_window.h"
+#include "preferences.h"
 
 int main(int argc, char** argv) {
   QApplication app(argc, argv);
@@ -15,6 +17,10 @@ int main(int argc, char** argv) {
   QApplication::setApplicationVersion(QStringLiteral(GRAMLINE_VERSION));
   QGuiApplication::setDesktopFileName(QStringLiteral("io.github.gramline.Gramline"));
   QApplication::setWindowIcon(gramline::gui::app_icon());
+  // The language follows the system locale unless the preferences name one; before the
+  // command line is parsed so that --help speaks it too.
+  gramline::gui::install_translators(
+      &app, gramline::gui::ui_locale(gramline::gui::saved_language(QSettings())));
 
   QCommandLineParser parser;
   parser.setApplicationDescription(QApplication::translate(
