@@ -142,12 +142,7 @@ Bundle parse_bundle(const std::string& zip_bytes, const std::string& source,
                     const BundleReadLimits& limits = {});
 Bundle read_bundle(const QString& path, const BundleReadLimits& limits = {});
 
-/// A Plan whose steps are `steps` (the schedule the rig ran), with the ideal kernels of the
-/// campaign, step_of_train/step_of_test and the summary counts filled from those steps, and the
-/// predicted sigma of each entry from the rig model (detection.h) at the step's pairs.
-/// The steps must fit the campaign (parse_bundle checks that).
-Plan plan_from_steps(const Campaign& campaign, std::vector<Step> steps);
-/// plan_from_steps of the bundle's steps.json.
+/// gramline::plan_from_steps (plan.h) of the bundle's campaign and steps.json.
 Plan plan_from_bundle(const Bundle& bundle);
 
 }  // namespace gramline::formats

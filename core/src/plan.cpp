@@ -85,6 +85,35 @@ double entry_sigma(const Campaign& c, const EntryStats& s, double pairs) {
                                    s.rates.p_pass, pairs));
 }
 
+// Fills the entry -> step maps and the summary totals that follow from the steps alone.
+void index_steps(int n, int m, Plan& plan) {
+  plan.step_of_train = Eigen::MatrixXi::Constant(n, n, -1);
+  plan.step_of_test = Eigen::MatrixXi::Constant(m, n, -1);
+  PlanSummary& s = plan.summary;
+  for (size_t k = 0; k < plan.steps.size(); ++k) {
+    const Step& st = plan.steps[k];
+    s.move_s += st.move_s;
+    s.pairs_total += st.pairs;
+    s.total_s = std::max(s.total_s, st.start_s + st.move_s + st.dwell_s);
+    if (st.kind != StepKind::measure) {
+      s.reference_s += st.move_s + st.dwell_s;
+      continue;
+    }
+    ++s.settings;
+    s.integration_s += st.dwell_s;
+    s.measure_move_s += st.move_s;
+    const int a = std::min(st.prep_point, st.analysis_point);
+    const int b = std::max(st.prep_point, st.analysis_point);
+    if (st.block == Block::train) {
+      plan.step_of_train(a, b) = plan.step_of_train(b, a) = static_cast<int>(k);
+    } else {
+      // The test point has the larger global index.
+      plan.step_of_test(b - n, a) = static_cast<int>(k);
+    }
+  }
+  s.steps = static_cast<long>(plan.steps.size());
+}
+
 // Shares the pairs among the entries by the campaign's allocation strategy. The precision
 // target fixes the per-entry need; `uniform` gives every entry the largest need (so every entry
 // meets the target), and the other strategies spend that same total time differently
@@ -247,31 +276,8 @@ Plan plan_campaign(const Campaign& campaign, const PlanOptions& options) {
   }
 
   plan.steps = std::move(sched.steps);
-  plan.step_of_train = Eigen::MatrixXi::Constant(n, n, -1);
-  plan.step_of_test = Eigen::MatrixXi::Constant(m, n, -1);
+  index_steps(n, m, plan);
   PlanSummary& s = plan.summary;
-  for (size_t k = 0; k < plan.steps.size(); ++k) {
-    const Step& st = plan.steps[k];
-    s.move_s += st.move_s;
-    s.pairs_total += st.pairs;
-    if (st.kind == StepKind::measure) {
-      ++s.settings;
-      s.integration_s += st.dwell_s;
-      s.measure_move_s += st.move_s;
-      const int a = std::min(st.prep_point, st.analysis_point);
-      const int b = std::max(st.prep_point, st.analysis_point);
-      if (st.block == Block::train) {
-        plan.step_of_train(a, b) = plan.step_of_train(b, a) = static_cast<int>(k);
-      } else {
-        // The test point has the larger global index.
-        plan.step_of_test(b - n, a) = static_cast<int>(k);
-      }
-    } else {
-      s.reference_s += st.move_s + st.dwell_s;
-    }
-    s.total_s = std::max(s.total_s, st.start_s + st.move_s + st.dwell_s);
-  }
-  s.steps = static_cast<long>(plan.steps.size());
   s.nights = sched.nights;
   s.fits = sched.fits;
   s.night_use = sched.night_use;
@@ -288,6 +294,48 @@ Plan plan_campaign(const Campaign& campaign, const PlanOptions& options) {
   s.gram_sigma_frobenius = plan.gram_error.sigma_frobenius;
   s.plan_ms =
       std::chrono::duration<double, std::milli>(std::chrono::steady_clock::now() - t0).count();
+  return plan;
+}
+
+Plan plan_from_steps(const Campaign& campaign, std::vector<Step> steps) {
+  if (auto e = campaign.check_consistency(); !e.empty()) throw std::invalid_argument(e);
+  const Campaign& c = campaign;
+  const int n = c.data.train_count();
+  const int m = c.data.test_count();
+  const std::vector<PointStates> points = synthesize_points(c);
+  Plan plan;
+  plan.steps = std::move(steps);
+  for (size_t k = 0; k < plan.steps.size(); ++k) {
+    const Step& st = plan.steps[k];
+    if (st.prep_point >= n + m || st.analysis_point >= n + m ||
+        (st.kind == StepKind::measure && (st.prep_point < 0 || st.analysis_point < 0)))
+      throw std::invalid_argument("steps[" + std::to_string(k) +
+                                  "]: names a point the data set does not have");
+  }
+  plan.kernel_train = ideal_gram(c.encoding, c.data.train);
+  plan.kernel_test =
+      m > 0 ? ideal_cross(c.encoding, c.data.test, c.data.train) : Eigen::MatrixXd(0, n);
+  index_steps(n, m, plan);
+  plan.pairs_train = Eigen::MatrixXd::Zero(n, n);
+  plan.pairs_test = Eigen::MatrixXd::Zero(m, n);
+  plan.sigma_train = Eigen::MatrixXd::Zero(n, n);
+  plan.sigma_test = Eigen::MatrixXd::Zero(m, n);
+  for (const Step& st : plan.steps) {
+    plan.summary.nights = std::max(plan.summary.nights, st.night);
+    if (st.kind != StepKind::measure) continue;
+    const int a = std::min(st.prep_point, st.analysis_point);
+    const int b = std::max(st.prep_point, st.analysis_point);
+    const double sigma = entry_sigma(c, entry_stats(c, points[a], points[b]), st.pairs);
+    if (st.block == Block::train) {
+      plan.pairs_train(a, b) = plan.pairs_train(b, a) = st.pairs;
+      plan.sigma_train(a, b) = plan.sigma_train(b, a) = sigma;
+    } else {
+      plan.pairs_test(b - n, a) = st.pairs;
+      plan.sigma_test(b - n, a) = sigma;
+    }
+  }
+  plan.gram_error = predict_gram_error(plan.kernel_train, plan.sigma_train);
+  plan.summary.gram_sigma_frobenius = plan.gram_error.sigma_frobenius;
   return plan;
 }
 

@@ -111,6 +111,12 @@ struct GramProgressPoint {
 /// The curve, starting with the point before any step (end_s = 0).
 std::vector<GramProgressPoint> gram_progress(const Plan& plan);
 
+/// Rebuilds a plan around steps read back from a steps file: the ideal kernels, the entry ->
+/// step maps, each entry's pairs and predicted sigma at those pairs, the Gram error and the
+/// summary totals that follow from the steps. Bound and naive figures are left at 0. Throws
+/// std::invalid_argument for a step naming a point the data set does not have.
+Plan plan_from_steps(const Campaign& campaign, std::vector<Step> steps);
+
 /// Recomputes every step's move_s from positions alone (SPEC section 2); used by tests and the
 /// resume path. Returns the total.
 double recompute_moves(const Rig& rig, std::vector<Step>& steps);
