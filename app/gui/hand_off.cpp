@@ -247,8 +247,8 @@ void HandOff::ingest_files(const QString& bundle_path, const QString& counts_pat
     window_->statusBar()->showMessage(
         tr("Ingested %1: %2 of %3 entries measured.")
             .arg(QFileInfo(QString::fromStdString(outcome.run->counts_source)).fileName())
-            .arg(outcome.run->result.measured_entries)
-            .arg(outcome.run->result.expected_entries),
+            .arg(count_text(outcome.run->result.measured_entries),
+                 count_text(outcome.run->result.expected_entries)),
         8000);
     emit ingested();
   });
@@ -322,8 +322,7 @@ void HandOff::show_resume_dialog() {
   add(tr("Total time"), duration_text(s.total_s));
   add(tr("Counting time"), duration_text(s.integration_s));
   add(tr("Moving time"), duration_text(s.move_s));
-  add(tr("Gram error of the remaining entries (Frobenius σ)"),
-      number_text(s.gram_sigma_frobenius, 4));
+  add(tr("Gram error of the new plan (Frobenius σ)"), number_text(s.gram_sigma_frobenius, 4));
   layout->addLayout(form);
   layout->addWidget(new QLabel(tr("The same report as the command line prints:")));
   auto* report = new QPlainTextEdit(QString::fromStdString(run.report()));
@@ -349,7 +348,7 @@ void HandOff::show_resume_dialog() {
     if (save_resumed_to(path)) dialog->accept();
   });
   layout->addWidget(buttons);
-  dialog->resize(620, 560);
+  dialog->resize(620, 480);
   dialog->open();
 }
 

@@ -111,7 +111,7 @@ MeasuredView::MeasuredView(QWidget* parent) : QWidget(parent) {
              tr("Measure and reference steps of the bundle that have no row in the counts file"));
   add_figure(QStringLiteral("z_mean"), tr("Mean z-score"),
              tr("Mean of (measured − predicted) ÷ predicted σ over the measured entries"));
-  add_figure(QStringLiteral("z_sd"), tr("Spread of z-scores"),
+  add_figure(QStringLiteral("z_sd"), tr("Standard deviation of z-scores"),
              tr("Standard deviation of the z-scores; the predicted errors are right when it is "
                 "near 1"));
   add_figure(QStringLiteral("outliers"), tr("Outlier entries"),
@@ -166,6 +166,7 @@ MeasuredView::MeasuredView(QWidget* parent) : QWidget(parent) {
   split->addWidget(right_box);
   split->setStretchFactor(0, 1);
   split->setStretchFactor(1, 1);
+  split->setSizes({1000, 1000});  // half each; the splitter would go by size hints otherwise
 
   auto* results = new QWidget;
   auto* layout = new QVBoxLayout(results);
@@ -248,7 +249,8 @@ void MeasuredView::set_run(std::shared_ptr<const formats::IngestRun> run) {
                          .arg(number_text(r.z_std, 2)));
   const QString bundle = QString::fromStdString(g.bundle_source);
   const QString counts = QString::fromStdString(g.counts_source);
-  sources_->setText(tr("Counts %1 for the bundle %2 (manifest %3…).")
+  sources_->setText(tr("Counts file %1 for the bundle %2 (checksums verified; manifest SHA-256 "
+                       "%3…).")
                         .arg(QFileInfo(counts).fileName(), QFileInfo(bundle).fileName(),
                              QString::fromStdString(g.manifest_sha256.substr(0, 12))));
   sources_->setToolTip(tr("Counts: %1\nBundle: %2").arg(counts, bundle));
@@ -284,7 +286,10 @@ void MeasuredView::set_run(std::shared_ptr<const formats::IngestRun> run) {
   if (g.svm_trained && std::isfinite(g.test_accuracy)) {
     QString note = tr("%1 with the ideal kernel")
                        .arg(tr("%1 %").arg(number_text(100.0 * g.ideal_test_accuracy, 1)));
-    if (g.psd_repaired) note += tr("; negative eigenvalues were clipped before training");
+    if (g.psd_repaired)
+      note +=
+          tr("; the measured Gram matrix had negative eigenvalues, set to zero before "
+             "training");
     set_figure(QStringLiteral("accuracy"), tr("%1 %").arg(number_text(100.0 * g.test_accuracy, 1)),
                note);
   } else if (g.svm_trained) {
@@ -346,7 +351,7 @@ void MeasuredView::draw_histogram() {
   // The reference: the standard normal density scaled to the number of z-scores and the bin
   // width, which is what the histogram approaches when the predicted errors are right.
   auto* curve = new QLineSeries;
-  curve->setName(tr("standard normal, same number of entries"));
+  curve->setName(tr("standard normal curve"));
   const double scale = static_cast<double>(z.size()) * kBinWidth / std::sqrt(2 * std::numbers::pi);
   for (int k = 0; k <= 200; ++k) {
     const double x = -kZLimit + k * (2 * kZLimit / 200.0);
@@ -368,6 +373,7 @@ void MeasuredView::draw_histogram() {
                                   : tr("z = (measured − predicted) ÷ predicted σ"));
   auto* y_axis = new QValueAxis;
   y_axis->setRange(0, std::max(1.0, top * 1.08));
+  y_axis->applyNiceNumbers();
   y_axis->setLabelFormat(QStringLiteral("%.0f"));
   y_axis->setTitleText(tr("entries"));
   chart->addAxis(x_axis, Qt::AlignBottom);
@@ -393,16 +399,17 @@ void MeasuredView::draw_drift() {
   // One chart per quantity: points with ±1 σ error bars, drifted points in another colour and
   // shape, and a dashed line at the first reference step's value (what drift is measured from).
   const auto draw = [&](QChartView* view, const QString& title, const QString& unit,
-                        double DriftPoint::*value, double DriftPoint::*sigma, double factor) {
+                        double DriftPoint::*value, double DriftPoint::*sigma, double factor,
+                        const QString& decimals_format) {
     auto* chart = new QChart;
     chart->setTitle(title);
     auto* steady = new QScatterSeries;
-    steady->setName(tr("reference step, ±1 σ"));
+    steady->setName(tr("reference, ±1 σ"));
     steady->setMarkerSize(8);
     steady->setColor(work_colour::reference());
     steady->setBorderColor(work_colour::reference().darker(140));
     auto* moved = new QScatterSeries;
-    moved->setName(tr("drifted: beyond 3 σ of the first"));
+    moved->setName(tr("drifted"));
     moved->setMarkerShape(QScatterSeries::MarkerShapeRectangle);
     moved->setMarkerSize(10);
     moved->setColor(work_colour::moving());
@@ -430,9 +437,9 @@ void MeasuredView::draw_drift() {
     chart->addSeries(moved);
     if (!drift.empty() && std::isfinite(drift.front().*value)) {
       auto* first = new QLineSeries;
-      first->setName(tr("first reference step"));
+      first->setName(tr("first reference"));
       first->append(0, drift.front().*value * factor);
-      first->append(std::max(t_end, 1e-3) * 1.02, drift.front().*value * factor);
+      first->append(std::max(t_end, 1e-3) * 10, drift.front().*value * factor);  // clipped
       QColor c = palette().color(QPalette::Text);
       c.setAlphaF(0.6);
       first->setPen(QPen(c, 1.0, Qt::DashLine));
@@ -442,6 +449,7 @@ void MeasuredView::draw_drift() {
     if (moved->count() == 0) hide_from_legend(chart, moved);
     auto* x_axis = new QValueAxis;
     x_axis->setRange(0, std::max(t_end, 1e-3) * 1.02);
+    x_axis->applyNiceNumbers();
     x_axis->setTitleText(tr("hours since the start of night 1"));
     x_axis->setLabelFormat(QStringLiteral("%.1f"));
     auto* y_axis = new QValueAxis;
@@ -451,6 +459,9 @@ void MeasuredView::draw_drift() {
     }
     const double pad = std::max(1e-9, 0.08 * (high - low));
     y_axis->setRange(low - pad, high + pad);
+    y_axis->setTickCount(5);
+    y_axis->applyNiceNumbers();
+    y_axis->setLabelFormat(decimals_format);
     y_axis->setTitleText(unit);
     chart->addAxis(x_axis, Qt::AlignBottom);
     chart->addAxis(y_axis, Qt::AlignLeft);
@@ -464,10 +475,11 @@ void MeasuredView::draw_drift() {
     view->setChart(chart);
     delete old;
   };
-  draw(rate_, tr("Detected pair rate"), tr("pairs per second"), &DriftPoint::pair_detect_rate_per_s,
-       &DriftPoint::pair_detect_rate_sigma, 1.0);
-  draw(visibility_, tr("Visibility"), tr("visibility (%)"), &DriftPoint::visibility,
-       &DriftPoint::visibility_sigma, 100.0);
+  draw(rate_, tr("Detected pair rate (pairs/s)"), tr("pairs/s"),
+       &DriftPoint::pair_detect_rate_per_s, &DriftPoint::pair_detect_rate_sigma, 1.0,
+       QStringLiteral("%.0f"));
+  draw(visibility_, tr("Visibility (%)"), tr("%"), &DriftPoint::visibility,
+       &DriftPoint::visibility_sigma, 100.0, QStringLiteral("%.1f"));
   QStringList notes;
   if (drift.empty())
     notes << tr(
@@ -475,8 +487,10 @@ void MeasuredView::draw_drift() {
         "were used for every entry.");
   else
     notes << tr(
-        "Between reference steps the pair rate and visibility are interpolated in time "
-        "to calibrate each entry.");
+        "Squares mark drifted reference steps: their pair rate or their visibility "
+        "differs from the first reference step's by more than 3 combined σ, so the "
+        "same steps are marked in both charts. Between reference steps both are "
+        "interpolated in time to calibrate each entry.");
   if (!drift.empty() && !visibility_known)
     notes << tr(
         "This detection scheme cannot separate the visibility from the pair rate: its "
@@ -499,6 +513,7 @@ void MeasuredView::fill_outliers() {
     outliers_->setItem(r, 5, cell(number_text(o.z, 2)));
   }
   outliers_->resizeColumnsToContents();
+  outliers_->setVisible(!list.empty());  // an empty table only takes room from the histogram
   outliers_caption_->setText(
       list.empty()
           ? tr("<b>Outliers:</b> no entry has |z| above %1.")

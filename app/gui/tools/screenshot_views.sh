@@ -4,6 +4,10 @@
 # Usage: app/gui/tools/screenshot_views.sh [OUT_DIR] [CAMPAIGN_FILE]
 #   OUT_DIR defaults to build/screenshots; without CAMPAIGN_FILE the bundled demo is shown.
 #   GRAMLINE_APP may name the binary (default: the first of build*/app/gui/gramline).
+# The Measured view shows simulated counts: the campaign is exported with gramline-cli and its
+# counts drawn from the rig model by tests/gui's gramline_simulated_counts (both from the app's
+# build folder; without them the view's empty page is shot). SCREENSHOT_FADE (default 0) makes
+# the simulated pair rate fall by that share per hour, to show drifted reference steps.
 set -eu
 here=$(cd "$(dirname "$0")/../../.." && pwd)
 out=${1:-"$here/build/screenshots"}
@@ -20,10 +24,29 @@ if [ -z "$app" ] || [ ! -x "$app" ]; then
 fi
 command -v xvfb-run >/dev/null 2>&1 || { echo "screenshot_views.sh: needs xvfb-run (apt-get install xvfb)" >&2; exit 2; }
 mkdir -p "$out"
+build=$(cd "$(dirname "$app")/../.." && pwd)
+cli=$build/app/gramline-cli
+sim=$build/tests/gui/gramline_simulated_counts
 # A private settings folder: a reviewer's saved window layout must not change the pictures.
 export XDG_CONFIG_HOME="$(mktemp -d)"
 export XDG_DATA_HOME="$XDG_CONFIG_HOME"
 trap 'rm -rf "$XDG_CONFIG_HOME"' EXIT
+if [ -x "$cli" ] && [ -x "$sim" ]; then
+  inputs=$XDG_CONFIG_HOME/measured
+  mkdir -p "$inputs"
+  source_campaign=$campaign
+  if [ -z "$source_campaign" ]; then
+    source_campaign=$inputs/demo.json
+    "$cli" demo --out "$source_campaign" >/dev/null
+  fi
+  "$cli" export "$source_campaign" --out "$inputs/night.zip" >/dev/null
+  "$sim" "$inputs/night.zip" "$inputs/night-counts.csv" --seed 7 --fade "${SCREENSHOT_FADE:-0}"
+  export GRAMLINE_SCREENSHOT_BUNDLE="$inputs/night.zip"
+  export GRAMLINE_SCREENSHOT_COUNTS="$inputs/night-counts.csv"
+else
+  echo "screenshot_views.sh: no gramline-cli or gramline_simulated_counts in $build;" \
+    "the Measured view shows its empty page" >&2
+fi
 if [ -n "$campaign" ]; then
   xvfb-run -a -s "-screen 0 1600x1000x24" "$app" --screenshots "$out" "$campaign"
 else
