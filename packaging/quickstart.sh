@@ -1,7 +1,9 @@
 #!/usr/bin/env bash
 # Gramline quick start for a fresh Debian 12 machine (run as root, from the checkout).
 #   packaging/quickstart.sh demo   install what is missing, build, run the demo campaign
-#   packaging/quickstart.sh test   install what is missing, build, run every test
+#   packaging/quickstart.sh test   install what is missing, build, run every test (among them:
+#                                  install into a staging folder and run the installed CLI on
+#                                  the demo; build the .deb and .tar.gz and check them)
 # Both are idempotent: packages already present are not reinstalled, the build is incremental.
 set -euo pipefail
 
@@ -20,6 +22,7 @@ packages=(
   qt6-base-dev qt6-charts-dev qt6-tools-dev qt6-tools-dev-tools qt6-l10n-tools
   libgl-dev libqt6opengl6-dev libquazip1-qt6-dev libeigen3-dev
   libgtest-dev libsvm-dev libboost-math-dev
+  desktop-file-utils appstream dpkg-dev fakeroot file qt6-translations-l10n qt6-qpa-plugins
 )
 missing=()
 for p in "${packages[@]}"; do
