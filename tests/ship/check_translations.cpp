@@ -111,7 +111,7 @@ QString trailing_space(const QString& t) {
 }
 
 QString excerpt(const QString& text) {
-  QString one_line = text.simplified();
+  QString one_line = QString(text).replace(QLatin1Char('\n'), QLatin1Char(' '));
   if (one_line.size() > 70) one_line = one_line.left(67) + QStringLiteral("...");
   return QLatin1Char('"') + one_line + QLatin1Char('"');
 }
