@@ -48,7 +48,7 @@ fi
 
 cli="$build/app/gramline-cli"
 app="$build/app/gui/gramline"
-campaign="$build/demo-campaign.json"
+campaign="$build/demo.gramline.json"
 "$cli" demo --out "$campaign"
 if [[ -n "${DISPLAY:-}${WAYLAND_DISPLAY:-}" && -x "$app" ]]; then
   echo "== starting the app on the demo campaign"
