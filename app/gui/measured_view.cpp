@@ -23,6 +23,7 @@
 #include <vector>
 
 #include "chart_style.h"
+#include "figure_grid.h"
 #include "gui_text.h"
 
 namespace gramline::gui {
@@ -100,27 +101,27 @@ MeasuredView::MeasuredView(QWidget* parent) : QWidget(parent) {
   sources_->setTextInteractionFlags(Qt::TextSelectableByMouse);
   sources_->setAccessibleName(tr("Ingested files"));
 
-  auto* figures = new QWidget;
-  grid_ = new QGridLayout(figures);
-  grid_->setContentsMargins(0, 0, 0, 0);
-  grid_->setHorizontalSpacing(18);
-  grid_->setVerticalSpacing(6);
-  add_figure(QStringLiteral("entries"), tr("Entries measured"),
-             tr("Kernel entries with counts, out of those the bundle plans"));
-  add_figure(QStringLiteral("missing"), tr("Steps without counts"),
-             tr("Measure and reference steps of the bundle that have no row in the counts file"));
-  add_figure(QStringLiteral("z_mean"), tr("Mean z-score"),
-             tr("Mean of (measured − predicted) ÷ predicted σ over the measured entries"));
-  add_figure(QStringLiteral("z_sd"), tr("Standard deviation of z-scores"),
-             tr("Standard deviation of the z-scores; the predicted errors are right when it is "
-                "near 1"));
-  add_figure(QStringLiteral("outliers"), tr("Outlier entries"),
-             tr("Entries whose z-score is beyond the outlier limit"));
-  add_figure(QStringLiteral("drifted"), tr("Drifted reference steps"),
-             tr("Reference steps whose pair rate or visibility differs from the first reference "
-                "by more than 3 combined σ"));
-  add_figure(QStringLiteral("accuracy"), tr("Test accuracy (measured kernel)"),
-             tr("The classifier trained on the measured Gram matrix, scored on the test points"));
+  figures_ = new FigureGrid(4, 1.4);
+  figures_->grid()->setContentsMargins(0, 0, 0, 0);
+  figures_->grid()->setVerticalSpacing(6);
+  figures_->add(QStringLiteral("entries"), tr("Entries measured"),
+                tr("Kernel entries with counts, out of those the bundle plans"));
+  figures_->add(
+      QStringLiteral("missing"), tr("Steps without counts"),
+      tr("Measure and reference steps of the bundle that have no row in the counts file"));
+  figures_->add(QStringLiteral("z_mean"), tr("Mean z-score"),
+                tr("Mean of (measured − predicted) ÷ predicted σ over the measured entries"));
+  figures_->add(QStringLiteral("z_sd"), tr("Standard deviation of z-scores"),
+                tr("Standard deviation of the z-scores; the predicted errors are right when it is "
+                   "near 1"));
+  figures_->add(QStringLiteral("outliers"), tr("Outlier entries"),
+                tr("Entries whose z-score is beyond the outlier limit"));
+  figures_->add(QStringLiteral("drifted"), tr("Drifted reference steps"),
+                tr("Reference steps whose pair rate or visibility differs from the first reference "
+                   "by more than 3 combined σ"));
+  figures_->add(
+      QStringLiteral("accuracy"), tr("Test accuracy (measured kernel)"),
+      tr("The classifier trained on the measured Gram matrix, scored on the test points"));
 
   histogram_ = make_chart_view(tr("Histogram of the z-scores against the standard normal curve"));
   rate_ = make_chart_view(tr("Pair rate of the reference steps over the night"));
@@ -176,7 +177,7 @@ MeasuredView::MeasuredView(QWidget* parent) : QWidget(parent) {
   line->setFrameShape(QFrame::HLine);
   line->setFrameShadow(QFrame::Sunken);
   layout->addWidget(line);
-  layout->addWidget(figures);
+  layout->addWidget(figures_);
   layout->addWidget(split, 1);
 
   pages_ = new QStackedWidget;
@@ -187,44 +188,11 @@ MeasuredView::MeasuredView(QWidget* parent) : QWidget(parent) {
   outer->addWidget(pages_);
 }
 
-QLabel* MeasuredView::add_figure(const QString& key, const QString& title, const QString& help) {
-  // Four figures to a row: caption, value, note.
-  const int index = static_cast<int>(values_.size());
-  const int row = (index / 4) * 3;
-  const int col = index % 4;
-  auto* caption = new QLabel(title);
-  caption->setToolTip(help);
-  QFont bold = caption->font();
-  bold.setBold(true);
-  caption->setFont(bold);
-  auto* value = new QLabel(QStringLiteral("–"));
-  QFont big = value->font();
-  big.setPointSizeF(big.pointSizeF() * 1.4);
-  value->setFont(big);
-  value->setTextInteractionFlags(Qt::TextSelectableByMouse);
-  value->setAccessibleName(title);
-  value->setToolTip(help);
-  auto* note = new QLabel;
-  note->setWordWrap(true);
-  note->setForegroundRole(QPalette::PlaceholderText);
-  grid_->addWidget(caption, row, col);
-  grid_->addWidget(value, row + 1, col);
-  grid_->addWidget(note, row + 2, col, Qt::AlignTop);
-  grid_->setColumnStretch(col, 1);
-  values_.insert(key, value);
-  notes_.insert(key, note);
-  return value;
-}
-
 void MeasuredView::set_figure(const QString& key, const QString& value, const QString& note) {
-  if (QLabel* v = values_.value(key)) v->setText(value);
-  if (QLabel* n = notes_.value(key)) n->setText(note);
+  figures_->set(key, value, note);
 }
 
-QString MeasuredView::figure(const QString& key) const {
-  const QLabel* l = values_.value(key);
-  return l ? l->text() : QString();
-}
+QString MeasuredView::figure(const QString& key) const { return figures_->value(key); }
 
 QString MeasuredView::headline() const { return headline_->text(); }
 

@@ -17,6 +17,8 @@ class QTableWidget;
 
 namespace gramline::gui {
 
+class FigureGrid;
+
 class MeasuredView : public QWidget {
   Q_OBJECT
 
@@ -41,7 +43,6 @@ class MeasuredView : public QWidget {
   void ingest_requested();
 
  private:
-  QLabel* add_figure(const QString& key, const QString& title, const QString& help);
   void set_figure(const QString& key, const QString& value, const QString& note = {});
   void draw_histogram();
   void draw_drift();
@@ -51,9 +52,7 @@ class MeasuredView : public QWidget {
   QStackedWidget* pages_;
   QLabel* headline_;
   QLabel* sources_;
-  QGridLayout* grid_;
-  QHash<QString, QLabel*> values_;
-  QHash<QString, QLabel*> notes_;
+  FigureGrid* figures_;
   QChartView* histogram_;
   QChartView* rate_;
   QChartView* visibility_;

@@ -10,6 +10,7 @@
 #include <QVBoxLayout>
 #include <cmath>
 
+#include "figure_grid.h"
 #include "gui_text.h"
 
 namespace gramline::gui {
@@ -26,29 +27,27 @@ SummaryView::SummaryView(QWidget* parent) : QWidget(parent) {
   margin_verdict_->setWordWrap(true);
   margin_verdict_->setAccessibleName(tr("Margin verdict"));
 
-  auto* figures = new QWidget;
-  grid_ = new QGridLayout(figures);
-  grid_->setHorizontalSpacing(18);
-  grid_->setVerticalSpacing(14);
+  figures_ = new FigureGrid(3, 1.6);
+  figures_->grid()->setVerticalSpacing(14);
 
-  add_figure("nights", tr("Nights"), tr("Nights the plan needs, out of the nights allowed"));
-  add_figure("total", tr("Total time"),
-             tr("From the start of night 1 to the end of the last step"));
-  add_figure("settings", tr("Settings to measure"),
-             tr("Kernel entries measured (training pairs and test × training)"));
-  add_figure("motor_share", tr("Motor share"), tr("Share of the busy time spent moving plates"));
-  add_figure("gain", tr("Gain over naive order"),
-             tr("Motor time of the row-by-row order divided by that of this plan"));
-  add_figure("gap", tr("Gap to lower bound"),
-             tr("How far the measure steps' motor time is above a proven lower bound"));
-  add_figure("gram", tr("Gram error (Frobenius σ)"),
-             tr("Predicted standard deviation of the whole training Gram matrix"));
-  add_figure("negative", tr("Chance of a negative eigenvalue"),
-             tr("Probability the measured Gram matrix is not positive semidefinite"));
-  add_figure("pairs", tr("Detected pairs"), tr("Pairs over all steps"));
-  add_figure("counting", tr("Counting time"), tr("Dwell of the measure steps"));
-  add_figure("moving", tr("Moving time"), tr("Motor time of all steps, settle and overhead"));
-  add_figure("plan_ms", tr("Planning took"), tr("Wall time of the last planning run"));
+  figures_->add("nights", tr("Nights"), tr("Nights the plan needs, out of the nights allowed"));
+  figures_->add("total", tr("Total time"),
+                tr("From the start of night 1 to the end of the last step"));
+  figures_->add("settings", tr("Settings to measure"),
+                tr("Kernel entries measured (training pairs and test × training)"));
+  figures_->add("motor_share", tr("Motor share"), tr("Share of the busy time spent moving plates"));
+  figures_->add("gain", tr("Gain over naive order"),
+                tr("Motor time of the row-by-row order divided by that of this plan"));
+  figures_->add("gap", tr("Gap to lower bound"),
+                tr("How far the measure steps' motor time is above a proven lower bound"));
+  figures_->add("gram", tr("Gram error (Frobenius σ)"),
+                tr("Predicted standard deviation of the whole training Gram matrix"));
+  figures_->add("negative", tr("Chance of a negative eigenvalue"),
+                tr("Probability the measured Gram matrix is not positive semidefinite"));
+  figures_->add("pairs", tr("Detected pairs"), tr("Pairs over all steps"));
+  figures_->add("counting", tr("Counting time"), tr("Dwell of the measure steps"));
+  figures_->add("moving", tr("Moving time"), tr("Motor time of all steps, settle and overhead"));
+  figures_->add("plan_ms", tr("Planning took"), tr("Wall time of the last planning run"));
 
   report_ = new QPlainTextEdit;
   report_->setReadOnly(true);
@@ -64,7 +63,7 @@ SummaryView::SummaryView(QWidget* parent) : QWidget(parent) {
   line->setFrameShape(QFrame::HLine);
   line->setFrameShadow(QFrame::Sunken);
   layout->addWidget(line);
-  layout->addWidget(figures);
+  layout->addWidget(figures_);
   layout->addWidget(new QLabel(tr("The same report as the command line prints:")));
   layout->addWidget(report_);
   layout->addStretch(1);
@@ -78,46 +77,16 @@ SummaryView::SummaryView(QWidget* parent) : QWidget(parent) {
   outer->addWidget(scroll);
 }
 
-QLabel* SummaryView::add_figure(const QString& key, const QString& title, const QString& help) {
-  const int index = static_cast<int>(values_.size());
-  const int row = (index / 3) * 3;
-  const int col = index % 3;
-  auto* caption = new QLabel(title);
-  caption->setToolTip(help);
-  QFont small = caption->font();
-  small.setBold(true);
-  caption->setFont(small);
-  auto* value = new QLabel(QStringLiteral("–"));
-  QFont big = value->font();
-  big.setPointSizeF(big.pointSizeF() * 1.6);
-  value->setFont(big);
-  value->setTextInteractionFlags(Qt::TextSelectableByMouse);
-  value->setAccessibleName(title);
-  value->setToolTip(help);
-  auto* note = new QLabel;
-  note->setWordWrap(true);
-  note->setForegroundRole(QPalette::PlaceholderText);
-  grid_->addWidget(caption, row, col);
-  grid_->addWidget(value, row + 1, col);
-  grid_->addWidget(note, row + 2, col);
-  grid_->setColumnStretch(col, 1);
-  values_.insert(key, value);
-  notes_.insert(key, note);
-  return value;
-}
-
 void SummaryView::set_plan(std::shared_ptr<const Plan> plan, const Campaign& campaign) {
   if (!plan) {
-    for (QLabel* l : values_) l->setText(QStringLiteral("–"));
-    for (QLabel* l : notes_) l->clear();
+    figures_->clear_all();
     verdict_->setText(tr("No plan yet."));
     report_->clear();
     return;
   }
   const PlanSummary& s = plan->summary;
   const auto set = [this](const char* key, const QString& value, const QString& note = {}) {
-    values_.value(key)->setText(value);
-    notes_.value(key)->setText(note);
+    figures_->set(key, value, note);
   };
   const int allowed = campaign.nights.max_nights;
   if (s.fits) {
@@ -188,10 +157,7 @@ void SummaryView::set_margin_verdict(const QString& text, bool pass) {
   margin_verdict_->setFont(f);
 }
 
-QString SummaryView::figure(const QString& key) const {
-  const QLabel* l = values_.value(key);
-  return l ? l->text() : QString();
-}
+QString SummaryView::figure(const QString& key) const { return figures_->value(key); }
 
 QString SummaryView::verdict() const { return verdict_->text(); }
 

@@ -13,6 +13,8 @@ class QPlainTextEdit;
 
 namespace gramline::gui {
 
+class FigureGrid;
+
 class SummaryView : public QWidget {
   Q_OBJECT
 
@@ -26,14 +28,10 @@ class SummaryView : public QWidget {
   QString verdict() const;
 
  private:
-  QLabel* add_figure(const QString& key, const QString& title, const QString& help);
-
   QLabel* verdict_;
   QLabel* margin_verdict_;
-  QGridLayout* grid_;
+  FigureGrid* figures_;
   QPlainTextEdit* report_;
-  QHash<QString, QLabel*> values_;
-  QHash<QString, QLabel*> notes_;
 };
 
 }  // namespace gramline::gui
