@@ -1,10 +1,17 @@
 // The desktop app end to end: open the demo, edit a motor, watch the plan and the summary
 // follow; undo; save and open again. Runs on the offscreen platform.
+#include <QApplication>
+#include <QDir>
 #include <QElapsedTimer>
+#include <QFile>
+#include <QMessageBox>
+#include <QPushButton>
+#include <QSettings>
 #include <QSignalSpy>
 #include <QStandardPaths>
 #include <QTemporaryDir>
 #include <QTest>
+#include <QTimer>
 #include <QUndoStack>
 
 #include "campaign_document.h"
@@ -195,6 +202,33 @@ class MainWindowTest : public QObject {
     w.document()->undo_stack()->undo();
     QTRY_VERIFY_WITH_TIMEOUT(settled(w) && w.frame(MainWindow::kSummary)->banner().isEmpty(),
                              kWaitMs);
+  }
+
+  void recovers_the_autosave_of_a_crashed_session() {
+    // A session that died leaves its autosave behind and no live lock; the next start offers it.
+    const QString dir =
+        QStandardPaths::writableLocation(QStandardPaths::AppDataLocation) + "/autosave";
+    QVERIFY(QDir().mkpath(dir));
+    const QString left = dir + "/session-3999999.json";  // a process id no session has now
+    gramline::Campaign crashed = gramline::make_demo_campaign();
+    crashed.name = "work of a crashed session";
+    crashed.rig.motors[0].speed_deg_per_s = 7.5;
+    gramline::formats::save_campaign(crashed, left);
+    QSettings(left + ".ini", QSettings::IniFormat).setValue("original", "/tmp/night.gramline.json");
+
+    MainWindow w;
+    make_quick(w);
+    // Answer the recovery question as a user would.
+    QTimer::singleShot(0, [] {
+      auto* box = qobject_cast<QMessageBox*>(QApplication::activeModalWidget());
+      if (box) box->button(QMessageBox::Yes)->click();
+    });
+    w.offer_recovery();
+    QCOMPARE(QString::fromStdString(w.document()->campaign().name),
+             QStringLiteral("work of a crashed session"));
+    QCOMPARE(w.document()->campaign().rig.motors[0].speed_deg_per_s, 7.5);
+    QVERIFY(w.document()->modified());  // recovered work still needs saving
+    QVERIFY(!QFile::exists(left));
   }
 };
 
