@@ -7,7 +7,6 @@
 #include <QJsonArray>
 #include <QJsonDocument>
 #include <QJsonObject>
-#include <QProcess>
 #include <QTemporaryDir>
 #include <cmath>
 #include <map>
@@ -16,15 +15,12 @@
 
 #include "formats/campaign_json.h"
 #include "gramline/demo.h"
+#include "handoff_fixtures.h"
 
 namespace {
 
-int run(const QStringList& arguments) {
-  QProcess p;
-  p.start(QString(GRAMLINE_CLI_PATH), arguments);
-  if (!p.waitForFinished(300000)) return -1;
-  return p.exitStatus() == QProcess::NormalExit ? p.exitCode() : -2;
-}
+// Exit status of one gramline-cli run.
+int run(const QStringList& arguments) { return handoff_test::run_cli(arguments).status; }
 
 QJsonObject read_json(const QString& path) {
   QFile f(path);

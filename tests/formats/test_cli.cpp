@@ -20,31 +20,14 @@
 #include "formats/plan_files.h"
 #include "gramline/jones.h"
 #include "gramline/motion.h"
+#include "handoff_fixtures.h"
 
 namespace {
 
 using namespace gramline;
 
-struct CliRun {
-  int status = -1;
-  std::string out;
-  std::string err;
-};
-
-CliRun run_cli(const QStringList& arguments) {
-  QProcess process;
-  process.start(QString(GRAMLINE_CLI_PATH), arguments);
-  CliRun run;
-  if (!process.waitForFinished(120000)) {
-    process.kill();
-    process.waitForFinished();
-    return run;
-  }
-  run.status = process.exitStatus() == QProcess::NormalExit ? process.exitCode() : -2;
-  run.out = process.readAllStandardOutput().toStdString();
-  run.err = process.readAllStandardError().toStdString();
-  return run;
-}
+using handoff_test::CliRun;
+using handoff_test::run_cli;
 
 QString data_file(const char* name) { return QString(GRAMLINE_TEST_DATA) + "/" + name; }
 
