@@ -20,6 +20,7 @@
 #include <QTimeEdit>
 #include <QVBoxLayout>
 #include <cmath>
+#include <utility>
 
 #include "campaign_document.h"
 #include "gui_text.h"
@@ -63,21 +64,16 @@ EditorPanel::EditorPanel(CampaignDocument* document, QWidget* parent)
   refresh();
 }
 
-QDoubleSpinBox* EditorPanel::number(QFormLayout* form, const QString& key, const QString& label,
-                                    const QString& help, double min, double max, int decimals,
-                                    const QString& suffix,
-                                    std::function<double(const Campaign&)> get,
-                                    std::function<void(Campaign&, double)> set) {
-  auto* box = new QDoubleSpinBox;
-  box->setRange(min, max);
-  box->setDecimals(decimals);
-  box->setSuffix(suffix);
+template <typename Box, typename Value>
+Box* EditorPanel::bind_spin(Box* box, QFormLayout* form, const QString& key, const QString& label,
+                            const QString& help, std::function<Value(const Campaign&)> get,
+                            std::function<void(Campaign&, Value)> set) {
   box->setKeyboardTracking(false);  // one edit per finished value, not per keystroke
   box->setAccessibleName(label);
   box->setToolTip(help);
   box->setObjectName(key);
   form->addRow(label, box);
-  connect(box, &QDoubleSpinBox::valueChanged, this, [this, key, label, set](double v) {
+  connect(box, &Box::valueChanged, this, [this, key, label, set](Value v) {
     document_->edit(
         tr("Change %1").arg(label), [set, v](Campaign& c) { set(c, v); }, key);
   });
@@ -88,26 +84,25 @@ QDoubleSpinBox* EditorPanel::number(QFormLayout* form, const QString& key, const
   return box;
 }
 
+QDoubleSpinBox* EditorPanel::number(QFormLayout* form, const QString& key, const QString& label,
+                                    const QString& help, double min, double max, int decimals,
+                                    const QString& suffix,
+                                    std::function<double(const Campaign&)> get,
+                                    std::function<void(Campaign&, double)> set) {
+  auto* box = new QDoubleSpinBox;
+  box->setRange(min, max);
+  box->setDecimals(decimals);
+  box->setSuffix(suffix);
+  return bind_spin(box, form, key, label, help, std::move(get), std::move(set));
+}
+
 QSpinBox* EditorPanel::integer(QFormLayout* form, const QString& key, const QString& label,
                                const QString& help, int min, int max,
                                std::function<int(const Campaign&)> get,
                                std::function<void(Campaign&, int)> set) {
   auto* box = new QSpinBox;
   box->setRange(min, max);
-  box->setKeyboardTracking(false);
-  box->setAccessibleName(label);
-  box->setToolTip(help);
-  box->setObjectName(key);
-  form->addRow(label, box);
-  connect(box, &QSpinBox::valueChanged, this, [this, key, label, set](int v) {
-    document_->edit(
-        tr("Change %1").arg(label), [set, v](Campaign& c) { set(c, v); }, key);
-  });
-  refreshers_.push_back([this, box, get] {
-    const QSignalBlocker block(box);
-    box->setValue(get(document_->campaign()));
-  });
-  return box;
+  return bind_spin(box, form, key, label, help, std::move(get), std::move(set));
 }
 
 QCheckBox* EditorPanel::flag(QFormLayout* form, const QString& key, const QString& label,

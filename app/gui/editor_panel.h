@@ -51,6 +51,11 @@ class EditorPanel : public QWidget {
   QWidget* build_measurement_page();
   QWidget* build_nights_page();
 
+  /// Shared wiring of a spin box: names, undoable edits and refresh from the campaign.
+  template <typename Box, typename Value>
+  Box* bind_spin(Box* box, QFormLayout* form, const QString& key, const QString& label,
+                 const QString& help, std::function<Value(const Campaign&)> get,
+                 std::function<void(Campaign&, Value)> set);
   QDoubleSpinBox* number(QFormLayout* form, const QString& key, const QString& label,
                          const QString& help, double min, double max, int decimals,
                          const QString& suffix, std::function<double(const Campaign&)> get,
