@@ -195,8 +195,8 @@
     </message>
     <message>
         <location line="+8"/>
-        <source>same precision for every entry</source>
-        <translation>gleiche Präzision für jeden Eintrag</translation>
+        <source>uniform (same pairs; every entry meets ε)</source>
+        <translation>gleichmäßig (gleiche Paare; jeder Eintrag erreicht ε)</translation>
     </message>
     <message>
         <location line="+2"/>

@@ -98,7 +98,7 @@ QString method_text(BudgetMethod method) {
 QString allocation_text(Allocation allocation) {
   switch (allocation) {
     case Allocation::uniform:
-      return tr("same precision for every entry");
+      return tr("uniform (same pairs; every entry meets ε)");
     case Allocation::neyman:
       return tr("Neyman (pairs where variance is)");
     case Allocation::margin_aware:
