@@ -1,6 +1,6 @@
-// gramline-cli check: the margin check as JSON (SPEC section 3, "check output"), with the
-// intervals, failing points, minimum budget, allocation comparison and scale advice beside the
-// SPEC keys.
+// gramline-cli check: the margin check as JSON (every key in docs/plan-files.md, "The check
+// JSON"): the classifier and verdict, with the intervals, failing points, minimum budget,
+// allocation comparison and scale advice beside them.
 #include <QJsonArray>
 #include <QJsonDocument>
 #include <QJsonObject>
@@ -48,7 +48,7 @@ QJsonObject check_json(const Campaign& campaign, const MarginCheck& check, std::
   const TrialSummary& t = check.trials;
   const int n = campaign.data.train_count();
   QJsonObject o;
-  // SPEC section 3 keys.
+  // Classifier and verdict (docs/plan-files.md).
   o["verdict"] = check.verdict.pass ? "pass" : "fail";
   o["C"] = check.C;
   o["dual_coef"] = numbers(check.ideal.dual_coef);

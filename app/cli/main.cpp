@@ -1,4 +1,4 @@
-// gramline-cli: the command-line twin of the Gramline app (SPEC section 3).
+// gramline-cli: the command-line twin of the Gramline app (README, "Command line").
 #include <algorithm>
 #include <charconv>
 #include <exception>

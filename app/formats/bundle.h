@@ -8,7 +8,7 @@
 //                    "files": [{"name", "bytes", "sha256"}, ...]}
 //   campaign.json   the campaign as planned (points inline, seed applied)
 //   data.csv        its points in the data CSV format
-//   steps.json, steps.csv, summary.json, kernel.csv   as `plan --out` (SPEC section 3)
+//   steps.json, steps.csv, summary.json, kernel.csv   as `plan --out` (docs/plan-files.md)
 //   summary.html    printable summary with the timeline, Gram error maps and cautions
 //   resumed bundles also: measured_steps.json and measured_counts.csv (what earlier bundles
 //   measured, counts renumbered onto those steps) and resume.json (where the motors stopped)

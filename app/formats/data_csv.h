@@ -1,5 +1,5 @@
 #pragma once
-// The data CSV of `--data` (SPEC section 3): a header row, numeric feature columns, a `label`
+// The data CSV of `--data` (README, "Files"): a header row, numeric feature columns, a `label`
 // column with exactly two classes, an optional `set` column (`train` or `test`).
 #include <QString>
 #include <string>

@@ -1,5 +1,5 @@
 #pragma once
-// The files `plan --out DIR` writes (SPEC section 3): steps.json, steps.csv, summary.json and
+// The files `plan --out DIR` writes (docs/plan-files.md): steps.json, steps.csv, summary.json and
 // kernel.csv; and a reader for steps.json (a rig controller, a resumed campaign or a test can
 // take the schedule back from it).
 #include <QString>
@@ -14,7 +14,8 @@ namespace gramline::formats {
 inline constexpr const char* kStepsFormat = "gramline-steps";
 inline constexpr int kStepsVersion = 1;
 
-/// SPEC sections 1 and 2 in words: what the positions mean and how move_s follows from them.
+/// docs/conventions.md and docs/motion-model.md in brief: what the positions mean and how
+/// move_s follows from them.
 std::string steps_conventions_text();
 
 /// steps.json text: conventions, motors with their model parameters, controller, steps.
@@ -22,7 +23,8 @@ std::string format_steps_json(const Rig& rig, const std::vector<Step>& steps);
 /// steps.csv text: one row per step, one column per motor (`<motor name>_deg`), units in the
 /// header; empty fields where steps.json has null.
 std::string format_steps_csv(const Rig& rig, const std::vector<Step>& steps);
-/// summary.json text: every SPEC key plus night use, the Gram error figures and the counts.
+/// summary.json text: the core keys plus night use, the Gram error figures and the counts
+/// (docs/plan-files.md).
 std::string format_summary_json(const Campaign& campaign, const Plan& plan);
 /// kernel.csv text: the N x N matrix, no header, 17 significant digits.
 std::string format_kernel_csv(const Eigen::MatrixXd& kernel);

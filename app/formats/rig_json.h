@@ -1,6 +1,6 @@
 #pragma once
-// JSON of a motor and of the controller (SPEC section 2 parameters), shared by the campaign
-// file and steps.json so both spell the motion model the same way.
+// JSON of a motor and of the controller (the parameters of docs/motion-model.md), shared by the
+// campaign file and steps.json so both spell the motion model the same way.
 #include <QJsonObject>
 
 #include "formats/json_field.h"

@@ -26,7 +26,7 @@ class DataModel : public QAbstractTableModel {
   DataSet data_;
 };
 
-/// One row per motor, one column per SPEC section 2 parameter.
+/// One row per motor, one column per parameter of docs/motion-model.md.
 class MotorsModel : public QAbstractTableModel {
   Q_OBJECT
 

@@ -1,4 +1,4 @@
-// The motor time model of SPEC section 2. Every move time in Gramline comes from here.
+// The motor time model of docs/motion-model.md. Every move time in Gramline comes from here.
 #include "gramline/motion.h"
 
 #include <algorithm>

@@ -185,7 +185,7 @@ Plan plan_campaign(const Campaign& campaign, const PlanOptions& options) {
       m > 0 ? ideal_cross(c.encoding, c.data.test, c.data.train) : Eigen::MatrixXd(0, n);
   options.hooks.throw_if_cancelled();
 
-  // Entries: every unordered training pair, then every (test, training) pair (SPEC section 3).
+  // Entries: every unordered training pair, then every (test, training) pair (docs/plan-files.md).
   ScheduleInput in;
   in.rig = &c.rig;
   in.train_count = n;

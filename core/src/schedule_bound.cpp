@@ -1,7 +1,7 @@
 // Lower bound on the measure steps' move time, and the exact solver for tiny instances.
 //
 // Notation. A configuration is a (prepared point, analysed point) pair, or the start positions,
-// or the park (initial) positions. c(x -> y) is the true step time (SPEC section 2) between
+// or the park (initial) positions. c(x -> y) is the true step time (docs/motion-model.md) between
 // configurations. For a measure setting s = (p, a) (p != a) the relaxed cost of a move from
 // (q, r) is l(q, r -> s) = step_s(join(cP(q, p), cA(r, a))), where cP / cA are the side costs
 // of compute_side_costs: per group the cheapest pair of discrete solutions, per motor the angle

@@ -47,7 +47,7 @@ class MoveModel {
     return overhead_s_ + (motor_part_s > 0.0 ? motor_part_s + settle_s_ : 0.0);
   }
 
-  /// Time of one motor between two angles taken modulo the plate period (SPEC section 2).
+  /// Time of one motor between two angles taken modulo the plate period (docs/motion-model.md).
   /// Exact for a continuously rotating motor (it may stop at any equivalent position); a lower
   /// bound for a motor with a travel range, whose choice of positions is smaller.
   double motor_angle_s(int motor, double from_deg, double to_deg) const;

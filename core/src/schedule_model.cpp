@@ -1,4 +1,5 @@
-// Scheduler cost model: the SPEC section 2 move time seen through discrete waveplate solutions.
+// Scheduler cost model: the move time of docs/motion-model.md seen through discrete waveplate
+// solutions.
 #include <algorithm>
 #include <cmath>
 #include <limits>

@@ -190,7 +190,7 @@ std::vector<Code> sweep_order(const Layout& layout, int row_side, const std::vec
       for (int m = N - 1; m >= 0; --m) add(t, tour[m]);
     }
   }
-  // Entries outside the row/sweep pattern (should there be any) go last, as requested.
+  // Entries outside the row/sweep pattern (should there be any) go last, in their input order.
   for (std::size_t e = 0; e < entries.size(); ++e) {
     if (!used[e]) order.push_back(make_code(static_cast<int>(e), false));
   }

@@ -320,7 +320,7 @@ TEST(Budget, MethodNamesRoundTrip) {
 
 // Rule of thumb (common practice): a rig needing about 10 s per setting spends about 10^4 s on
 // 10^3 settings. A sanity check of units: pairs / (pairs per second) = seconds, and a step's
-// move time from the SPEC section 2 model adds seconds, not milliseconds or minutes.
+// move time from the model of docs/motion-model.md adds seconds, not milliseconds or minutes.
 TEST(Budget, RuleOfThumbTenSecondsPerSetting) {
   gramline::Rig rig;
   rig.source.pair_rate_per_s = 50000.0;
@@ -351,7 +351,7 @@ TEST(Budget, RuleOfThumbTenSecondsPerSetting) {
   rig.controller.moves = gramline::MoveMode::simultaneous;
   rig.controller.settle_s = 0.5;
   rig.controller.overhead_s = 0.1;
-  // By hand (SPEC section 2): d = 20 >= v^2/a = 7.5, so T = 20/15 + 15/30 = 1.8333 s; plus
+  // By hand (docs/motion-model.md): d = 20 >= v^2/a = 7.5, so T = 20/15 + 15/30 = 1.8333 s; plus
   // settle 0.5 and overhead 0.1.
   const std::vector<double> from(8, 0.0), to(8, 20.0);
   const double move_s = gramline::step_move_s(rig, from, to);

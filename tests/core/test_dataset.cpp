@@ -49,7 +49,7 @@ TEST(DataSet, GoodSetIsValid) {
   EXPECT_EQ(d.feature_count(), 2);
 }
 
-// SPEC section 3: training points first in file order, then test points.
+// docs/plan-files.md: training points first in file order, then test points.
 TEST(DataSet, PointIndexesTrainingThenTest) {
   const DataSet d = good_set();
   EXPECT_EQ(d.point(0), d.train.row(0).transpose());
@@ -96,7 +96,7 @@ TEST(DataSet, NonFiniteFeatureNamesPointAndFeature) {
     t.test(1, 0) = bad;
     const std::string tmsg = gramline::validate(t);
     EXPECT_NE(tmsg, "");
-    // Test point 1 is global point 7 (training points first, SPEC section 3).
+    // Test point 1 is global point 7 (training points first, docs/plan-files.md).
     EXPECT_TRUE(names_point(tmsg, 1) || names_point(tmsg, 7)) << tmsg;
     EXPECT_TRUE(names_feature(tmsg, "alpha", 0)) << tmsg;
   }

@@ -33,7 +33,7 @@ gramline::Rig make_rig(int photons) {
   return rig;
 }
 
-// SPEC section 1: p = V kappa + (1 - V) / 2^P.
+// docs/conventions.md: p = V kappa + (1 - V) / 2^P.
 TEST(Detection, PassProbabilityGlobalDepolarizing) {
   for (int photons = 1; photons <= 4; ++photons) {
     for (double v : {1.0, 0.97, 0.5, 0.0}) {
@@ -46,7 +46,7 @@ TEST(Detection, PassProbabilityGlobalDepolarizing) {
       }
     }
   }
-  // Two photons explicitly, as in the issue: p = V kappa + (1 - V)/4.
+  // Two photons explicitly, as in the README: p = V kappa + (1 - V)/4.
   EXPECT_NEAR(gramline::pass_probability(0.6, 0.9, 2), 0.9 * 0.6 + 0.1 / 4.0, 1e-15);
 }
 

@@ -37,8 +37,8 @@ EncodingMap custom_map(std::initializer_list<PhotonEncoding> photons) {
   return m;
 }
 
-// Bloch vector (S1, S2, S3) of psi(theta, phi) in the SPEC parametrisation (common practice):
-// (cos t, sin t cos f, sin t sin f).
+// Bloch vector (S1, S2, S3) of psi(theta, phi) in the parametrisation of docs/conventions.md
+// (common practice): (cos t, sin t cos f, sin t sin f).
 Eigen::Vector3d bloch(double theta_deg, double phi_deg) {
   const double t = rad(theta_deg), f = rad(phi_deg);
   return {std::cos(t), std::sin(t) * std::cos(f), std::sin(t) * std::sin(f)};

@@ -1,5 +1,5 @@
-// Jones calculus (jones.h) checked against textbook optics and hand derivations from SPEC
-// section 1. Expected values are derived here, never read back from the engine.
+// Jones calculus (jones.h) checked against textbook optics and hand derivations from
+// docs/conventions.md. Expected values are derived here, never read back from the engine.
 #include <gtest/gtest.h>
 
 #include <algorithm>
@@ -30,8 +30,8 @@ const JonesVector kH = make_vec(1.0, 0.0);
 const JonesVector kV = make_vec(0.0, 1.0);
 const JonesVector kD = make_vec(kInvSqrt2, kInvSqrt2);
 const JonesVector kA = make_vec(kInvSqrt2, -kInvSqrt2);
-// Our labels for the circular states in the SPEC parametrisation: R = psi(90, 90), L = psi(90,
-// 270).
+// Our labels for the circular states in the parametrisation of docs/conventions.md:
+// R = psi(90, 90), L = psi(90, 270).
 const JonesVector kR = make_vec(kInvSqrt2, cd(0.0, kInvSqrt2));
 const JonesVector kL = make_vec(kInvSqrt2, cd(0.0, -kInvSqrt2));
 
@@ -70,8 +70,8 @@ JonesMatrix textbook_qwp(double t_deg) {
   return m;
 }
 
-// SPEC section 1 written out by hand: J(t, G) = R(-t) diag(1, e^{iG}) R(t).
-JonesMatrix spec_waveplate(double t_deg, double retardance_rad) {
+// docs/conventions.md written out by hand: J(t, G) = R(-t) diag(1, e^{iG}) R(t).
+JonesMatrix documented_waveplate(double t_deg, double retardance_rad) {
   const double t = t_deg * kPi / 180.0;
   Eigen::Matrix2cd rot, rot_back, retard;
   rot << std::cos(t), std::sin(t), -std::sin(t), std::cos(t);
@@ -86,7 +86,7 @@ JonesVector random_state(std::mt19937_64& rng) {
   return v / v.norm();
 }
 
-// Bloch vector (S1, S2, S3) / S0 of a Jones vector in the SPEC parametrisation:
+// Bloch vector (S1, S2, S3) / S0 of a Jones vector in the parametrisation of docs/conventions.md:
 // S1 = |h|^2 - |v|^2, S2 = 2 Re(h* v), S3 = 2 Im(h* v) (common practice).
 Eigen::Vector3d bloch_vector(const JonesVector& s) {
   const double n = s.squaredNorm();
@@ -106,12 +106,12 @@ TEST(Jones, QwpMatchesTextbookMatrix) {
   }
 }
 
-TEST(Jones, WaveplateFollowsSpecFormula) {
+TEST(Jones, WaveplateFollowsTheDocumentedFormula) {
   std::mt19937_64 rng(11);
   std::uniform_real_distribution<double> angle(-360.0, 360.0), retard(0.0, 2 * kPi);
   for (int i = 0; i < 200; ++i) {
     const double t = angle(rng), g = retard(rng);
-    EXPECT_TRUE(equal_up_to_phase(gramline::waveplate(t, g), spec_waveplate(t, g), 1e-12))
+    EXPECT_TRUE(equal_up_to_phase(gramline::waveplate(t, g), documented_waveplate(t, g), 1e-12))
         << "t=" << t << " G=" << g;
     // A lossless retarder is unitary (common practice).
     const JonesMatrix w = gramline::waveplate(t, g);
@@ -139,7 +139,7 @@ TEST(Jones, HwpAt45TurnsHIntoV) {
 }
 
 // Hecht, Optics, polarization chapter: a QWP with its fast axis at 45 deg turns H into circular
-// light (equal H and V amplitudes, 90 deg relative phase). Handedness in the SPEC matrix, by hand:
+// light (equal H and V amplitudes, 90 deg relative phase). Handedness in our matrix, by hand:
 // R(45) H = (1, -1)/sqrt2, diag(1, i) -> (1, -i)/sqrt2, R(-45) -> ((1+i)/2, (1-i)/2), i.e.
 // (H - iV)/sqrt2 up to phase: psi(90, 270) ("L" in our labels).
 TEST(Jones, QwpAt45TurnsHIntoCircular) {
@@ -156,7 +156,7 @@ TEST(Jones, QwpAt45TurnsHIntoCircular) {
   EXPECT_GE(gramline::overlap(gramline::qwp(-45.0) * kH, kR), 1.0 - kTight);
 }
 
-// SPEC section 1 parametrisation evaluated by hand at the six cardinal states.
+// The parametrisation of docs/conventions.md evaluated by hand at the six cardinal states.
 TEST(Jones, BlochStateCardinalPoints) {
   EXPECT_GE(ref_overlap(gramline::bloch_state(0.0, 0.0), kH), 1.0 - kTight);
   EXPECT_GE(ref_overlap(gramline::bloch_state(0.0, 123.0), kH), 1.0 - kTight);
@@ -213,9 +213,9 @@ TEST(Jones, OverlapMatchesBlochVectorFormula) {
   EXPECT_NEAR(gramline::overlap(kH, kD), 0.5, kTight);
 }
 
-// Preparation order (SPEC section 1): HWP(h) first, then QWP(q). By hand: HWP(22.5) H = D, then
-// QWP(0) = diag(1, i) gives (H + iV)/sqrt2. The reverse order would give D, so this also
-// pins the order.
+// Preparation order (docs/conventions.md): HWP(h) first, then QWP(q). By hand: HWP(22.5) H = D,
+// then QWP(0) = diag(1, i) gives (H + iV)/sqrt2. The reverse order would give D, so this also pins
+// the order.
 TEST(Jones, PreparedStateAppliesHwpThenQwp) {
   EXPECT_GE(ref_overlap(gramline::prepared_state(22.5, 0.0), kR), 1.0 - kTight);
   EXPECT_GE(ref_overlap(gramline::prepared_state(45.0, 0.0), kV), 1.0 - kTight);
@@ -224,13 +224,14 @@ TEST(Jones, PreparedStateAppliesHwpThenQwp) {
   std::uniform_real_distribution<double> angle(-200.0, 200.0);
   for (int i = 0; i < 300; ++i) {
     const double h = angle(rng), q = angle(rng);
-    const JonesVector expected = spec_waveplate(q, kPi / 2) * spec_waveplate(h, kPi) * kH;
+    const JonesVector expected =
+        documented_waveplate(q, kPi / 2) * documented_waveplate(h, kPi) * kH;
     EXPECT_GE(ref_overlap(gramline::prepared_state(h, q), expected), 1.0 - kTight);
     EXPECT_NEAR(gramline::prepared_state(h, q).norm(), 1.0, kTight);
   }
 }
 
-// Analysis order (SPEC section 1): QWP(q) first, then HWP(h), then the PBS pass (H) port.
+// Analysis order (docs/conventions.md): QWP(q) first, then HWP(h), then the PBS pass (H) port.
 // By hand: the projected state is QWP(q)^dag HWP(h)^dag H; for q = 0, h = 22.5 this is
 // diag(1, -i) D = (H - iV)/sqrt2. The reverse order would project onto D.
 TEST(Jones, AnalysisAppliesQwpThenHwp) {
@@ -242,7 +243,7 @@ TEST(Jones, AnalysisAppliesQwpThenHwp) {
   for (int i = 0; i < 300; ++i) {
     const double h = angle(rng), q = angle(rng);
     const JonesVector in = random_state(rng);
-    const JonesVector out = spec_waveplate(h, kPi) * spec_waveplate(q, kPi / 2) * in;
+    const JonesVector out = documented_waveplate(h, kPi) * documented_waveplate(q, kPi / 2) * in;
     EXPECT_NEAR(gramline::analysis_pass_probability(q, h, in), std::norm(out(0)), 1e-12);
     // Lossless optics: pass probabilities of a state and its orthogonal add to one.
     const JonesVector orth = make_vec(-std::conj(in(1)), std::conj(in(0)));

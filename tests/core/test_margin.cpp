@@ -298,7 +298,7 @@ TEST(MarginCheck, DemoCampaignEndToEndAndTheMinimumBudgetIsTheBoundary) {
   EXPECT_EQ(check.decision_test.size(), m);
   EXPECT_EQ(static_cast<int>(check.trials.points.size()), m);
   EXPECT_EQ(check.trials.trials, 120);
-  // SPEC section 3: f(x) = sum_i dual_coef_i K(x_i, x) + bias on the ideal kernel.
+  // docs/plan-files.md: f(x) = sum_i dual_coef_i K(x_i, x) + bias on the ideal kernel.
   const Eigen::VectorXd f = plan.kernel_test * check.ideal.dual_coef;
   for (int t = 0; t < m; ++t) EXPECT_NEAR(check.decision_test[t], f[t] + check.ideal.bias, 1e-12);
   EXPECT_EQ(check.verdict.pass, check.verdict.reasons.empty());

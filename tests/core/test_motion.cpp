@@ -1,4 +1,4 @@
-// Motor time model, SPEC section 2. Expected values are worked by hand beside each check.
+// Motor time model, docs/motion-model.md. Expected values are worked by hand beside each check.
 #include <gtest/gtest.h>
 
 #include <cmath>

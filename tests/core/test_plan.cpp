@@ -102,7 +102,7 @@ TEST(Plan, ResumeLeavesOutMeasuredEntriesAndStartsFromTheLastPositions) {
   for (const Step* s : rs)
     EXPECT_FALSE(done.count(
         {std::min(s->prep_point, s->analysis_point), std::max(s->prep_point, s->analysis_point)}));
-  // The first step's move is timed from the given positions (SPEC section 2).
+  // The first step's move is timed from the given positions (docs/motion-model.md).
   EXPECT_NEAR(rest.steps.front().move_s,
               step_move_s(c.rig, resume.start_positions_deg, rest.steps.front().position_deg),
               1e-12);

@@ -143,7 +143,7 @@ TEST(Svm, IrisLinearPrecomputedMatchesLibsvmBuiltinLinear) {
   const SvmModel model = gramline::train_svm(gram, data.y, options);
   const std::vector<double> reference = libsvm_builtin_decisions(data, LINEAR, 0.0, 1.0);
   for (int i = 0; i < data.y.size(); ++i) EXPECT_NEAR(model.decision_train[i], reference[i], 1e-6);
-  // Sign convention of SPEC section 3: f > 0 on the +1 side for nearly all points.
+  // Sign convention of docs/plan-files.md: f > 0 on the +1 side for nearly all points.
   int agree = 0;
   for (int i = 0; i < data.y.size(); ++i) agree += (model.decision_train[i] > 0) == (data.y[i] > 0);
   EXPECT_GE(agree, 98);

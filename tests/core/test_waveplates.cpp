@@ -28,13 +28,14 @@ struct NamedState {
   double phi_deg;
 };
 
-// SPEC section 1 parametrisation: H, V, D = (H+V)/sqrt2, A = (H-V)/sqrt2, and our labels
+// Parametrisation of docs/conventions.md: H, V, D = (H+V)/sqrt2, A = (H-V)/sqrt2, and our labels
 // R = (H + iV)/sqrt2 = psi(90, 90), L = (H - iV)/sqrt2 = psi(90, 270).
 const std::vector<NamedState> kCardinal = {{"H", 0.0, 0.0},   {"V", 180.0, 0.0},
                                            {"D", 90.0, 0.0},  {"A", 90.0, 180.0},
                                            {"R", 90.0, 90.0}, {"L", 90.0, 270.0}};
 
-// The state orthogonal to psi(theta, phi) is psi(180 - theta, phi + 180): by the SPEC formula
+// The state orthogonal to psi(theta, phi) is psi(180 - theta, phi + 180): by the formula of
+// docs/conventions.md
 // its amplitudes are (sin(theta/2), -e^{i phi} cos(theta/2)), whose inner product with
 // (cos(theta/2), e^{i phi} sin(theta/2)) vanishes.
 JonesVector orthogonal_state(double theta_deg, double phi_deg) {
@@ -88,7 +89,7 @@ void expect_synthesis_ok(double theta, double phi) {
 // (from memory): H: h = 45, q = 0; V: h = 0, q = 0; D: h = 22.5, q = 45; R: h = 22.5, q = 0,
 // with the polarizer transmitting V and their R = (H - iV)/sqrt2 (from memory).
 //
-// Convention difference, worked out by hand with the SPEC matrices (and checked below):
+// Convention difference, worked out by hand with our matrices (and checked below):
 //  1. Their polarizer passes V, our PBS pass port is H. A lossless V-pass probability is
 //     1 - (H-pass probability); equivalently HWP(h)^dag V = (sin 2h, -cos 2h) equals
 //     HWP(h + 45)^dag H up to sign, so V-pass at h is our H-pass at h + 45.
@@ -174,8 +175,8 @@ TEST(Synthesis, CardinalStatesAllSolutions) {
   }
 }
 
-// Hand-derived preparations (SPEC section 1 matrices): H needs no rotation, HWP(45) gives V,
-// HWP(22.5) gives D. So (0, 0), (45, 0) and (22.5, 45) must be among the equivalents.
+// Hand-derived preparations (matrices of docs/conventions.md): H needs no rotation, HWP(45) gives
+// V, HWP(22.5) gives D. So (0, 0), (45, 0) and (22.5, 45) must be among the equivalents.
 TEST(Synthesis, KnownLinearPreparationsAreFound) {
   auto contains = [](const gramline::StageSolutions& sols, double h, double q) {
     for (const gramline::PlatePair& s : sols) {
@@ -242,9 +243,9 @@ TEST(Synthesis, AnglesOutsideTheirPrincipalRanges) {
 
 // A QWP turns linear light into an ellipse whose axes lie along the plate's axes (common
 // practice), so the QWP axis of every preparation and analysis solution lies along the
-// target's ellipse orientation psi = atan2(S2, S1)/2 or perpendicular to it. With the SPEC
-// parametrisation S1 = cos theta, S2 = sin theta cos phi. The two solutions therefore differ
-// by 90 deg in QWP angle.
+// target's ellipse orientation psi = atan2(S2, S1)/2 or perpendicular to it. With the
+// parametrisation of docs/conventions.md, S1 = cos theta, S2 = sin theta cos phi. The two solutions
+// therefore differ by 90 deg in QWP angle.
 TEST(Synthesis, QwpAxisAlongEllipseAxes) {
   std::mt19937_64 rng(99);
   std::uniform_real_distribution<double> u(0.0, 1.0);
@@ -266,7 +267,8 @@ TEST(Synthesis, QwpAxisAlongEllipseAxes) {
   }
 }
 
-// SPEC section 1: HWP at t and t + 90 k, QWP at t and t + 180 k act alike (up to global phase).
+// docs/conventions.md: HWP at t and t + 90 k, QWP at t and t + 180 k act alike (up to global
+// phase).
 TEST(Synthesis, PlatePeriodsGiveSameTransformation) {
   std::mt19937_64 rng(5);
   std::uniform_real_distribution<double> angle(0.0, 180.0);

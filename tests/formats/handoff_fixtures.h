@@ -38,7 +38,7 @@ inline CliRun run_cli(const QStringList& arguments) {
 }
 
 /// Counts of every measure and reference step, drawn from the rig model (detection.h
-/// setting_rates, SPEC section 1): each of the 2^P channels (or the single pass channel) is an
+/// setting_rates, docs/conventions.md): each of the 2^P channels (or the single pass channel) is an
 /// independent Poisson count. Independent Poisson channels make the pass count binomial given
 /// the total (Poisson splitting, e.g. Feller, An Introduction to Probability Theory, vol. 1).
 /// The counting interval is [start_s + move_s, start_s + move_s + dwell_s].

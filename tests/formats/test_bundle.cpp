@@ -180,7 +180,8 @@ TEST_F(DemoBundle, StepsNamingPointsThatDoNotExistAreRefusedEvenWithAValidManife
   std::string& steps = changed["steps.json"];
   const size_t ref = steps.find("\"kind\":\"reference\"");
   ASSERT_NE(ref, std::string::npos);
-  // Each step is one line with its keys in SPEC order, so its prep_point follows its kind.
+  // Each step is one line with its keys in the documented order (docs/plan-files.md), so its
+  // prep_point follows its kind.
   const size_t prep = steps.find("\"prep_point\":", ref);
   ASSERT_NE(prep, std::string::npos);
   const size_t value = prep + std::string("\"prep_point\":").size();

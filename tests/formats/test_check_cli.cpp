@@ -1,6 +1,6 @@
-// End to end: gramline-cli check writes the SPEC section 3 JSON. The decision values are checked
-// against the definition f(x) = sum_i dual_coef_i K(x_i, x) + bias with kernel values read from
-// the plan files, and the verdict against the campaign's thresholds.
+// End to end: gramline-cli check writes the JSON of docs/plan-files.md. The decision values are
+// checked against the definition f(x) = sum_i dual_coef_i K(x_i, x) + bias with kernel values read
+// from the plan files, and the verdict against the campaign's thresholds.
 #include <gtest/gtest.h>
 
 #include <QFile>

@@ -1,5 +1,6 @@
 // End to end: gramline-cli demo, then plan --out; the written files are checked against the
-// physics of SPEC sections 1 and 2 recomputed here from the motor positions alone.
+// physics of docs/conventions.md and docs/motion-model.md recomputed here from the motor positions
+// alone.
 #include <gtest/gtest.h>
 
 #include <QDir>
@@ -98,7 +99,7 @@ TEST_F(PlannedDemo, MotorPositionsReproduceEveryKernelByJonesCalculus) {
   for (size_t i = 0; i < file.steps.size(); ++i) {
     const Step& s = file.steps[i];
     if (s.prep_point < 0 || s.analysis_point < 0) continue;
-    // SPEC section 1: prepare |H> with HWP then QWP; analyse with QWP then HWP, pass = H.
+    // docs/conventions.md: prepare |H> with HWP then QWP; analyse with QWP then HWP, pass = H.
     double from_plates = 1.0;
     double from_states = 1.0;
     for (int p = 0; p < photons; ++p) {
@@ -141,7 +142,7 @@ TEST_F(PlannedDemo, MoveTimesFollowFromThePositionsInTheFile) {
 TEST_F(PlannedDemo, MeasureStepsCoverEveryPairOnce) {
   ASSERT_EQ(plan_.status, 0) << plan_.err;
   const formats::StepsFile file = formats::read_steps_json(out("steps.json"));
-  const int n = 48;  // the demo: 48 training and 16 test points (issue 2)
+  const int n = 48;  // the demo: 48 training and 16 test points (core/src/demo.cpp)
   const int m = 16;
   std::set<std::pair<int, int>> train_pairs;
   std::set<std::pair<int, int>> test_pairs;
@@ -169,7 +170,7 @@ TEST_F(PlannedDemo, KernelCsvMatchesTheTrainSteps) {
   ASSERT_EQ(k.size(), 48u);
   for (size_t i = 0; i < k.size(); ++i) {
     ASSERT_EQ(k[i].size(), 48u);
-    EXPECT_NEAR(k[i][i], 1.0, 1e-12);  // unit diagonal: SPEC section 3
+    EXPECT_NEAR(k[i][i], 1.0, 1e-12);  // unit diagonal: docs/plan-files.md
   }
   int matched = 0;
   for (const Step& s : file.steps) {
@@ -181,7 +182,7 @@ TEST_F(PlannedDemo, KernelCsvMatchesTheTrainSteps) {
   EXPECT_EQ(matched, 48 * 47 / 2);
 }
 
-TEST_F(PlannedDemo, SummaryHasTheSpecKeysAndAgreesWithTheSteps) {
+TEST_F(PlannedDemo, SummaryHasTheDocumentedKeysAndAgreesWithTheSteps) {
   ASSERT_EQ(plan_.status, 0) << plan_.err;
   const QJsonObject summary =
       QJsonDocument::fromJson(QByteArray::fromStdString(read_text(out("summary.json")))).object();

@@ -1,4 +1,4 @@
-// Data CSV of `--data` (SPEC section 3): parsing, label rules and the documented errors.
+// Data CSV of `--data` (README, "Files"): parsing, label rules and the documented errors.
 #include <gtest/gtest.h>
 
 #include <QString>

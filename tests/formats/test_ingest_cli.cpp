@@ -249,7 +249,7 @@ TEST_F(Handoff, ResumePlansTheRestFromTheLastPositionsAndNamesItsParent) {
   const std::set<std::pair<int, int>> distinct(entries.begin(), entries.end());
   EXPECT_EQ(distinct.size(), entries.size());
   // The first move starts where the motors stopped: the last counted step's positions
-  // (SPEC section 2 move model, recomputed here with motion.h).
+  // (the move model of docs/motion-model.md, recomputed here with motion.h).
   const std::vector<double>& stop = bundle_->steps.steps[first.back().step].position_deg;
   ASSERT_FALSE(child.steps.steps.empty());
   EXPECT_NEAR(child.steps.steps[0].move_s,

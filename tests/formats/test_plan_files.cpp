@@ -117,7 +117,7 @@ TEST(StepsJson, WriteThenReadGivesTheSameRigAndSteps) {
   }
 }
 
-TEST(StepsJson, FollowsTheSpecLayout) {
+TEST(StepsJson, FollowsTheDocumentedLayout) {
   const QJsonObject root =
       QJsonDocument::fromJson(
           QByteArray::fromStdString(formats::format_steps_json(two_motor_rig(), three_steps())))
@@ -128,7 +128,7 @@ TEST(StepsJson, FollowsTheSpecLayout) {
   const QJsonObject motor = root["motors"].toArray()[0].toObject();
   EXPECT_EQ(motor["stage"].toString(), "prep");
   EXPECT_EQ(motor["plate"].toString(), "HWP");
-  EXPECT_EQ(motor["backlash"].toString(), "from-below");  // SPEC section 2 spelling
+  EXPECT_EQ(motor["backlash"].toString(), "from-below");  // docs/motion-model.md spelling
   EXPECT_TRUE(root["motors"].toArray()[1].toObject()["range_deg"].isNull());
   const QJsonArray steps = root["steps"].toArray();
   EXPECT_TRUE(steps[0].toObject()["prep_point"].isNull());

@@ -27,7 +27,8 @@ mkdir -p "$out"
 build=$(cd "$(dirname "$app")/../.." && pwd)
 cli=$build/app/gramline-cli
 sim=$build/tests/gui/gramline_simulated_counts
-# A private settings folder: a reviewer's saved window layout must not change the pictures.
+# A private settings folder: the saved window layout of whoever runs this must not change the
+# pictures.
 export XDG_CONFIG_HOME="$(mktemp -d)"
 export XDG_DATA_HOME="$XDG_CONFIG_HOME"
 trap 'rm -rf "$XDG_CONFIG_HOME"' EXIT

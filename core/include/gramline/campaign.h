@@ -10,7 +10,7 @@
 
 namespace gramline {
 
-/// How pairs are shared among entries (margin-check issue). uniform is the default.
+/// How pairs are shared among entries (README, user guide step 8). uniform is the default.
 enum class Allocation { uniform, neyman, margin_aware };
 
 struct PrecisionTarget {

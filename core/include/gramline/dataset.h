@@ -18,7 +18,7 @@ struct DataSet {
   int train_count() const { return static_cast<int>(train.rows()); }
   int test_count() const { return static_cast<int>(test.rows()); }
   int feature_count() const { return static_cast<int>(train.cols()); }
-  /// Point by global index: training points first, then test points (SPEC section 3).
+  /// Point by global index: training points first, then test points (docs/plan-files.md).
   Eigen::VectorXd point(int global_index) const;
 };
 

@@ -18,7 +18,7 @@ struct SettingRates {
   std::vector<double> singles_per_s;         ///< singles rate of each pass-port detector
 };
 
-/// Global depolarizing model: p = V kappa + (1 - V) / 2^P (SPEC section 1).
+/// Global depolarizing model: p = V kappa + (1 - V) / 2^P (docs/conventions.md).
 double pass_probability(double kappa, double visibility, int photons);
 /// Inverse of pass_probability: kappa from p.
 double kernel_from_pass_probability(double p, double visibility, int photons);

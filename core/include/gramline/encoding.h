@@ -1,5 +1,5 @@
 #pragma once
-// Encoding map: features -> Bloch angles of each photon (SPEC section 1).
+// Encoding map: features -> Bloch angles of each photon (docs/conventions.md).
 #include <Eigen/Core>
 #include <string>
 #include <vector>

@@ -1,5 +1,5 @@
 #pragma once
-// Jones calculus for waveplates in the H/V basis (SPEC section 1).
+// Jones calculus for waveplates in the H/V basis (docs/conventions.md).
 // H = (1, 0), V = (0, 1); global phases are ignored throughout.
 #include <Eigen/Core>
 #include <complex>
@@ -11,7 +11,7 @@ using JonesVector = Eigen::Vector2cd;
 
 /// Jones matrix of a retarder with fast axis at axis_deg (degrees from horizontal) and
 /// retardance retardance_rad (radians): J = R(-t) diag(1, e^{iG}) R(t),
-/// R(t) = [[cos t, sin t], [-sin t, cos t]] (SPEC section 1; Hecht, Optics, ch. 8).
+/// R(t) = [[cos t, sin t], [-sin t, cos t]] (docs/conventions.md; Hecht, Optics, ch. 8).
 JonesMatrix waveplate(double axis_deg, double retardance_rad);
 /// Half-wave plate (G = pi) with fast axis at axis_deg degrees.
 JonesMatrix hwp(double axis_deg);

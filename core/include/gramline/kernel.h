@@ -1,5 +1,6 @@
 #pragma once
-// Ideal quantum kernel |<psi(x)|psi(x')>|^2 = prod_p |<psi_p(x)|psi_p(x')>|^2 (SPEC section 1).
+// Ideal quantum kernel |<psi(x)|psi(x')>|^2 = prod_p |<psi_p(x)|psi_p(x')>|^2
+// (docs/conventions.md).
 #include <Eigen/Core>
 
 #include "gramline/encoding.h"

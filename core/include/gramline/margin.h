@@ -1,7 +1,7 @@
 #pragma once
-// The margin check (issue 4): with the planned pairs per entry, does the classifier trained on
-// the measured Gram matrix still put every test point on the same side, with margin?
-// A Monte Carlo over simulated campaigns: counts per setting with the detection scheme's
+// The margin check (README, user guide step 13): with the planned pairs per entry, does the
+// classifier trained on the measured Gram matrix still put every test point on the same side, with
+// margin? A Monte Carlo over simulated campaigns: counts per setting with the detection scheme's
 // statistics, the unbiased kernel estimator of detection.h, PSD repair, retraining.
 #include <Eigen/Core>
 #include <cstdint>
@@ -147,7 +147,7 @@ struct BudgetSearch {
   int evaluations = 0;
 };
 
-/// Encoding scale scan (issue 4 item 6).
+/// Encoding scale scan: the scale advice of the margin check (README, user guide step 13).
 struct ScalePoint {
   double factor = 1.0;
   double alignment = 0.0;    ///< kernel-target alignment of the ideal training Gram

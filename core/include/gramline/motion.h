@@ -1,5 +1,5 @@
 #pragma once
-// The motor time model of SPEC section 2. One formula, one place: every move time anywhere
+// The motor time model of docs/motion-model.md. One formula, one place: every move time anywhere
 // in Gramline is computed by these functions.
 #include <vector>
 

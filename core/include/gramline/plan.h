@@ -117,8 +117,8 @@ std::vector<GramProgressPoint> gram_progress(const Plan& plan);
 /// std::invalid_argument for a step naming a point the data set does not have.
 Plan plan_from_steps(const Campaign& campaign, std::vector<Step> steps);
 
-/// Recomputes every step's move_s from positions alone (SPEC section 2); used by tests and the
-/// resume path. Returns the total.
+/// Recomputes every step's move_s from positions alone (docs/motion-model.md); used by tests and
+/// the resume path. Returns the total.
 double recompute_moves(const Rig& rig, std::vector<Step>& steps);
 
 std::string to_string(StepKind);

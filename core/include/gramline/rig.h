@@ -17,7 +17,7 @@ struct TravelRange {
   double high_deg = 360.0;
 };
 
-/// One motorized rotation mount (SPEC section 2).
+/// One motorized rotation mount (docs/motion-model.md).
 struct Motor {
   std::string name;
   int photon = 0;  ///< photon index, 0-based
@@ -37,7 +37,7 @@ struct Controller {
   double overhead_s = 0.1;  ///< added to every step
 };
 
-/// Photon-pair source and detection (global depolarizing model, SPEC section 1).
+/// Photon-pair source and detection (global depolarizing model, docs/conventions.md).
 struct Source {
   double pair_rate_per_s = 50000.0;  ///< pairs emitted per second
   double visibility = 0.98;          ///< V in p = V kappa + (1 - V) / 2^P

@@ -1,6 +1,6 @@
 #pragma once
 // Scheduler: the order of the measure steps, the motor positions of every step, reference,
-// dark and park steps, and the night timeline (SPEC sections 2 and 3).
+// dark and park steps, and the night timeline (docs/motion-model.md, docs/plan-files.md).
 #include <cstdint>
 #include <string>
 #include <vector>
@@ -54,7 +54,7 @@ struct ScheduleOptions {
 
 struct ScheduleResult {
   std::vector<Step> steps;
-  /// Proven lower bound on the measure steps' total move time (SPEC section 2), seconds. It
+  /// Proven lower bound on the measure steps' total move time (docs/motion-model.md), seconds. It
   /// holds for every order of the same measure steps (any orientations and solutions, from the
   /// same start positions) in which at most as many measure steps as in this schedule are
   /// followed by a reference, dark or park step or end the plan; the argument is in
@@ -72,8 +72,8 @@ struct ScheduleResult {
 /// Orders the entries and lays the steps on the nights. Deterministic for a seed.
 ScheduleResult build_schedule(const ScheduleInput& input, const ScheduleOptions& options);
 
-/// Exact minimum total move time (seconds, SPEC section 2) of the measure steps alone, from the
-/// start positions (ScheduleInput::start_positions_deg, else initial_deg), over every order,
+/// Exact minimum total move time (seconds, docs/motion-model.md) of the measure steps alone, from
+/// the start positions (ScheduleInput::start_positions_deg, else initial_deg), over every order,
 /// orientation and choice of discrete solutions: Held-Karp dynamic programming over subsets of
 /// entries. Exact when every motor rotates continuously (then only angles modulo the plate period
 /// matter); a lower bound otherwise. For tests: at most 12 entries; time grows as 2^n (n

@@ -2,7 +2,7 @@
 // Soft-margin support vector classification (C-SVC) on a precomputed kernel, solved by libsvm
 // (Chang & Lin, ACM TIST 2 (2011) 27), with k-fold cross-validation and kernel-target alignment.
 // Labels are -1/+1; the decision function is f(x) = sum_i dual_coef_i K(x_i, x) + bias
-// (SPEC section 3), positive for class +1 whatever the order of the training labels.
+// (docs/plan-files.md), positive for class +1 whatever the order of the training labels.
 #include <Eigen/Core>
 #include <cstdint>
 #include <string>

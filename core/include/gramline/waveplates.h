@@ -1,6 +1,6 @@
 #pragma once
 // Waveplate synthesis: the HWP/QWP angles that prepare or project onto a polarization state
-// (SPEC section 1). All angles in degrees.
+// (docs/conventions.md). All angles in degrees.
 #include <array>
 #include <vector>
 
@@ -8,7 +8,8 @@
 
 namespace gramline {
 
-/// Plate periods: an HWP at t and t + 90 k, a QWP at t and t + 180 k act alike (SPEC section 1).
+/// Plate periods: an HWP at t and t + 90 k, a QWP at t and t + 180 k act alike
+/// (docs/conventions.md).
 inline constexpr double kHwpPeriodDeg = 90.0;
 inline constexpr double kQwpPeriodDeg = 180.0;
 
