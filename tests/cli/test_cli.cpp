@@ -16,18 +16,18 @@
 #include <utility>
 #include <vector>
 
+#include "cli_run.h"
 #include "formats/campaign_json.h"
 #include "formats/plan_files.h"
 #include "gramline/jones.h"
 #include "gramline/motion.h"
-#include "handoff_fixtures.h"
 
 namespace {
 
 using namespace gramline;
 
-using handoff_test::CliRun;
-using handoff_test::run_cli;
+using cli_test::CliRun;
+using cli_test::run_cli;
 
 QString data_file(const char* name) { return QString(GRAMLINE_TEST_DATA) + "/" + name; }
 

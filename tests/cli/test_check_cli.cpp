@@ -13,14 +13,14 @@
 #include <string>
 #include <vector>
 
+#include "cli_run.h"
 #include "formats/campaign_json.h"
 #include "gramline/demo.h"
-#include "handoff_fixtures.h"
 
 namespace {
 
 // Exit status of one gramline-cli run.
-int run(const QStringList& arguments) { return handoff_test::run_cli(arguments).status; }
+int run(const QStringList& arguments) { return cli_test::run_cli(arguments).status; }
 
 QJsonObject read_json(const QString& path) {
   QFile f(path);
