@@ -5,6 +5,7 @@
 #include <stdexcept>
 
 #include "cli/commands.h"
+#include "cli/progress_line.h"
 #include "formats/check_json.h"
 #include "formats/input_error.h"
 #include "gramline/margin.h"
@@ -24,6 +25,8 @@ int run_check(const CheckRequest& request) {
   PlanOptions plan_options;
   plan_options.seed = seed;
   try {
+    ProgressLine progress("planning", kPlanProgressDelay_s);
+    plan_options.hooks = progress.hooks();
     plan = plan_campaign(campaign, plan_options);
   } catch (const std::invalid_argument& e) {
     throw formats::InputError(request.campaign_path + ": " + e.what());
@@ -32,13 +35,21 @@ int run_check(const CheckRequest& request) {
   options.seed = seed;
   MarginCheck check;
   try {
+    ProgressLine progress("margin check", 0.0);
+    options.hooks = progress.hooks();
     check = check_margin(campaign, plan, options);
   } catch (const std::invalid_argument& e) {
     throw formats::InputError(request.campaign_path + ": " + e.what());
   }
+  if (!request.out_path) {
+    // Standard output carries only the JSON, so it can be piped or redirected as it is.
+    std::cerr << check.report();
+    std::cout << formats::format_check_json(campaign, check, seed, options.confidence);
+    return 0;
+  }
   formats::write_check_json(campaign, check, seed, options.confidence,
-                            QString::fromStdString(request.out_path));
-  std::cout << check.report() << "wrote the margin check to " << request.out_path << "\n";
+                            QString::fromStdString(*request.out_path));
+  std::cout << check.report() << "wrote the margin check to " << *request.out_path << "\n";
   return 0;
 }
 

@@ -3,6 +3,7 @@
 #include <iostream>
 
 #include "cli/commands.h"
+#include "cli/progress_line.h"
 #include "formats/bundle.h"
 #include "formats/counts_csv.h"
 #include "formats/ingest_run.h"
@@ -16,7 +17,11 @@ int run_ingest(const IngestRequest& request) {
   const formats::Bundle bundle = formats::read_bundle(QString::fromStdString(request.bundle_path));
   const formats::CountsFile counts = formats::read_counts_csv(
       QString::fromStdString(request.counts_path), formats::counts_layout(bundle.campaign));
-  const formats::IngestRun run = formats::ingest_counts(bundle, counts);
+  formats::IngestRun run;
+  {
+    ProgressLine progress("ingesting", 0.0);
+    run = formats::ingest_counts(bundle, counts, progress.hooks());
+  }
   std::cout << run.report();
   formats::write_ingest_files(run, out, overwrite);
   std::cout << "wrote";

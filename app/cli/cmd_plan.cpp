@@ -2,6 +2,7 @@
 #include <iostream>
 
 #include "cli/commands.h"
+#include "cli/progress_line.h"
 #include "formats/campaign_json.h"
 #include "formats/data_csv.h"
 #include "formats/input_error.h"
@@ -50,6 +51,8 @@ int run_plan(const PlanRequest& request) {
   campaign.seed = options.seed;
   Plan plan;
   try {
+    ProgressLine progress("planning", kPlanProgressDelay_s);
+    options.hooks = progress.hooks();
     plan = plan_campaign(campaign, options);
   } catch (const std::invalid_argument& e) {
     // The engine names the field; the user needs the file too.

@@ -26,7 +26,9 @@ struct CheckRequest {
   std::optional<std::string> data_path;
   std::optional<int> trials;
   std::optional<std::uint64_t> seed;
-  std::string out_path;
+  /// Where the check JSON goes; without it the JSON goes to standard output and the report to
+  /// standard error.
+  std::optional<std::string> out_path;
 };
 
 struct ExportRequest {

@@ -51,47 +51,56 @@ const OptionEntry& option_entry(const std::string& name) {
   throw std::logic_error("gramline-cli: no option named " + name);
 }
 
-/// One command: its usage line, what it does, and the options it accepts.
+/// One command: its usage line, what it does (lines without their indent), the options it
+/// accepts and what its --out names.
 struct CommandEntry {
   const char* name;
   const char* usage;
   const char* about;
   std::vector<std::string> options;
+  const char* out_help;
 };
 
 const std::vector<CommandEntry>& commands() {
   static const std::vector<CommandEntry> table = {
       {"demo",
        "demo --out FILE [--seed N]",
-       "      Write the bundled demo campaign (48 training and 16 test points, a two-photon rig "
-       "of\n"
-       "      eight motors) to FILE.\n",
-       {"out", "seed"}},
+       "Write the bundled demo campaign (48 training and 16 test points, a two-photon rig of\n"
+       "eight motors) to FILE.\n",
+       {"out", "seed"},
+       "the campaign file to write"},
       {"plan",
        "plan CAMPAIGN [--data CSV] [--out DIR] [--seed N]",
-       "      Plan the campaign: settings, their order, pairs and dwell times, nights. Prints a\n"
-       "      short summary; with --out writes steps.json, steps.csv, summary.json and kernel.csv\n"
-       "      into DIR (created if needed).\n",
-       {"data", "out", "seed"}},
+       "Plan the campaign: settings, their order, pairs and dwell times, nights. Prints a\n"
+       "short summary; with --out writes steps.json, steps.csv, summary.json and kernel.csv\n"
+       "into DIR (created if needed).\n",
+       {"data", "out", "seed"},
+       "the folder for the four plan files (created if needed)"},
       {"check",
-       "check CAMPAIGN [--data CSV] [--trials N] [--seed N] --out FILE",
-       "      Margin check of the planned precision; writes the verdict as JSON to FILE.\n",
-       {"data", "out", "seed", "trials"}},
+       "check CAMPAIGN [--data CSV] [--trials N] [--seed N] [--out FILE]",
+       "Margin check of the planned precision; writes the verdict as JSON to FILE and the\n"
+       "report to standard output, or without --out the JSON to standard output and the\n"
+       "report to standard error.\n",
+       {"data", "out", "seed", "trials"},
+       "the file for the check JSON (without it: standard output)"},
       {"export",
        "export CAMPAIGN --out FILE.zip [--data CSV] [--seed N] [--force]",
-       "      Plan the campaign and write the hand-off bundle for the rig: steps, campaign, data,\n"
-       "      summary, printable summary.html and a manifest with the SHA-256 of every file.\n",
-       {"data", "out", "seed", "force"}},
+       "Plan the campaign and write the hand-off bundle for the rig: steps, campaign, data,\n"
+       "summary, printable summary.html and a manifest with the SHA-256 of every file.\n",
+       {"data", "out", "seed", "force"},
+       "the bundle (a zip file) to write"},
       {"ingest",
        "ingest BUNDLE COUNTS --out DIR [--force]",
-       "      Check the bundle and the rig's counts file against each other, build the measured\n"
-       "      Gram matrix, compare it with the prediction, track drift, train the classifier.\n",
-       {"out", "force"}},
+       "Check the bundle and the rig's counts file against each other, build the measured\n"
+       "Gram matrix, compare it with the prediction, track drift, train the classifier.\n",
+       {"out", "force"},
+       "the folder for the results (created if needed)"},
       {"resume",
        "resume BUNDLE COUNTS --out FILE.zip [--force]",
-       "      Keep what the counts file measured and plan the rest from where the motors stopped;\n"
-       "      the new bundle names its parent.\n",
-       {"out", "force"}},
+       "Keep what the counts file measured and plan the rest from where the motors stopped;\n"
+       "the new bundle names its parent.\n",
+       {"out", "force"},
+       "the new bundle (a zip file) to write"},
   };
   return table;
 }
@@ -107,16 +116,51 @@ const char* const kExitStatusHelp =
     "Exit status: 0 success, 2 bad input (the message names the file and line or field),\n"
     "1 internal failure.\n";
 
+const char* const kProgressHelp =
+    "Long work (planning, the margin check, ingest) shows its progress on standard error when\n"
+    "that is a terminal.\n";
+
+/// `text` with every line indented by six spaces.
+std::string indented(const std::string& text) {
+  std::string out;
+  bool line_start = true;
+  for (char ch : text) {
+    if (line_start) out += "      ";
+    out += ch;
+    line_start = ch == '\n';
+  }
+  return out;
+}
+
 /// The text of `gramline-cli help`: every command and every option.
 std::string overview() {
   std::string text =
       "gramline-cli: plans polarization-encoded quantum-kernel measurements with photon pairs.\n"
       "\n"
       "Commands:\n";
-  for (const CommandEntry& c : commands()) text += std::string("  ") + c.usage + "\n" + c.about;
-  text += "  help [COMMAND]\n      This text.\n\nOptions:\n";
+  for (const CommandEntry& c : commands()) {
+    text += std::string("  ") + c.usage + "\n" + indented(c.about);
+  }
+  text += "  help [COMMAND]\n" + indented("This text; with COMMAND, that command's help only.\n");
+  text += "\nOptions:\n";
   for (const OptionEntry& o : kOptions) text += o.help;
   text += kVersionHelp;
+  text += "\n";
+  text += kExitStatusHelp;
+  text += "\n";
+  text += kProgressHelp;
+  return text;
+}
+
+/// The text of `gramline-cli help COMMAND` and `gramline-cli COMMAND --help`.
+std::string command_help(const CommandEntry& c) {
+  std::string text = std::string("Usage: gramline-cli ") + c.usage + "\n\n" + indented(c.about);
+  text += "\nOptions:\n";
+  for (const std::string& name : c.options) {
+    text += name == "out" ? std::string("  --out        ") + c.out_help + "\n"
+                          : option_entry(name).help;
+  }
+  text += "  --help       print this help\n";
   text += "\n";
   text += kExitStatusHelp;
   return text;
@@ -242,6 +286,26 @@ int dispatch(const QStringList& argv) {
   }
   const std::string name = argv.front().toStdString();
   const QStringList rest = argv.mid(1);
+  if (name == "help" && !rest.isEmpty()) {
+    if (rest.size() > 1) {
+      throw InputError("gramline-cli help: unexpected argument '" + rest[1].toStdString() + "'");
+    }
+    const std::string topic = rest.front().toStdString();
+    if (topic == "help") {
+      std::cout << overview();
+      return 0;
+    }
+    const CommandEntry* command = find_command(topic);
+    if (!command) {
+      std::string names;
+      for (const CommandEntry& c : commands())
+        names += (names.empty() ? "" : ", ") + std::string(c.name);
+      throw InputError("gramline-cli help: unknown command '" + topic + "' (commands: " + names +
+                       ")");
+    }
+    std::cout << command_help(*command);
+    return 0;
+  }
   if (name == "help" || name == "--help" || name == "-h") {
     std::cout << overview();
     return 0;
@@ -257,7 +321,7 @@ int dispatch(const QStringList& argv) {
   }
   const CommandLine line(*command, rest);
   if (line.wants_help()) {
-    std::cout << overview();
+    std::cout << command_help(*command);
     return 0;
   }
   if (name == "demo") {
@@ -279,7 +343,7 @@ int dispatch(const QStringList& argv) {
     gramline::cli::CheckRequest request;
     request.campaign_path = line.positional(1, "the campaign file")[0];
     request.data_path = line.value("data");
-    request.out_path = line.required("out", "FILE");
+    request.out_path = line.value("out");
     if (auto trials = line.value("trials")) {
       request.trials = whole_number<int>(name, "--trials", *trials, 1);
     }

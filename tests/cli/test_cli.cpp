@@ -302,7 +302,7 @@ TEST(Cli, UsageErrorsExitTwo) {
   EXPECT_EQ(run_cli({"plan", "x.json", "--colour", "red"}).status, 2);
   EXPECT_EQ(run_cli({"plan", "x.json", "--seed", "-3"}).status, 2);
   EXPECT_EQ(run_cli({"plan", "x.json", "--seed"}).status, 2);
-  EXPECT_EQ(run_cli({"check", "x.json"}).status, 2);  // --out is required
+  EXPECT_EQ(run_cli({"check", "x.json"}).status, 2);  // no such campaign
   const CliRun missing = run_cli({"plan", "/no/such/campaign.json"});
   EXPECT_EQ(missing.status, 2);
   EXPECT_NE(missing.err.find("/no/such/campaign.json"), std::string::npos);

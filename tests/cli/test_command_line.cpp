@@ -71,4 +71,33 @@ TEST(CommandLine, OptionsMayComeFirstAndTakeTheirValueAfterAnEqualsSign) {
   EXPECT_TRUE(QFile::exists(out + "/steps.json"));
 }
 
+TEST(CommandLine, HelpOfOneCommandShowsThatCommandOnly) {
+  const CliRun overview = run_cli({"help"});
+  ASSERT_EQ(overview.status, 0);
+  for (const char* usage : {"demo --out FILE", "plan CAMPAIGN", "check CAMPAIGN", "export CAMPAIGN",
+                            "ingest BUNDLE COUNTS", "resume BUNDLE COUNTS"}) {
+    EXPECT_NE(overview.out.find(usage), std::string::npos) << usage;
+  }
+  const CliRun resume = run_cli({"help", "resume"});
+  ASSERT_EQ(resume.status, 0) << resume.err;
+  EXPECT_NE(resume.out.find("gramline-cli resume BUNDLE COUNTS --out FILE.zip [--force]"),
+            std::string::npos)
+      << resume.out;
+  EXPECT_NE(resume.out.find("--force"), std::string::npos);
+  for (const char* other : {"plan CAMPAIGN", "ingest BUNDLE", "--data", "--trials", "--seed"}) {
+    EXPECT_EQ(resume.out.find(other), std::string::npos) << other << " in\n" << resume.out;
+  }
+  // COMMAND --help (or -h, anywhere among the words) is the same text.
+  EXPECT_EQ(run_cli({"resume", "--help"}).out, resume.out);
+  EXPECT_EQ(run_cli({"resume", "a.zip", "-h"}).out, resume.out);
+  const CliRun check = run_cli({"check", "--help"});
+  EXPECT_NE(check.out.find("--trials"), std::string::npos);
+  EXPECT_EQ(check.out.find("resume BUNDLE"), std::string::npos);
+}
+
+TEST(CommandLine, HelpOfAnUnknownCommandIsBadInput) {
+  expect_usage_error({"help", "frobnicate"}, {"unknown command 'frobnicate'", "resume"});
+  expect_usage_error({"help", "plan", "check"}, {"unexpected argument 'check'"});
+}
+
 }  // namespace
