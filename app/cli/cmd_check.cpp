@@ -6,6 +6,7 @@
 
 #include "cli/commands.h"
 #include "cli/progress_line.h"
+#include "formats/atomic_file.h"
 #include "formats/check_json.h"
 #include "formats/input_error.h"
 #include "gramline/margin.h"
@@ -14,6 +15,12 @@
 namespace gramline::cli {
 
 int run_check(const CheckRequest& request) {
+  // Refuse before the check, which takes a while.
+  if (request.out_path) {
+    formats::refuse_existing(
+        QString::fromStdString(*request.out_path),
+        request.force ? formats::Overwrite::allow : formats::Overwrite::refuse);
+  }
   Campaign campaign = load_campaign_for_command(request.campaign_path, request.data_path);
   const std::uint64_t seed = request.seed.value_or(campaign.seed);
   campaign.seed = seed;

@@ -1,4 +1,5 @@
 // gramline-cli ingest: the rig's counts back into the planner.
+#include <QDir>
 #include <QString>
 #include <iostream>
 
@@ -14,6 +15,10 @@ int run_ingest(const IngestRequest& request) {
   const QString out = QString::fromStdString(request.out_dir);
   const formats::Overwrite overwrite =
       request.force ? formats::Overwrite::allow : formats::Overwrite::refuse;
+  // Refuse before the work, as every command that writes does.
+  for (const std::string& name : formats::ingest_file_names()) {
+    formats::refuse_existing(QDir(out).filePath(QString::fromStdString(name)), overwrite);
+  }
   const formats::Bundle bundle = formats::read_bundle(QString::fromStdString(request.bundle_path));
   const formats::CountsFile counts = formats::read_counts_csv(
       QString::fromStdString(request.counts_path), formats::counts_layout(bundle.campaign));

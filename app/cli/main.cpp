@@ -64,24 +64,24 @@ struct CommandEntry {
 const std::vector<CommandEntry>& commands() {
   static const std::vector<CommandEntry> table = {
       {"demo",
-       "demo --out FILE [--seed N]",
+       "demo --out FILE [--seed N] [--force]",
        "Write the bundled demo campaign (48 training and 16 test points, a two-photon rig of\n"
        "eight motors) to FILE.\n",
-       {"out", "seed"},
+       {"out", "seed", "force"},
        "the campaign file to write"},
       {"plan",
-       "plan CAMPAIGN [--data CSV] [--out DIR] [--seed N]",
+       "plan CAMPAIGN [--data CSV] [--out DIR] [--seed N] [--force]",
        "Plan the campaign: settings, their order, pairs and dwell times, nights. Prints a\n"
        "short summary; with --out writes steps.json, steps.csv, summary.json and kernel.csv\n"
        "into DIR (created if needed).\n",
-       {"data", "out", "seed"},
+       {"data", "out", "seed", "force"},
        "the folder for the four plan files (created if needed)"},
       {"check",
-       "check CAMPAIGN [--data CSV] [--trials N] [--seed N] [--out FILE]",
+       "check CAMPAIGN [--data CSV] [--trials N] [--seed N] [--out FILE] [--force]",
        "Margin check of the planned precision; writes the verdict as JSON to FILE and the\n"
        "report to standard output, or without --out the JSON to standard output and the\n"
        "report to standard error.\n",
-       {"data", "out", "seed", "trials"},
+       {"data", "out", "seed", "trials", "force"},
        "the file for the check JSON (without it: standard output)"},
       {"export",
        "export CAMPAIGN --out FILE.zip [--data CSV] [--seed N] [--force]",
@@ -329,6 +329,7 @@ int dispatch(const QStringList& argv) {
     gramline::cli::DemoRequest request;
     request.out_path = line.required("out", "FILE");
     request.seed = line.seed();
+    request.force = line.flag("force");
     return gramline::cli::run_demo(request);
   }
   if (name == "plan") {
@@ -337,6 +338,7 @@ int dispatch(const QStringList& argv) {
     request.data_path = line.value("data");
     request.out_dir = line.value("out");
     request.seed = line.seed();
+    request.force = line.flag("force");
     return gramline::cli::run_plan(request);
   }
   if (name == "check") {
@@ -348,6 +350,7 @@ int dispatch(const QStringList& argv) {
       request.trials = whole_number<int>(name, "--trials", *trials, 1);
     }
     request.seed = line.seed();
+    request.force = line.flag("force");
     return gramline::cli::run_check(request);
   }
   if (name == "export") {
