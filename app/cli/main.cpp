@@ -230,7 +230,7 @@ class CommandLine {
   std::vector<std::string> positional(size_t count, const char* what) const {
     const QStringList words = parser_.positionalArguments();
     if (static_cast<size_t>(words.size()) < count) {
-      throw InputError(prefix() + "missing " + what + " (see gramline-cli help)");
+      throw InputError(prefix() + "missing " + what + " (see gramline-cli help " + command_ + ")");
     }
     if (static_cast<size_t>(words.size()) > count) {
       throw InputError(prefix() + "unexpected argument '" +
@@ -256,7 +256,8 @@ class CommandLine {
     const QStringList unknown = parser_.unknownOptionNames();
     if (!unknown.isEmpty()) {
       const QString name = (unknown.front().size() > 1 ? "--" : "-") + unknown.front();
-      return prefix() + "unknown option '" + name.toStdString() + "' (see gramline-cli help)";
+      return prefix() + "unknown option '" + name.toStdString() + "' (see gramline-cli help " +
+             command_ + ")";
     }
     // The parser stops at a value option that ends the line, or at a flag given a value.
     const QString last = words.isEmpty() ? QString() : words.back();
