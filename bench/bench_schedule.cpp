@@ -7,6 +7,7 @@
 #include <cstdio>
 #include <cstdlib>
 #include <random>
+#include <string>
 
 #include "gramline/demo.h"
 #include "gramline/plan.h"
@@ -114,12 +115,29 @@ void run_plan(const Campaign& c) {
 
 }  // namespace
 
+// bench_schedule [N]: the demo and 200 training points; with N also N training points.
 int main(int argc, char** argv) {
-  const int largest = argc > 1 ? std::atoi(argv[1]) : 1000;
+  long largest = 0;
+  if (argc > 2) {
+    std::fprintf(stderr, "usage: bench_schedule [N]\n");
+    return 2;
+  }
+  if (argc == 2) {
+    char* end = nullptr;
+    largest = std::strtol(argv[1], &end, 10);
+    if (*argv[1] == '\0' || *end != '\0' || largest < 2 || largest > 10000) {
+      std::fprintf(stderr, "bench_schedule: N must be a whole number from 2 to 10000, not '%s'\n",
+                   argv[1]);
+      return 2;
+    }
+  }
   const Campaign demo = make_demo_campaign();
   run_plan(demo);
   run("demo", demo, demo.data.train_count(), demo.data.test_count());
   run("n=200", demo, 200, 20);
-  if (largest >= 1000) run("n=1000", demo, 1000, 0);
+  if (largest > 0) {
+    const std::string name = "n=" + std::to_string(largest);
+    run(name.c_str(), demo, static_cast<int>(largest), 0);
+  }
   return 0;
 }

@@ -49,13 +49,19 @@ fi
 cli="$build/app/gramline-cli"
 app="$build/app/gui/gramline"
 campaign="$build/demo.gramline.json"
-"$cli" demo --out "$campaign"
+# The demo campaign may have been edited and saved in the app since the last run: keep it.
+if [[ -e "$campaign" ]]; then
+  echo "== using the existing $campaign (delete it for a fresh demo)"
+else
+  "$cli" demo --out "$campaign"
+fi
 if [[ -n "${DISPLAY:-}${WAYLAND_DISPLAY:-}" && -x "$app" ]]; then
   echo "== starting the app on the demo campaign"
   exec "$app" "$campaign"
 fi
 echo "== no display: planning the demo with the command line"
-"$cli" plan "$campaign" --out "$build/demo-plan"
+# build/demo-plan holds only what this script wrote last time: re-plan over it.
+"$cli" plan "$campaign" --out "$build/demo-plan" --force
 cat <<MSG
 
 Plan files written to $build/demo-plan (steps.json, steps.csv, summary.json, kernel.csv).

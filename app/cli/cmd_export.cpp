@@ -4,6 +4,7 @@
 #include <stdexcept>
 
 #include "cli/commands.h"
+#include "cli/progress_line.h"
 #include "formats/bundle.h"
 #include "formats/input_error.h"
 #include "gramline/plan.h"
@@ -22,6 +23,8 @@ int run_export(const ExportRequest& request) {
   campaign.seed = options.seed;
   Plan plan;
   try {
+    ProgressLine progress("planning", kPlanProgressDelay_s);
+    options.hooks = progress.hooks();
     plan = plan_campaign(campaign, options);
   } catch (const std::invalid_argument& e) {
     throw formats::InputError(request.campaign_path + ": " + e.what());

@@ -1,8 +1,10 @@
 // gramline-cli ingest: the rig's counts back into the planner.
+#include <QDir>
 #include <QString>
 #include <iostream>
 
 #include "cli/commands.h"
+#include "cli/progress_line.h"
 #include "formats/bundle.h"
 #include "formats/counts_csv.h"
 #include "formats/ingest_run.h"
@@ -13,10 +15,18 @@ int run_ingest(const IngestRequest& request) {
   const QString out = QString::fromStdString(request.out_dir);
   const formats::Overwrite overwrite =
       request.force ? formats::Overwrite::allow : formats::Overwrite::refuse;
+  // Refuse before the work, as every command that writes does.
+  for (const std::string& name : formats::ingest_file_names()) {
+    formats::refuse_existing(QDir(out).filePath(QString::fromStdString(name)), overwrite);
+  }
   const formats::Bundle bundle = formats::read_bundle(QString::fromStdString(request.bundle_path));
   const formats::CountsFile counts = formats::read_counts_csv(
       QString::fromStdString(request.counts_path), formats::counts_layout(bundle.campaign));
-  const formats::IngestRun run = formats::ingest_counts(bundle, counts);
+  formats::IngestRun run;
+  {
+    ProgressLine progress("ingesting", 0.0);
+    run = formats::ingest_counts(bundle, counts, progress.hooks());
+  }
   std::cout << run.report();
   formats::write_ingest_files(run, out, overwrite);
   std::cout << "wrote";

@@ -1,7 +1,10 @@
+#include <QDir>
 #include <QString>
 #include <iostream>
 
 #include "cli/commands.h"
+#include "cli/progress_line.h"
+#include "formats/atomic_file.h"
 #include "formats/campaign_json.h"
 #include "formats/data_csv.h"
 #include "formats/input_error.h"
@@ -12,6 +15,13 @@
 namespace gramline::cli {
 
 using formats::InputError;
+
+namespace {
+
+/// The files `plan --out DIR` writes.
+const char* const kPlanFiles[] = {"steps.json", "steps.csv", "summary.json", "kernel.csv"};
+
+}  // namespace
 
 Campaign load_campaign_for_command(const std::string& campaign_path,
                                    const std::optional<std::string>& data_path) {
@@ -35,8 +45,11 @@ Campaign load_campaign_for_command(const std::string& campaign_path,
 }
 
 int run_demo(const DemoRequest& request) {
+  const QString out = QString::fromStdString(request.out_path);
+  formats::refuse_existing(out,
+                           request.force ? formats::Overwrite::allow : formats::Overwrite::refuse);
   const Campaign campaign = request.seed ? make_demo_campaign(*request.seed) : make_demo_campaign();
-  formats::save_campaign(campaign, QString::fromStdString(request.out_path));
+  formats::save_campaign(campaign, out);
   std::cout << "wrote the demo campaign '" << campaign.name << "' (" << campaign.data.train_count()
             << " training and " << campaign.data.test_count() << " test points, "
             << campaign.rig.motors.size() << " motors) to " << request.out_path << "\n";
@@ -44,12 +57,21 @@ int run_demo(const DemoRequest& request) {
 }
 
 int run_plan(const PlanRequest& request) {
+  // Refuse before planning: a plan that would be refused should not cost the planning time.
+  if (request.out_dir && !request.force) {
+    const QDir dir(QString::fromStdString(*request.out_dir));
+    for (const char* name : kPlanFiles) {
+      formats::refuse_existing(dir.filePath(name), formats::Overwrite::refuse);
+    }
+  }
   Campaign campaign = load_campaign_for_command(request.campaign_path, request.data_path);
   PlanOptions options;
   options.seed = request.seed.value_or(campaign.seed);
   campaign.seed = options.seed;
   Plan plan;
   try {
+    ProgressLine progress("planning", kPlanProgressDelay_s);
+    options.hooks = progress.hooks();
     plan = plan_campaign(campaign, options);
   } catch (const std::invalid_argument& e) {
     // The engine names the field; the user needs the file too.

@@ -3,6 +3,7 @@
 #include <iostream>
 
 #include "cli/commands.h"
+#include "cli/progress_line.h"
 #include "formats/bundle.h"
 #include "formats/counts_csv.h"
 #include "formats/resume_run.h"
@@ -18,7 +19,11 @@ int run_resume(const ResumeRequest& request) {
   const formats::Bundle bundle = formats::read_bundle(parent_path);
   const formats::CountsFile counts = formats::read_counts_csv(
       QString::fromStdString(request.counts_path), formats::counts_layout(bundle.campaign));
-  const formats::ResumeRun run = formats::plan_resume(bundle, counts);
+  formats::ResumeRun run;
+  {
+    ProgressLine progress("planning the rest", kPlanProgressDelay_s);
+    run = formats::plan_resume(bundle, counts, progress.hooks());
+  }
   std::cout << run.report();
   const formats::BundleWritten written =
       formats::write_resumed_bundle(run, bundle, parent_path, out, overwrite);

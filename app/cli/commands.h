@@ -1,6 +1,8 @@
 #pragma once
 // The commands of gramline-cli. Each returns the exit status (0 success, 2 bad input, 1 internal
 // failure); bad input may also be thrown as formats::InputError, which main turns into status 2.
+// Every command that writes leaves existing outputs as they are unless `force` is set, and
+// refuses before its long work starts.
 #include <cstdint>
 #include <optional>
 #include <string>
@@ -12,6 +14,7 @@ namespace gramline::cli {
 struct DemoRequest {
   std::string out_path;
   std::optional<std::uint64_t> seed;  ///< generator seed of the demo data (default: the demo's)
+  bool force = false;                 ///< replace an existing out_path
 };
 
 struct PlanRequest {
@@ -19,6 +22,7 @@ struct PlanRequest {
   std::optional<std::string> data_path;
   std::optional<std::string> out_dir;
   std::optional<std::uint64_t> seed;
+  bool force = false;  ///< replace plan files already in out_dir
 };
 
 struct CheckRequest {
@@ -26,7 +30,10 @@ struct CheckRequest {
   std::optional<std::string> data_path;
   std::optional<int> trials;
   std::optional<std::uint64_t> seed;
-  std::string out_path;
+  /// Where the check JSON goes; without it the JSON goes to standard output and the report to
+  /// standard error.
+  std::optional<std::string> out_path;
+  bool force = false;  ///< replace an existing out_path
 };
 
 struct ExportRequest {

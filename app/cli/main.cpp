@@ -1,10 +1,16 @@
-// gramline-cli: the command-line twin of the Gramline app (README, "Command line").
+// gramline-cli: the command-line twin of the Gramline app (commands in README.md, "Command
+// line"). Each command's words are read by a QCommandLineParser that knows only that command's
+// options; the help text is written here so that its layout stays ours.
+#include <QCommandLineOption>
+#include <QCommandLineParser>
+#include <QString>
+#include <QStringList>
 #include <algorithm>
 #include <charconv>
 #include <exception>
 #include <iostream>
-#include <map>
-#include <set>
+#include <optional>
+#include <stdexcept>
 #include <string>
 #include <vector>
 
@@ -15,83 +21,149 @@ namespace {
 
 using gramline::formats::InputError;
 
-const char* const kOverview =
-    "gramline-cli: plans polarization-encoded quantum-kernel measurements with photon pairs.\n"
-    "\n"
-    "Commands:\n"
-    "  demo --out FILE [--seed N]\n"
-    "      Write the bundled demo campaign (48 training and 16 test points, a two-photon rig of\n"
-    "      eight motors) to FILE.\n"
-    "  plan CAMPAIGN [--data CSV] [--out DIR] [--seed N]\n"
-    "      Plan the campaign: settings, their order, pairs and dwell times, nights. Prints a\n"
-    "      short summary; with --out writes steps.json, steps.csv, summary.json and kernel.csv\n"
-    "      into DIR (created if needed).\n"
-    "  check CAMPAIGN [--data CSV] [--trials N] [--seed N] --out FILE\n"
-    "      Margin check of the planned precision; writes the verdict as JSON to FILE.\n"
-    "  export CAMPAIGN --out FILE.zip [--data CSV] [--seed N] [--force]\n"
-    "      Plan the campaign and write the hand-off bundle for the rig: steps, campaign, data,\n"
-    "      summary, printable summary.html and a manifest with the SHA-256 of every file.\n"
-    "  ingest BUNDLE COUNTS --out DIR [--force]\n"
-    "      Check the bundle and the rig's counts file against each other, build the measured\n"
-    "      Gram matrix, compare it with the prediction, track drift, train the classifier.\n"
-    "  resume BUNDLE COUNTS --out FILE.zip [--force]\n"
-    "      Keep what the counts file measured and plan the rest from where the motors stopped;\n"
-    "      the new bundle names its parent.\n"
-    "  help [COMMAND]\n"
-    "      This text.\n"
-    "\n"
-    "Options:\n"
-    "  --data CSV   replace the campaign's points: a header row, numeric feature columns, a\n"
-    "               'label' column with two classes (-1/+1, or two names: the first one met is\n"
-    "               +1) and an optional 'set' column (train or test; default train)\n"
-    "  --seed N     seed of the random choices (default: the campaign's seed)\n"
-    "  --trials N   simulated repetitions of the margin check\n"
-    "  --out        output file (demo, check, export, resume) or directory (plan, ingest)\n"
-    "  --force      replace existing output files (otherwise they are left untouched)\n"
-    "  --version    print the version\n"
-    "\n"
+/// One option of a command: its name without dashes, the value it takes (empty for a flag) and
+/// its lines in the help text.
+struct OptionEntry {
+  const char* name;
+  const char* value_name;
+  const char* help;
+};
+
+const OptionEntry kOptions[] = {
+    {"data", "CSV",
+     "  --data CSV   replace the campaign's points: a header row, numeric feature columns, a\n"
+     "               'label' column with two classes (-1/+1, or two names: the first one met is\n"
+     "               +1) and an optional 'set' column (train or test; default train)\n"},
+    {"seed", "N", "  --seed N     seed of the random choices (default: the campaign's seed)\n"},
+    {"trials", "N", "  --trials N   simulated repetitions of the margin check\n"},
+    {"out", "PATH",
+     "  --out        output file (demo, check, export, resume) or directory (plan, ingest)\n"},
+    {"force", "",
+     "  --force      replace existing output files (otherwise they are left untouched)\n"},
+};
+
+const char* const kVersionHelp = "  --version    print the version\n";
+
+const OptionEntry& option_entry(const std::string& name) {
+  for (const OptionEntry& o : kOptions) {
+    if (name == o.name) return o;
+  }
+  throw std::logic_error("gramline-cli: no option named " + name);
+}
+
+/// One command: its usage line, what it does (lines without their indent), the options it
+/// accepts and what its --out names.
+struct CommandEntry {
+  const char* name;
+  const char* usage;
+  const char* about;
+  std::vector<std::string> options;
+  const char* out_help;
+};
+
+const std::vector<CommandEntry>& commands() {
+  static const std::vector<CommandEntry> table = {
+      {"demo",
+       "demo --out FILE [--seed N] [--force]",
+       "Write the bundled demo campaign (48 training and 16 test points, a two-photon rig of\n"
+       "eight motors) to FILE.\n",
+       {"out", "seed", "force"},
+       "the campaign file to write"},
+      {"plan",
+       "plan CAMPAIGN [--data CSV] [--out DIR] [--seed N] [--force]",
+       "Plan the campaign: settings, their order, pairs and dwell times, nights. Prints a\n"
+       "short summary; with --out writes steps.json, steps.csv, summary.json and kernel.csv\n"
+       "into DIR (created if needed).\n",
+       {"data", "out", "seed", "force"},
+       "the folder for the four plan files (created if needed)"},
+      {"check",
+       "check CAMPAIGN [--data CSV] [--trials N] [--seed N] [--out FILE] [--force]",
+       "Margin check of the planned precision; writes the verdict as JSON to FILE and the\n"
+       "report to standard output, or without --out the JSON to standard output and the\n"
+       "report to standard error.\n",
+       {"data", "out", "seed", "trials", "force"},
+       "the file for the check JSON (without it: standard output)"},
+      {"export",
+       "export CAMPAIGN --out FILE.zip [--data CSV] [--seed N] [--force]",
+       "Plan the campaign and write the hand-off bundle for the rig: steps, campaign, data,\n"
+       "summary, printable summary.html and a manifest with the SHA-256 of every file.\n",
+       {"data", "out", "seed", "force"},
+       "the bundle (a zip file) to write"},
+      {"ingest",
+       "ingest BUNDLE COUNTS --out DIR [--force]",
+       "Check the bundle and the rig's counts file against each other, build the measured\n"
+       "Gram matrix, compare it with the prediction, track drift, train the classifier.\n",
+       {"out", "force"},
+       "the folder for the results (created if needed)"},
+      {"resume",
+       "resume BUNDLE COUNTS --out FILE.zip [--force]",
+       "Keep what the counts file measured and plan the rest from where the motors stopped;\n"
+       "the new bundle names its parent.\n",
+       {"out", "force"},
+       "the new bundle (a zip file) to write"},
+  };
+  return table;
+}
+
+const CommandEntry* find_command(const std::string& name) {
+  for (const CommandEntry& c : commands()) {
+    if (name == c.name) return &c;
+  }
+  return nullptr;
+}
+
+const char* const kExitStatusHelp =
     "Exit status: 0 success, 2 bad input (the message names the file and line or field),\n"
     "1 internal failure.\n";
 
-struct Arguments {
-  std::vector<std::string> positional;
-  std::map<std::string, std::string> options;
-};
+const char* const kProgressHelp =
+    "Long work (planning, the margin check, ingest) shows its progress on standard error when\n"
+    "that is a terminal.\n";
 
-/// Splits the words after the command into positional words and `--name value` options
-/// (`--name=value` also works). Only the names in `allowed` are accepted.
-Arguments split_arguments(const std::string& command, const std::vector<std::string>& words,
-                          const std::set<std::string>& allowed) {
-  Arguments out;
-  for (size_t i = 0; i < words.size(); ++i) {
-    const std::string& word = words[i];
-    if (word.rfind("--", 0) != 0 || word == "--") {
-      out.positional.push_back(word);
-      continue;
-    }
-    std::string name = word;
-    std::string value;
-    bool has_value = false;
-    if (const size_t eq = word.find('='); eq != std::string::npos) {
-      name = word.substr(0, eq);
-      value = word.substr(eq + 1);
-      has_value = true;
-    }
-    if (!allowed.count(name)) {
-      throw InputError("gramline-cli " + command + ": unknown option '" + name +
-                       "' (see gramline-cli help)");
-    }
-    if (!has_value) {
-      if (i + 1 >= words.size()) {
-        throw InputError("gramline-cli " + command + ": option " + name + " needs a value");
-      }
-      value = words[++i];
-    }
-    if (!out.options.emplace(name, value).second) {
-      throw InputError("gramline-cli " + command + ": option " + name + " is given twice");
-    }
+/// `text` with every line indented by six spaces.
+std::string indented(const std::string& text) {
+  std::string out;
+  bool line_start = true;
+  for (char ch : text) {
+    if (line_start) out += "      ";
+    out += ch;
+    line_start = ch == '\n';
   }
   return out;
+}
+
+/// The text of `gramline-cli help`: every command and every option.
+std::string overview() {
+  std::string text =
+      "gramline-cli: plans polarization-encoded quantum-kernel measurements with photon pairs.\n"
+      "\n"
+      "Commands:\n";
+  for (const CommandEntry& c : commands()) {
+    text += std::string("  ") + c.usage + "\n" + indented(c.about);
+  }
+  text += "  help [COMMAND]\n" + indented("This text; with COMMAND, that command's help only.\n");
+  text += "\nOptions:\n";
+  for (const OptionEntry& o : kOptions) text += o.help;
+  text += kVersionHelp;
+  text += "\n";
+  text += kExitStatusHelp;
+  text += "\n";
+  text += kProgressHelp;
+  return text;
+}
+
+/// The text of `gramline-cli help COMMAND` and `gramline-cli COMMAND --help`.
+std::string command_help(const CommandEntry& c) {
+  std::string text = std::string("Usage: gramline-cli ") + c.usage + "\n\n" + indented(c.about);
+  text += "\nOptions:\n";
+  for (const std::string& name : c.options) {
+    text += name == "out" ? std::string("  --out        ") + c.out_help + "\n"
+                          : option_entry(name).help;
+  }
+  text += "  --help       print this help\n";
+  text += "\n";
+  text += kExitStatusHelp;
+  return text;
 }
 
 template <class T>
@@ -107,132 +179,207 @@ T whole_number(const std::string& command, const std::string& option, const std:
   return value;
 }
 
-std::optional<std::string> option(const Arguments& a, const char* name) {
-  const auto it = a.options.find(name);
-  if (it == a.options.end()) return std::nullopt;
-  return it->second;
-}
-
-std::optional<std::uint64_t> seed_option(const std::string& command, const Arguments& a) {
-  if (auto text = option(a, "--seed")) {
-    return whole_number<std::uint64_t>(command, "--seed", *text, 0);
+/// The words after a command, read against that command's options.
+class CommandLine {
+ public:
+  /// Parses `words` for `command`. Throws InputError naming the option for an unknown option,
+  /// a missing value, a value given to a flag, or a value option given twice.
+  CommandLine(const CommandEntry& command, const QStringList& words) : command_(command.name) {
+    parser_.addOption(QCommandLineOption({"h", "help"}, "help"));
+    for (const std::string& name : command.options) {
+      const OptionEntry& o = option_entry(name);
+      parser_.addOption(
+          QCommandLineOption(QString(o.name), QString(o.help), QString(o.value_name)));
+    }
+    // The parser skips the first word as the program's name.
+    const bool parsed = parser_.parse(QStringList{"gramline-cli"} + words);
+    help_ = parser_.isSet("help") || (!parsed && asks_for_help(words));
+    if (help_) return;
+    if (!parsed) throw InputError(parse_error(words));
+    const QStringList given = parser_.optionNames();
+    for (const std::string& name : command.options) {
+      const QString q = QString::fromStdString(name);
+      // A flag said twice says the same thing; a value said twice is ambiguous.
+      if (*option_entry(name).value_name && given.count(q) > 1) {
+        throw InputError(prefix() + "option --" + name + " is given twice");
+      }
+    }
   }
-  return std::nullopt;
-}
 
-/// Removes every `--name` (a flag without a value) from `words`; true when there was one.
-bool take_flag(std::vector<std::string>& words, const char* name) {
-  const auto end = std::remove(words.begin(), words.end(), std::string(name));
-  const bool found = end != words.end();
-  words.erase(end, words.end());
-  return found;
-}
+  bool wants_help() const { return help_; }
 
-void expect_positionals(const std::string& command, const Arguments& a, size_t count,
-                        const char* what) {
-  if (a.positional.size() < count) {
-    throw InputError("gramline-cli " + command + ": missing " + what + " (see gramline-cli help)");
+  std::optional<std::string> value(const char* name) const {
+    if (!parser_.isSet(name)) return std::nullopt;
+    return parser_.value(name).toStdString();
   }
-  if (a.positional.size() > count) {
-    throw InputError("gramline-cli " + command + ": unexpected argument '" + a.positional[count] +
-                     "'");
-  }
-}
 
-int dispatch(const std::vector<std::string>& argv) {
-  if (argv.empty()) {
-    std::cerr << kOverview;
+  std::string required(const char* name, const char* value_name) const {
+    auto v = value(name);
+    if (!v) throw InputError(prefix() + "--" + name + " " + value_name + " is required");
+    return *v;
+  }
+
+  bool flag(const char* name) const { return parser_.isSet(name); }
+
+  std::optional<std::uint64_t> seed() const {
+    if (auto text = value("seed")) return whole_number<std::uint64_t>(command_, "--seed", *text, 0);
+    return std::nullopt;
+  }
+
+  /// The positional words; exactly `count` of them, else InputError saying what is missing.
+  std::vector<std::string> positional(size_t count, const char* what) const {
+    const QStringList words = parser_.positionalArguments();
+    if (static_cast<size_t>(words.size()) < count) {
+      throw InputError(prefix() + "missing " + what + " (see gramline-cli help " + command_ + ")");
+    }
+    if (static_cast<size_t>(words.size()) > count) {
+      throw InputError(prefix() + "unexpected argument '" +
+                       words[static_cast<qsizetype>(count)].toStdString() + "'");
+    }
+    std::vector<std::string> out;
+    for (const QString& w : words) out.push_back(w.toStdString());
+    return out;
+  }
+
+ private:
+  std::string prefix() const { return "gramline-cli " + command_ + ": "; }
+
+  static bool asks_for_help(const QStringList& words) {
+    for (const QString& w : words) {
+      if (w == "--") return false;
+      if (w == "--help" || w == "-h") return true;
+    }
+    return false;
+  }
+
+  std::string parse_error(const QStringList& words) const {
+    const QStringList unknown = parser_.unknownOptionNames();
+    if (!unknown.isEmpty()) {
+      const QString name = (unknown.front().size() > 1 ? "--" : "-") + unknown.front();
+      return prefix() + "unknown option '" + name.toStdString() + "' (see gramline-cli help " +
+             command_ + ")";
+    }
+    // The parser stops at a value option that ends the line, or at a flag given a value.
+    const QString last = words.isEmpty() ? QString() : words.back();
+    for (const OptionEntry& o : kOptions) {
+      const QString option = QString("--") + o.name;
+      if (*o.value_name && last == option) {
+        return prefix() + "option " + option.toStdString() + " needs a value";
+      }
+      const bool flag_with_value =
+          !*o.value_name && std::any_of(words.begin(), words.end(), [&](const QString& w) {
+            return w.startsWith(option + "=");
+          });
+      if (flag_with_value) return prefix() + "option " + option.toStdString() + " takes no value";
+    }
+    return prefix() + parser_.errorText().toStdString();
+  }
+
+  std::string command_;
+  QCommandLineParser parser_;
+  bool help_ = false;
+};
+
+int dispatch(const QStringList& argv) {
+  if (argv.isEmpty()) {
+    std::cerr << overview();
     return 2;
   }
-  const std::string& command = argv.front();
-  const std::vector<std::string> rest(argv.begin() + 1, argv.end());
-  if (command == "help" || command == "--help" || command == "-h") {
-    std::cout << kOverview;
+  const std::string name = argv.front().toStdString();
+  const QStringList rest = argv.mid(1);
+  if (name == "help" && !rest.isEmpty()) {
+    if (rest.size() > 1) {
+      throw InputError("gramline-cli help: unexpected argument '" + rest[1].toStdString() + "'");
+    }
+    const std::string topic = rest.front().toStdString();
+    if (topic == "help") {
+      std::cout << overview();
+      return 0;
+    }
+    const CommandEntry* command = find_command(topic);
+    if (!command) {
+      std::string names;
+      for (const CommandEntry& c : commands())
+        names += (names.empty() ? "" : ", ") + std::string(c.name);
+      throw InputError("gramline-cli help: unknown command '" + topic + "' (commands: " + names +
+                       ")");
+    }
+    std::cout << command_help(*command);
     return 0;
   }
-  if (command == "--version") {
+  if (name == "help" || name == "--help" || name == "-h") {
+    std::cout << overview();
+    return 0;
+  }
+  if (name == "--version") {
     std::cout << "gramline-cli " << GRAMLINE_VERSION << "\n";
     return 0;
   }
-  for (const std::string& word : rest) {
-    if (word == "--help" || word == "-h") {
-      std::cout << kOverview;
-      return 0;
-    }
+  const CommandEntry* command = find_command(name);
+  if (!command) {
+    std::cerr << "gramline-cli: unknown command '" << name << "'\n\n" << overview();
+    return 2;
   }
-  if (command == "demo") {
-    const Arguments a = split_arguments(command, rest, {"--out", "--seed"});
-    expect_positionals(command, a, 0, "");
+  const CommandLine line(*command, rest);
+  if (line.wants_help()) {
+    std::cout << command_help(*command);
+    return 0;
+  }
+  if (name == "demo") {
+    line.positional(0, "");
     gramline::cli::DemoRequest request;
-    const auto out = option(a, "--out");
-    if (!out) throw InputError("gramline-cli demo: --out FILE is required");
-    request.out_path = *out;
-    request.seed = seed_option(command, a);
+    request.out_path = line.required("out", "FILE");
+    request.seed = line.seed();
+    request.force = line.flag("force");
     return gramline::cli::run_demo(request);
   }
-  if (command == "plan") {
-    const Arguments a = split_arguments(command, rest, {"--data", "--out", "--seed"});
-    expect_positionals(command, a, 1, "the campaign file");
+  if (name == "plan") {
     gramline::cli::PlanRequest request;
-    request.campaign_path = a.positional[0];
-    request.data_path = option(a, "--data");
-    request.out_dir = option(a, "--out");
-    request.seed = seed_option(command, a);
+    request.campaign_path = line.positional(1, "the campaign file")[0];
+    request.data_path = line.value("data");
+    request.out_dir = line.value("out");
+    request.seed = line.seed();
+    request.force = line.flag("force");
     return gramline::cli::run_plan(request);
   }
-  if (command == "check") {
-    const Arguments a = split_arguments(command, rest, {"--data", "--out", "--seed", "--trials"});
-    expect_positionals(command, a, 1, "the campaign file");
+  if (name == "check") {
     gramline::cli::CheckRequest request;
-    request.campaign_path = a.positional[0];
-    request.data_path = option(a, "--data");
-    const auto out = option(a, "--out");
-    if (!out) throw InputError("gramline-cli check: --out FILE is required");
-    request.out_path = *out;
-    if (auto trials = option(a, "--trials")) {
-      request.trials = whole_number<int>(command, "--trials", *trials, 1);
+    request.campaign_path = line.positional(1, "the campaign file")[0];
+    request.data_path = line.value("data");
+    request.out_path = line.value("out");
+    if (auto trials = line.value("trials")) {
+      request.trials = whole_number<int>(name, "--trials", *trials, 1);
     }
-    request.seed = seed_option(command, a);
+    request.seed = line.seed();
+    request.force = line.flag("force");
     return gramline::cli::run_check(request);
   }
-  if (command == "export") {
-    std::vector<std::string> words = rest;
+  if (name == "export") {
     gramline::cli::ExportRequest request;
-    request.force = take_flag(words, "--force");
-    const Arguments a = split_arguments(command, words, {"--data", "--out", "--seed"});
-    expect_positionals(command, a, 1, "the campaign file");
-    request.campaign_path = a.positional[0];
-    request.data_path = option(a, "--data");
-    const auto out = option(a, "--out");
-    if (!out) throw InputError("gramline-cli export: --out FILE.zip is required");
-    request.out_path = *out;
-    request.seed = seed_option(command, a);
+    request.force = line.flag("force");
+    request.campaign_path = line.positional(1, "the campaign file")[0];
+    request.data_path = line.value("data");
+    request.out_path = line.required("out", "FILE.zip");
+    request.seed = line.seed();
     return gramline::cli::run_export(request);
   }
-  if (command == "ingest" || command == "resume") {
-    std::vector<std::string> words = rest;
-    const bool force = take_flag(words, "--force");
-    const Arguments a = split_arguments(command, words, {"--out"});
-    expect_positionals(command, a, 2, "the bundle and the counts file");
-    const auto out = option(a, "--out");
-    if (!out) {
-      throw InputError("gramline-cli " + command + ": --out " +
-                       (command == "ingest" ? "DIR" : "FILE.zip") + " is required");
-    }
-    if (command == "ingest") {
-      return gramline::cli::run_ingest({a.positional[0], a.positional[1], *out, force});
-    }
-    return gramline::cli::run_resume({a.positional[0], a.positional[1], *out, force});
+  // ingest and resume: a bundle and a counts file in.
+  const std::vector<std::string> inputs = line.positional(2, "the bundle and the counts file");
+  const bool force = line.flag("force");
+  if (name == "ingest") {
+    return gramline::cli::run_ingest({inputs[0], inputs[1], line.required("out", "DIR"), force});
   }
-  std::cerr << "gramline-cli: unknown command '" << command << "'\n\n" << kOverview;
-  return 2;
+  return gramline::cli::run_resume({inputs[0], inputs[1], line.required("out", "FILE.zip"), force});
 }
 
 }  // namespace
 
 int main(int argc, char** argv) {
   try {
-    return dispatch(std::vector<std::string>(argv + 1, argv + argc));
+    QStringList words;
+    // File names pass through as UTF-8, as the formats read them.
+    for (int i = 1; i < argc; ++i) words << QString::fromUtf8(argv[i]);
+    return dispatch(words);
   } catch (const InputError& e) {
     std::cerr << e.what() << "\n";
     return 2;

@@ -53,7 +53,7 @@ double accuracy(const Eigen::VectorXd& decision, const Eigen::VectorXi& labels) 
 
 }  // namespace
 
-IngestRun ingest_counts(const Bundle& bundle, const CountsFile& counts) {
+IngestRun ingest_counts(const Bundle& bundle, const CountsFile& counts, const WorkHooks& hooks) {
   const Campaign& c = bundle.campaign;
   IngestRun run;
   run.bundle_source = bundle.source;
@@ -63,6 +63,7 @@ IngestRun ingest_counts(const Bundle& bundle, const CountsFile& counts) {
   if (!run.check.consistent())
     throw InputError(run.check.report() + counts.source + ": the counts do not fit the steps of " +
                      bundle.source + "; nothing was ingested");
+  hooks.report(0.1);
 
   // Earlier bundles' measured steps come first; the new counts follow them on one clock.
   std::vector<Step> steps = bundle.measured_steps;
@@ -83,6 +84,7 @@ IngestRun ingest_counts(const Bundle& bundle, const CountsFile& counts) {
   } catch (const std::invalid_argument& e) {
     throw InputError(counts.source + ": " + e.what());
   }
+  hooks.report(0.4);
 
   const IngestResult& r = run.result;
   const int n = c.data.train_count();
@@ -98,10 +100,12 @@ IngestRun ingest_counts(const Bundle& bundle, const CountsFile& counts) {
     run.svm_skipped_reason = std::to_string(run.unmeasured_train) +
                              " training entries are not measured; the classifier needs the "
                              "whole Gram matrix";
+    hooks.report(1.0);
     return run;
   }
   Eigen::MatrixXd gram = r.gram_measured;
   run.psd_repaired = repair_psd(gram, c.check.keep_unit_diagonal);
+  hooks.report(0.5);
   try {
     if (c.check.C > 0) {
       run.C = c.check.C;
@@ -111,6 +115,7 @@ IngestRun ingest_counts(const Bundle& bundle, const CountsFile& counts) {
       cv.seed = c.seed;
       run.C = choose_C(gram, c.data.train_labels, cv).best_C;
     }
+    hooks.report(0.8);
     SvmOptions o;
     o.C = run.C;
     run.svm = train_svm(gram, c.data.train_labels, o);
@@ -127,6 +132,7 @@ IngestRun ingest_counts(const Bundle& bundle, const CountsFile& counts) {
     run.svm_trained = false;
     run.svm_skipped_reason = std::string("the classifier could not be trained: ") + e.what();
   }
+  hooks.report(1.0);
   return run;
 }
 

@@ -12,6 +12,7 @@
 #include "formats/counts_csv.h"
 #include "gramline/ingest.h"
 #include "gramline/plan.h"
+#include "gramline/progress.h"
 #include "gramline/svm.h"
 
 namespace gramline::formats {
@@ -39,8 +40,9 @@ struct IngestRun {
 
 /// Ingests `counts` for `bundle`. Throws InputError listing every extra, duplicated and
 /// kind-mismatched row (file, line, column) when the counts do not fit the bundle's steps;
-/// missing steps are allowed (a partial night) and reported.
-IngestRun ingest_counts(const Bundle& bundle, const CountsFile& counts);
+/// missing steps are allowed (a partial night) and reported. `hooks` hears the fraction done.
+IngestRun ingest_counts(const Bundle& bundle, const CountsFile& counts,
+                        const WorkHooks& hooks = {});
 
 /// The names write_ingest_files writes.
 std::vector<std::string> ingest_file_names();

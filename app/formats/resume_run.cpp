@@ -13,7 +13,7 @@
 
 namespace gramline::formats {
 
-ResumeRun plan_resume(const Bundle& bundle, const CountsFile& counts) {
+ResumeRun plan_resume(const Bundle& bundle, const CountsFile& counts, const WorkHooks& hooks) {
   const Campaign& c = bundle.campaign;
   ResumeRun run;
   run.campaign = c;
@@ -66,6 +66,7 @@ ResumeRun plan_resume(const Bundle& bundle, const CountsFile& counts) {
   PlanOptions options;
   options.seed = run.campaign.seed;
   options.resume = &run.state;
+  options.hooks = hooks;
   try {
     run.plan = plan_campaign(run.campaign, options);
   } catch (const std::invalid_argument& e) {

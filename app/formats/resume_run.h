@@ -23,8 +23,9 @@ struct ResumeRun {
 };
 
 /// Plans the rest of `bundle`'s campaign after `counts`. Throws InputError when the counts do not
-/// fit the bundle's steps (every problem listed) or when nothing is left to measure.
-ResumeRun plan_resume(const Bundle& bundle, const CountsFile& counts);
+/// fit the bundle's steps (every problem listed) or when nothing is left to measure. `hooks`
+/// reach the planner (progress of the plan of the rest).
+ResumeRun plan_resume(const Bundle& bundle, const CountsFile& counts, const WorkHooks& hooks = {});
 
 /// Writes the new bundle: the remaining plan plus measured_steps.json, measured_counts.csv and
 /// resume.json; its manifest names the parent (file name and manifest SHA-256).

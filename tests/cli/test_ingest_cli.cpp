@@ -15,6 +15,7 @@
 #include <string>
 #include <vector>
 
+#include "cli_run.h"
 #include "formats/bundle.h"
 #include "formats/counts_csv.h"
 #include "gramline/motion.h"
@@ -23,7 +24,7 @@
 namespace {
 
 using namespace gramline;
-using handoff_test::run_cli;
+using cli_test::run_cli;
 using handoff_test::simulate_counts;
 
 std::string read_text(const QString& path) {
@@ -69,7 +70,7 @@ class Handoff : public ::testing::Test {
   }
   static inline QTemporaryDir* dir_ = nullptr;
   static inline QString campaign_path_, bundle_path_;
-  static inline handoff_test::CliRun demo_, export_;
+  static inline cli_test::CliRun demo_, export_;
   static inline formats::Bundle* bundle_ = nullptr;
 };
 

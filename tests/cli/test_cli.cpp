@@ -17,18 +17,18 @@
 #include <utility>
 #include <vector>
 
+#include "cli_run.h"
 #include "formats/campaign_json.h"
 #include "formats/plan_files.h"
 #include "gramline/jones.h"
 #include "gramline/motion.h"
-#include "handoff_fixtures.h"
 
 namespace {
 
 using namespace gramline;
 
-using handoff_test::CliRun;
-using handoff_test::run_cli;
+using cli_test::CliRun;
+using cli_test::run_cli;
 
 QString data_file(const char* name) { return QString(GRAMLINE_TEST_DATA) + "/" + name; }
 
@@ -303,7 +303,7 @@ TEST(Cli, UsageErrorsExitTwo) {
   EXPECT_EQ(run_cli({"plan", "x.json", "--colour", "red"}).status, 2);
   EXPECT_EQ(run_cli({"plan", "x.json", "--seed", "-3"}).status, 2);
   EXPECT_EQ(run_cli({"plan", "x.json", "--seed"}).status, 2);
-  EXPECT_EQ(run_cli({"check", "x.json"}).status, 2);  // --out is required
+  EXPECT_EQ(run_cli({"check", "x.json"}).status, 2);  // no such campaign
   const CliRun missing = run_cli({"plan", "/no/such/campaign.json"});
   EXPECT_EQ(missing.status, 2);
   EXPECT_NE(missing.err.find("/no/such/campaign.json"), std::string::npos);

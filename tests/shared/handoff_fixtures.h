@@ -1,9 +1,6 @@
 #pragma once
-// Shared by the hand-off tests: counts drawn from the rig model for a list of steps, and a way
-// to run gramline-cli.
-#include <QProcess>
-#include <QString>
-#include <QStringList>
+// Shared by the hand-off tests of the command line and the app: counts drawn from the rig model
+// for a list of steps.
 #include <random>
 #include <string>
 #include <vector>
@@ -15,27 +12,6 @@
 #include "gramline/plan.h"
 
 namespace handoff_test {
-
-struct CliRun {
-  int status = -1;
-  std::string out;
-  std::string err;
-};
-
-inline CliRun run_cli(const QStringList& arguments) {
-  QProcess process;
-  process.start(QString(GRAMLINE_CLI_PATH), arguments);
-  CliRun run;
-  if (!process.waitForFinished(300000)) {
-    process.kill();
-    process.waitForFinished();
-    return run;
-  }
-  run.status = process.exitStatus() == QProcess::NormalExit ? process.exitCode() : -2;
-  run.out = process.readAllStandardOutput().toStdString();
-  run.err = process.readAllStandardError().toStdString();
-  return run;
-}
 
 /// Counts of every measure and reference step, drawn from the rig model (detection.h
 /// setting_rates, docs/conventions.md): each of the 2^P channels (or the single pass channel) is an

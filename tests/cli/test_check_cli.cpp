@@ -13,14 +13,14 @@
 #include <string>
 #include <vector>
 
+#include "cli_run.h"
 #include "formats/campaign_json.h"
 #include "gramline/demo.h"
-#include "handoff_fixtures.h"
 
 namespace {
 
 // Exit status of one gramline-cli run.
-int run(const QStringList& arguments) { return handoff_test::run_cli(arguments).status; }
+int run(const QStringList& arguments) { return cli_test::run_cli(arguments).status; }
 
 QJsonObject read_json(const QString& path) {
   QFile f(path);
@@ -101,11 +101,33 @@ TEST(CheckCli, AStarvedBudgetFailsAndNamesItsPoints) {
   EXPECT_FALSE(check["failing_points"].toArray().isEmpty());
 }
 
-TEST(CheckCli, MissingOutIsBadInput) {
+TEST(CheckCli, WithoutOutTheJsonGoesToStandardOutputAndTheReportToStandardError) {
   QTemporaryDir dir;
   const QString campaign = dir.filePath("demo.json");
   ASSERT_EQ(run({"demo", "--out", campaign}), 0);
-  EXPECT_EQ(run({"check", campaign}), 2);
+  const QString small = QString(GRAMLINE_TEST_DATA) + "/small_two_features.csv";
+  const cli_test::CliRun piped =
+      cli_test::run_cli({"check", campaign, "--data", small, "--trials", "60"});
+  ASSERT_EQ(piped.status, 0) << piped.err;
+  QJsonParseError error;
+  QJsonObject from_stdout =
+      QJsonDocument::fromJson(QByteArray::fromStdString(piped.out), &error).object();
+  ASSERT_EQ(error.error, QJsonParseError::NoError) << piped.out;
+  EXPECT_NE(piped.err.find("Margin check:"), std::string::npos) << piped.err;
+  EXPECT_EQ(piped.out.find("Margin check:"), std::string::npos);
+
+  // The same check with --out: the same JSON in the file (but for its own timing), the report
+  // on standard output.
+  const cli_test::CliRun to_file = cli_test::run_cli(
+      {"check", campaign, "--data", small, "--trials", "60", "--out", dir.filePath("c.json")});
+  ASSERT_EQ(to_file.status, 0) << to_file.err;
+  EXPECT_NE(to_file.out.find("Margin check:"), std::string::npos) << to_file.out;
+  EXPECT_NE(to_file.out.find("wrote the margin check to"), std::string::npos) << to_file.out;
+  QJsonObject from_file = read_json(dir.filePath("c.json"));
+  ASSERT_TRUE(from_file.contains("check_ms"));
+  from_stdout.remove("check_ms");
+  from_file.remove("check_ms");
+  EXPECT_EQ(from_stdout, from_file);
 }
 
 }  // namespace
