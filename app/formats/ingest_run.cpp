@@ -12,7 +12,6 @@
 
 #include "formats/input_error.h"
 #include "formats/text_io.h"
-#include "gramline/margin.h"
 
 namespace gramline::formats {
 namespace {
@@ -44,13 +43,6 @@ QJsonArray vector_json(const Eigen::VectorXd& v) {
   return a;
 }
 
-double accuracy(const Eigen::VectorXd& decision, const Eigen::VectorXi& labels) {
-  if (labels.size() == 0 || decision.size() != labels.size()) return kNaN;
-  int right = 0;
-  for (long i = 0; i < labels.size(); ++i) right += (decision(i) >= 0 ? 1 : -1) == labels(i);
-  return static_cast<double>(right) / static_cast<double>(labels.size());
-}
-
 }  // namespace
 
 IngestRun ingest_counts(const Bundle& bundle, const CountsFile& counts, const WorkHooks& hooks) {
@@ -79,59 +71,16 @@ IngestRun ingest_counts(const Bundle& bundle, const CountsFile& counts, const Wo
     records.push_back(r);
   }
   run.plan = plan_from_steps(c, std::move(steps));
+  IngestOptions options;
+  options.keep_unit_diagonal = c.check.keep_unit_diagonal;
   try {
-    run.result = ingest_records(c, run.plan, records);
+    run.result = ingest_records(c, run.plan, records, options);
   } catch (const std::invalid_argument& e) {
     throw InputError(counts.source + ": " + e.what());
   }
   hooks.report(0.4);
-
-  const IngestResult& r = run.result;
-  const int n = c.data.train_count();
-  for (int i = 0; i < n; ++i)
-    for (int j = i + 1; j < n; ++j)
-      run.unmeasured_train += std::isfinite(r.gram_measured(i, j)) ? 0 : 1;
-  for (long t = 0; t < r.test_measured.rows(); ++t)
-    for (int j = 0; j < n; ++j) run.unmeasured_test += std::isfinite(r.test_measured(t, j)) ? 0 : 1;
-
-  run.test_accuracy = kNaN;
-  run.ideal_test_accuracy = kNaN;
-  if (run.unmeasured_train > 0) {
-    run.svm_skipped_reason = std::to_string(run.unmeasured_train) +
-                             " training entries are not measured; the classifier needs the "
-                             "whole Gram matrix";
-    hooks.report(1.0);
-    return run;
-  }
-  Eigen::MatrixXd gram = r.gram_measured;
-  run.psd_repaired = repair_psd(gram, c.check.keep_unit_diagonal);
-  hooks.report(0.5);
-  try {
-    if (c.check.C > 0) {
-      run.C = c.check.C;
-    } else {
-      CrossValidationOptions cv;
-      cv.folds = c.check.cv_folds;
-      cv.seed = c.seed;
-      run.C = choose_C(gram, c.data.train_labels, cv).best_C;
-    }
-    hooks.report(0.8);
-    SvmOptions o;
-    o.C = run.C;
-    run.svm = train_svm(gram, c.data.train_labels, o);
-    run.svm_trained = true;
-    const SvmModel ideal = train_svm(run.plan.kernel_train, c.data.train_labels, o);
-    if (c.data.test_count() > 0) {
-      run.ideal_test_accuracy = accuracy(ideal.decision(run.plan.kernel_test), c.data.test_labels);
-      if (run.unmeasured_test == 0) {
-        run.decision_test = run.svm.decision(r.test_measured);
-        run.test_accuracy = accuracy(run.decision_test, c.data.test_labels);
-      }
-    }
-  } catch (const std::invalid_argument& e) {
-    run.svm_trained = false;
-    run.svm_skipped_reason = std::string("the classifier could not be trained: ") + e.what();
-  }
+  static_cast<MeasuredClassifier&>(run) =
+      train_measured_classifier(c, run.plan, run.result, options);
   hooks.report(1.0);
   return run;
 }
@@ -149,20 +98,7 @@ std::string IngestRun::report() const {
     o << (check.missing.size() > 20 ? " ...\n" : "\n");
   }
   o << result.report();
-  o << "Unmeasured entries: " << unmeasured_train << " training (i < j), " << unmeasured_test
-    << " test\n";
-  if (svm_trained) {
-    o << "Classifier (C = " << C << ") trained on the measured Gram matrix"
-      << (psd_repaired ? " after clipping negative eigenvalues" : "") << ": " << svm.support.size()
-      << " support vectors, bias " << svm.bias << "\n";
-    if (std::isfinite(test_accuracy))
-      o << "Test accuracy " << test_accuracy << " measured, " << ideal_test_accuracy
-        << " with the ideal kernel\n";
-    else if (unmeasured_test > 0)
-      o << "Test block incomplete: no test decisions\n";
-  } else {
-    o << "No classifier: " << svm_skipped_reason << "\n";
-  }
+  o << MeasuredClassifier::report();
   return o.str();
 }
 

@@ -17,7 +17,9 @@
 
 namespace gramline::formats {
 
-struct IngestRun {
+/// The engine's classifier on the measured kernel (train_measured_classifier, ingest.h) with
+/// where its counts came from.
+struct IngestRun : MeasuredClassifier {
   std::string bundle_source;
   std::string counts_source;
   std::string manifest_sha256;
@@ -25,16 +27,6 @@ struct IngestRun {
   int earlier_steps = 0;  ///< steps carried from earlier bundles (resumed bundle), first in plan
   CountsCheck check;      ///< of the new counts against the bundle's own steps
   IngestResult result;
-  int unmeasured_train = 0;  ///< off-diagonal training entries (i < j) without a value
-  int unmeasured_test = 0;
-  bool psd_repaired = false;  ///< a negative eigenvalue was clipped before training
-  bool svm_trained = false;
-  std::string svm_skipped_reason;
-  double C = 1.0;
-  SvmModel svm;                      ///< trained on the repaired measured Gram matrix
-  Eigen::VectorXd decision_test;     ///< f at the test points with the measured test block
-  double test_accuracy = 0.0;        ///< against the test labels (NaN without test points)
-  double ideal_test_accuracy = 0.0;  ///< same classifier setup on the ideal kernels
   std::string report() const;
 };
 

@@ -9,18 +9,11 @@
 #include <vector>
 
 #include "gramline/campaign.h"
+#include "gramline/decision_grid.h"
 #include "gramline/margin.h"
 #include "gramline/plan.h"
 
 namespace gramline::gui {
-
-/// The noiseless decision function on a grid over the first two features (only when the data
-/// has exactly two features).
-struct DecisionGrid {
-  int size = 0;  ///< size x size samples
-  double x_low = 0, x_high = 1, y_low = 0, y_high = 1;
-  Eigen::VectorXd values;  ///< row-major, row 0 at y_low
-};
 
 struct MarginOutcome {
   std::shared_ptr<const MarginCheck> check;
@@ -68,9 +61,5 @@ class MarginRunner : public QObject {
   std::shared_ptr<const MarginCheck> check_;
   std::shared_ptr<const DecisionGrid> grid_;
 };
-
-/// Evaluates the noiseless classifier of `check` on a size x size grid spanning the points of
-/// `data` (plus a small border), through the engine's ideal_cross and SvmModel::decision.
-DecisionGrid decision_grid(const Campaign& campaign, const MarginCheck& check, int size);
 
 }  // namespace gramline::gui

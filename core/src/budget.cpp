@@ -6,6 +6,8 @@
 #include <stdexcept>
 
 #include "gramline/detection.h"
+#include "gramline/enum_names.h"
+#include "gramline/field_check.h"
 
 namespace gramline {
 
@@ -92,8 +94,15 @@ double precision_for_pairs(const EntryModel& entry, double pairs, const BudgetOp
   return std::numeric_limits<double>::infinity();
 }
 
+void BudgetOptions::validate() const {
+  FieldCheck("BudgetOptions")
+      .positive("epsilon", epsilon)
+      .inside("confidence", confidence, 0.0, 1.0)
+      .throw_if_failed();
+}
+
 double pairs_for_precision(const EntryModel& entry, const BudgetOptions& options) {
-  if (!(options.epsilon > 0)) throw std::invalid_argument("precision.epsilon must be positive");
+  options.validate();
   const double z = normal_quantile_two_sided(options.confidence);
   const double eps = options.epsilon;
   double pairs = 1.0;
@@ -139,26 +148,15 @@ Interval wilson_interval(double successes, double trials, double confidence) {
   return {std::max(0.0, centre - half), std::min(1.0, centre + half)};
 }
 
-std::string to_string(BudgetMethod m) {
-  switch (m) {
-    case BudgetMethod::normal:
-      return "normal";
-    case BudgetMethod::wilson:
-      return "wilson";
-    case BudgetMethod::hoeffding:
-      return "hoeffding";
-  }
-  return "wilson";
-}
+namespace {
+constexpr EnumNames<BudgetMethod, 3> kMethodNames{{{BudgetMethod::normal, "normal"},
+                                                   {BudgetMethod::wilson, "wilson"},
+                                                   {BudgetMethod::hoeffding, "hoeffding"}}};
+}  // namespace
 
+std::string to_string(BudgetMethod m) { return enum_text(kMethodNames, m); }
 bool from_string(const std::string& t, BudgetMethod& out) {
-  for (BudgetMethod m : {BudgetMethod::normal, BudgetMethod::wilson, BudgetMethod::hoeffding}) {
-    if (to_string(m) == t) {
-      out = m;
-      return true;
-    }
-  }
-  return false;
+  return enum_from_text(kMethodNames, t, out);
 }
 
 }  // namespace gramline

@@ -2,6 +2,8 @@
 
 #include <sstream>
 
+#include "gramline/enum_names.h"
+
 namespace gramline {
 
 double NightWindow::length_s() const {
@@ -30,26 +32,15 @@ std::string Campaign::check_consistency() const {
   return {};
 }
 
-std::string to_string(Allocation a) {
-  switch (a) {
-    case Allocation::uniform:
-      return "uniform";
-    case Allocation::neyman:
-      return "neyman";
-    case Allocation::margin_aware:
-      return "margin-aware";
-  }
-  return "uniform";
-}
+namespace {
+constexpr EnumNames<Allocation, 3> kAllocationNames{{{Allocation::uniform, "uniform"},
+                                                     {Allocation::neyman, "neyman"},
+                                                     {Allocation::margin_aware, "margin-aware"}}};
+}  // namespace
 
+std::string to_string(Allocation a) { return enum_text(kAllocationNames, a); }
 bool from_string(const std::string& t, Allocation& out) {
-  for (Allocation a : {Allocation::uniform, Allocation::neyman, Allocation::margin_aware}) {
-    if (to_string(a) == t) {
-      out = a;
-      return true;
-    }
-  }
-  return false;
+  return enum_from_text(kAllocationNames, t, out);
 }
 
 }  // namespace gramline

@@ -19,16 +19,12 @@ double pair_detect_rate_per_s(const Rig& rig, int photons) {
   return r;
 }
 
-namespace {
-// Leading-order accidental rate of a P-fold coincidence among independent detectors with
-// singles rates s and full window tau: tau^(P-1) prod s (S_A S_B tau for P = 2, common practice).
-double accidental_rate(const std::vector<double>& singles, double tau) {
-  if (singles.size() < 2) return 0.0;
-  double a = std::pow(tau, static_cast<double>(singles.size() - 1));
-  for (double s : singles) a *= s;
+double accidental_rate_per_s(const std::vector<double>& singles_per_s, double window_s) {
+  if (singles_per_s.size() < 2) return 0.0;
+  double a = std::pow(window_s, static_cast<double>(singles_per_s.size() - 1));
+  for (double s : singles_per_s) a *= s;
   return a;
 }
-}  // namespace
 
 SettingRates setting_rates(const Rig& rig, int photons, double kappa,
                            const std::vector<double>& photon_overlaps) {
@@ -48,8 +44,8 @@ SettingRates setting_rates(const Rig& rig, int photons, double kappa,
     all_ports[p] = rig.source.pair_rate_per_s * d.efficiency + 2.0 * d.dark_rate_per_s;
   }
   const double tau = rig.coincidence_window_s;
-  r.accidental_rate_per_s = accidental_rate(r.singles_per_s, tau);
-  r.accidental_total_rate_per_s = accidental_rate(all_ports, tau);
+  r.accidental_rate_per_s = accidental_rate_per_s(r.singles_per_s, tau);
+  r.accidental_total_rate_per_s = accidental_rate_per_s(all_ports, tau);
   return r;
 }
 

@@ -4,6 +4,8 @@
 #include <sstream>
 #include <stdexcept>
 
+#include "gramline/enum_names.h"
+
 namespace gramline {
 
 int EncodingMap::feature_count() const {
@@ -102,27 +104,16 @@ EncodingMap make_preset(EncodingPreset preset, const Eigen::VectorXd& feature_lo
   return map;
 }
 
-std::string to_string(EncodingPreset preset) {
-  switch (preset) {
-    case EncodingPreset::one_feature_per_photon_linear:
-      return "one-feature-per-photon-linear";
-    case EncodingPreset::two_features_polar_azimuth:
-      return "two-features-polar-azimuth";
-    case EncodingPreset::custom:
-      return "custom";
-  }
-  return "custom";
-}
+namespace {
+constexpr EnumNames<EncodingPreset, 3> kPresetNames{
+    {{EncodingPreset::one_feature_per_photon_linear, "one-feature-per-photon-linear"},
+     {EncodingPreset::two_features_polar_azimuth, "two-features-polar-azimuth"},
+     {EncodingPreset::custom, "custom"}}};
+}  // namespace
 
+std::string to_string(EncodingPreset preset) { return enum_text(kPresetNames, preset); }
 bool encoding_preset_from_string(const std::string& text, EncodingPreset& out) {
-  for (EncodingPreset p : {EncodingPreset::one_feature_per_photon_linear,
-                           EncodingPreset::two_features_polar_azimuth, EncodingPreset::custom}) {
-    if (to_string(p) == text) {
-      out = p;
-      return true;
-    }
-  }
-  return false;
+  return enum_from_text(kPresetNames, text, out);
 }
 
 }  // namespace gramline

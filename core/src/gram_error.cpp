@@ -4,8 +4,12 @@
 #include <cmath>
 #include <random>
 #include <sstream>
+#include <vector>
 
 #include "gramline/budget.h"
+#include "gramline/field_check.h"
+#include "gramline/parallel.h"
+#include "gramline/random.h"
 
 namespace gramline {
 
@@ -14,9 +18,20 @@ namespace {
 double log_normal_cdf(double x) { return std::log(0.5 * std::erfc(-x / std::sqrt(2.0))); }
 }  // namespace
 
+void GramErrorOptions::validate() const {
+  FieldCheck("GramErrorOptions")
+      .at_least("monte_carlo_trials", monte_carlo_trials, 0)
+      .at_least("threads", threads, 0)
+      .inside("confidence", confidence, 0.0, 1.0)
+      .throw_if_failed();
+}
+
 GramError predict_gram_error(const Eigen::MatrixXd& gram, const Eigen::MatrixXd& sigma,
                              const GramErrorOptions& options) {
+  options.validate();
   GramError out;
+  out.options = options;
+  out.options.hooks = WorkHooks{};
   const int n = static_cast<int>(gram.rows());
   if (n == 0) return out;
   Eigen::MatrixXd variance = sigma.cwiseAbs2();
@@ -47,14 +62,13 @@ GramError predict_gram_error(const Eigen::MatrixXd& gram, const Eigen::MatrixXd&
   out.p_negative_low = out.p_negative_high = out.p_negative_eigenvalue;
 
   if (options.monte_carlo_trials > 0) {
-    std::mt19937_64 rng(options.seed);
-    std::normal_distribution<double> gauss(0.0, 1.0);
+    const int trials = options.monte_carlo_trials;
     const Eigen::MatrixXd sd = variance.cwiseSqrt();
-    int negatives = 0;
-    Eigen::MatrixXd noisy(n, n);
-    for (int t = 0; t < options.monte_carlo_trials; ++t) {
-      options.hooks.throw_if_cancelled();
-      noisy = gram;
+    std::vector<char> negative(trials, 0);
+    parallel_for(trials, options.threads, options.hooks, [&](int t) {
+      SplitMix64 rng(stream_seed(options.seed, t));
+      std::normal_distribution<double> gauss(0.0, 1.0);
+      Eigen::MatrixXd noisy = gram;
       for (int i = 0; i < n; ++i)
         for (int j = i + 1; j < n; ++j) {
           const double e = sd(i, j) * gauss(rng);
@@ -62,13 +76,15 @@ GramError predict_gram_error(const Eigen::MatrixXd& gram, const Eigen::MatrixXd&
           noisy(j, i) += e;
         }
       Eigen::SelfAdjointEigenSolver<Eigen::MatrixXd> es(noisy, Eigen::EigenvaluesOnly);
-      if (es.eigenvalues()(0) < 0) ++negatives;
-      options.hooks.report(static_cast<double>(t + 1) / options.monte_carlo_trials);
-    }
-    const Interval ci = wilson_interval(negatives, options.monte_carlo_trials, 0.95);
-    out.p_negative_eigenvalue = static_cast<double>(negatives) / options.monte_carlo_trials;
+      negative[t] = es.eigenvalues()(0) < 0;
+    });
+    int negatives = 0;
+    for (char v : negative) negatives += v;
+    const Interval ci = wilson_interval(negatives, trials, options.confidence);
+    out.p_negative_eigenvalue = static_cast<double>(negatives) / trials;
     out.p_negative_low = ci.low;
     out.p_negative_high = ci.high;
+    out.threads_used = loop_thread_count(options.threads, trials);
   }
   return out;
 }
@@ -79,7 +95,15 @@ std::string GramError::report() const {
   o << "Gram error: Frobenius sigma " << sigma_frobenius << ", spectral ~" << spectral_estimate
     << ", largest entry sigma " << sigma_max << "\n"
     << "Smallest ideal eigenvalue " << min_eigenvalue << "; P(measured Gram has a negative "
-    << "eigenvalue) = " << p_negative_eigenvalue << "\n";
+    << "eigenvalue) = " << p_negative_eigenvalue;
+  if (options.monte_carlo_trials > 0) {
+    o << " [" << p_negative_low << ", " << p_negative_high << "] at " << 100 * options.confidence
+      << "%, counted over " << options.monte_carlo_trials << " simulated matrices (seed "
+      << options.seed << ", " << threads_used << " thread(s))";
+  } else {
+    o << " (first-order perturbation)";
+  }
+  o << "\n";
   return o.str();
 }
 

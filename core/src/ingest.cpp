@@ -7,7 +7,10 @@
 #include <stdexcept>
 
 #include "gramline/detection.h"
-#include "gramline/jones.h"
+#include "gramline/entries.h"
+#include "gramline/estimates.h"
+#include "gramline/field_check.h"
+#include "gramline/kernel.h"
 
 namespace gramline {
 
@@ -19,34 +22,15 @@ namespace {
 
 constexpr double kNaN = std::numeric_limits<double>::quiet_NaN();
 
-// Model rates of a step: the accidentals need the per-photon overlaps of its two points.
-SettingRates model_rates(const Campaign& c, const Step& s) {
-  const int photons = c.encoding.photon_count();
-  std::vector<double> overlaps(photons, 1.0);
-  double kappa = 1.0;
-  if (s.prep_point >= 0 && s.analysis_point >= 0) {
-    const Eigen::VectorXd a = c.data.point(s.prep_point);
-    const Eigen::VectorXd b = c.data.point(s.analysis_point);
-    for (int p = 0; p < photons; ++p) {
-      const BlochAngles sa = c.encoding.angles(p, a);
-      const BlochAngles sb = c.encoding.angles(p, b);
-      overlaps[p] =
-          overlap(bloch_state(sa.theta_deg, sa.phi_deg), bloch_state(sb.theta_deg, sb.phi_deg));
-      kappa *= overlaps[p];
-    }
-  }
-  return setting_rates(c.rig, photons, kappa, overlaps);
-}
-
-// Accidental rates from recorded singles when present (S_A S_B tau, common practice), else
-// from the rig model.
-Calibration accidentals(const Campaign& c, const SettingRates& model, const StepRecord& r) {
-  Calibration cal = model_calibration(c.rig, c.encoding.photon_count(), model);
+// Calibration of a step: the rig model's, with the accidentals taken from the recorded singles
+// when present (accidental_rate_per_s, detection.h).
+Calibration accidentals(const Campaign& c, const EntryNoise& model, const StepRecord& r) {
+  Calibration cal = model.calibration;
   if (!r.singles_per_s.empty() && c.encoding.photon_count() >= 2) {
-    double a = std::pow(c.rig.coincidence_window_s, c.encoding.photon_count() - 1);
-    for (double s : r.singles_per_s) a *= s;
+    const double a = accidental_rate_per_s(r.singles_per_s, c.rig.coincidence_window_s);
     // Scale the all-channel accidentals by the same measured/model ratio.
-    const double ratio = model.accidental_rate_per_s > 0 ? a / model.accidental_rate_per_s : 1.0;
+    const double model_a = model.calibration.accidental_pass_rate_per_s;
+    const double ratio = model_a > 0 ? a / model_a : 1.0;
     cal.accidental_pass_rate_per_s = a;
     cal.accidental_total_rate_per_s *= ratio;
   }
@@ -55,11 +39,11 @@ Calibration accidentals(const Campaign& c, const SettingRates& model, const Step
 
 double dwell_of(const StepRecord& r) { return r.end_s - r.start_s; }
 
-DriftPoint reference_point(const Campaign& c, const Step& s, const StepRecord& r) {
+DriftPoint reference_point(const Campaign& c, const EntryStatistics& stats, const Step& s,
+                           const StepRecord& r) {
   const int photons = c.encoding.photon_count();
   const double t = dwell_of(r);
-  const SettingRates model = model_rates(c, s);
-  const Calibration cal = accidentals(c, model, r);
+  const Calibration cal = accidentals(c, stats.noise(s.prep_point, s.analysis_point), r);
   const double floor = 1.0 / std::ldexp(1.0, photons);  // pass probability of a mixed state
   DriftPoint d;
   d.step = r.step;
@@ -110,8 +94,13 @@ void interpolate(const std::vector<DriftPoint>& refs, double t, double& rate, do
 
 }  // namespace
 
+void IngestOptions::validate() const {
+  FieldCheck("IngestOptions").positive("outlier_z", outlier_z).throw_if_failed();
+}
+
 IngestResult ingest_records(const Campaign& campaign, const Plan& plan,
                             const std::vector<StepRecord>& records, const IngestOptions& options) {
+  options.validate();
   const Campaign& c = campaign;
   const int n = c.data.train_count();
   const int m = c.data.test_count();
@@ -135,7 +124,9 @@ IngestResult ingest_records(const Campaign& campaign, const Plan& plan,
       throw std::invalid_argument(where.str() + ": expected one singles rate per photon");
   }
 
+  const EntryStatistics stats(c);
   IngestResult out;
+  out.options = options;
   out.gram_measured = Eigen::MatrixXd::Constant(n, n, kNaN);
   out.gram_measured.diagonal().setOnes();
   out.gram_sigma = Eigen::MatrixXd::Zero(n, n);
@@ -147,7 +138,7 @@ IngestResult ingest_records(const Campaign& campaign, const Plan& plan,
 
   for (const StepRecord& r : records) {
     const Step& s = plan.steps[r.step];
-    if (s.kind == StepKind::reference) out.drift.push_back(reference_point(c, s, r));
+    if (s.kind == StepKind::reference) out.drift.push_back(reference_point(c, stats, s, r));
   }
   std::sort(out.drift.begin(), out.drift.end(),
             [](const DriftPoint& a, const DriftPoint& b) { return a.time_s < b.time_s; });
@@ -162,12 +153,11 @@ IngestResult ingest_records(const Campaign& campaign, const Plan& plan,
     }
   }
 
-  double z_sum = 0.0, z_sq = 0.0;
-  int z_count = 0;
+  SampleMoments z_moments;
   for (const StepRecord& r : records) {
     const Step& s = plan.steps[r.step];
     if (s.kind != StepKind::measure) continue;
-    const SettingRates model = model_rates(c, s);
+    const EntryNoise model = stats.noise(s.prep_point, s.analysis_point);
     Calibration cal = accidentals(c, model, r);
     const double t = dwell_of(r);
     if (!out.drift.empty())
@@ -180,9 +170,10 @@ IngestResult ingest_records(const Campaign& campaign, const Plan& plan,
     const double kappa = estimate_kernel(c.rig.scheme, photons, cal, counts);
     const double pairs = cal.pair_detect_rate_per_s * t;
     const double p_seen = std::clamp(pass_probability(kappa, cal.visibility, photons), 0.0, 1.0);
-    const double sigma = std::sqrt(kernel_variance(c.rig.scheme, photons, cal, p_seen, pairs));
-    const double sigma_pred =
-        std::sqrt(kernel_variance(c.rig.scheme, photons, cal, model.p_pass, pairs));
+    // The same entry at the calibration of its night: with the pass probability seen (sigma of
+    // the measured value) and with the predicted one (the z-score's yardstick).
+    const double sigma = stats.sigma(EntryNoise{p_seen, cal}, pairs);
+    const double sigma_pred = stats.sigma(EntryNoise{model.p_pass, cal}, pairs);
     const double z = (kappa - s.kernel_ideal) / sigma_pred;
     const int a = std::min(s.prep_point, s.analysis_point);
     const int b = std::max(s.prep_point, s.analysis_point);
@@ -203,11 +194,7 @@ IngestResult ingest_records(const Campaign& campaign, const Plan& plan,
       o.col = a;
     }
     ++out.measured_entries;
-    if (std::isfinite(z)) {
-      z_sum += z;
-      z_sq += z * z;
-      ++z_count;
-    }
+    if (std::isfinite(z)) z_moments.add(z);
     if (std::abs(z) > options.outlier_z) {
       o.step = r.step;
       o.measured = kappa;
@@ -216,14 +203,82 @@ IngestResult ingest_records(const Campaign& campaign, const Plan& plan,
       out.outliers.push_back(o);
     }
   }
-  if (z_count > 0) {
-    out.z_mean = z_sum / z_count;
-    out.z_std =
-        z_count > 1
-            ? std::sqrt(std::max(0.0, (z_sq - z_count * out.z_mean * out.z_mean) / (z_count - 1)))
-            : 0.0;
+  out.z_mean = z_moments.mean();
+  out.z_std = z_moments.standard_deviation();
+  return out;
+}
+
+MeasuredClassifier train_measured_classifier(const Campaign& campaign, const Plan& plan,
+                                             const IngestResult& result,
+                                             const IngestOptions& options) {
+  const Campaign& c = campaign;
+  const int n = c.data.train_count();
+  MeasuredClassifier out;
+  out.keep_unit_diagonal = options.keep_unit_diagonal;
+  for (int i = 0; i < n; ++i)
+    for (int j = i + 1; j < n; ++j)
+      out.unmeasured_train += std::isfinite(result.gram_measured(i, j)) ? 0 : 1;
+  for (Eigen::Index t = 0; t < result.test_measured.rows(); ++t)
+    for (int j = 0; j < n; ++j)
+      out.unmeasured_test += std::isfinite(result.test_measured(t, j)) ? 0 : 1;
+
+  out.test_accuracy = kNaN;
+  out.ideal_test_accuracy = kNaN;
+  if (out.unmeasured_train > 0) {
+    out.svm_skipped_reason = std::to_string(out.unmeasured_train) +
+                             " training entries are not measured; the classifier needs the "
+                             "whole Gram matrix";
+    return out;
+  }
+  Eigen::MatrixXd gram = result.gram_measured;
+  out.psd_repaired = repair_psd(gram, options.keep_unit_diagonal);
+  try {
+    const CChoice choice =
+        fixed_or_cross_validated_C(gram, c.data.train_labels, c.check.C, c.check.cv_folds, c.seed);
+    out.C = choice.C;
+    out.C_from_cross_validation = choice.from_cross_validation;
+    SvmOptions o;
+    o.C = out.C;
+    out.svm = train_svm(gram, c.data.train_labels, o);
+    out.svm_trained = true;
+    const SvmModel ideal = train_svm(plan.kernel_train, c.data.train_labels, o);
+    if (c.data.test_count() > 0) {
+      out.ideal_test_accuracy =
+          classification_accuracy(ideal.decision(plan.kernel_test), c.data.test_labels);
+      if (out.unmeasured_test == 0) {
+        out.decision_test = out.svm.decision(result.test_measured);
+        out.test_accuracy = classification_accuracy(out.decision_test, c.data.test_labels);
+      }
+    }
+  } catch (const std::invalid_argument& e) {
+    out.svm_trained = false;
+    out.svm_skipped_reason = std::string("the classifier could not be trained: ") + e.what();
   }
   return out;
+}
+
+std::string MeasuredClassifier::report() const {
+  std::ostringstream o;
+  o.precision(4);
+  o << "Unmeasured entries: " << unmeasured_train << " training (i < j), " << unmeasured_test
+    << " test\n";
+  if (svm_trained) {
+    o << "Classifier (C = " << C << (C_from_cross_validation ? " by cross-validation" : "")
+      << ") trained on the measured Gram matrix"
+      << (psd_repaired ? keep_unit_diagonal
+                             ? " after clipping negative eigenvalues"
+                             : " after clipping negative eigenvalues (diagonal not restored)"
+                       : "")
+      << ": " << svm.support.size() << " support vectors, bias " << svm.bias << "\n";
+    if (std::isfinite(test_accuracy))
+      o << "Test accuracy " << test_accuracy << " measured, " << ideal_test_accuracy
+        << " with the ideal kernel\n";
+    else if (unmeasured_test > 0)
+      o << "Test block incomplete: no test decisions\n";
+  } else {
+    o << "No classifier: " << svm_skipped_reason << "\n";
+  }
+  return o.str();
 }
 
 std::string IngestResult::report() const {
@@ -235,6 +290,7 @@ std::string IngestResult::report() const {
   int drifted = 0;
   for (const DriftPoint& d : drift) drifted += d.drifted ? 1 : 0;
   o << drift.size() << " reference steps; " << drifted << " beyond 3 sigma of the first\n";
+  o << "Outliers are entries with |z| above " << options.outlier_z << "\n";
   o << outliers.size() << " outlier entries\n";
   for (const Outlier& x : outliers) {
     o << "  " << to_string(x.block) << " (" << x.row << ", " << x.col << ") step " << x.step

@@ -7,10 +7,13 @@
 #include <sstream>
 #include <stdexcept>
 
+#include "gramline/allocation.h"
 #include "gramline/budget.h"
 #include "gramline/detection.h"
+#include "gramline/entries.h"
+#include "gramline/enum_names.h"
+#include "gramline/field_check.h"
 #include "gramline/kernel.h"
-#include "gramline/margin.h"
 #include "gramline/motion.h"
 #include "gramline/schedule.h"
 #include "gramline/svm.h"
@@ -20,23 +23,18 @@ namespace gramline {
 
 namespace {
 
-struct PointStates {
-  std::vector<JonesVector> state;  // [photon]
-  PointTargets targets;
-};
-
-std::vector<PointStates> synthesize_points(const Campaign& c) {
+// Waveplate settings of every point (training first, then test), each checked by the Jones
+// product before it is used.
+std::vector<PointTargets> synthesize_points(const Campaign& c) {
   const int total = c.data.train_count() + c.data.test_count();
   const int photons = c.encoding.photon_count();
-  std::vector<PointStates> out(total);
+  std::vector<PointTargets> out(total);
   for (int i = 0; i < total; ++i) {
     const Eigen::VectorXd x = c.data.point(i);
     for (int p = 0; p < photons; ++p) {
       const BlochAngles a = c.encoding.angles(p, x);
-      out[i].state.push_back(bloch_state(a.theta_deg, a.phi_deg));
-      out[i].targets.prep.push_back(preparation_solutions(a.theta_deg, a.phi_deg));
-      out[i].targets.analysis.push_back(analysis_solutions(a.theta_deg, a.phi_deg));
-      // Every synthesized setting is checked by the Jones product before it is used.
+      out[i].prep.push_back(preparation_solutions(a.theta_deg, a.phi_deg));
+      out[i].analysis.push_back(analysis_solutions(a.theta_deg, a.phi_deg));
       const double fidelity = synthesis_fidelity(a.theta_deg, a.phi_deg);
       if (!(fidelity >= 1.0 - 1e-12)) {
         std::ostringstream e;
@@ -47,42 +45,6 @@ std::vector<PointStates> synthesize_points(const Campaign& c) {
     }
   }
   return out;
-}
-
-EntryModel entry_model(const Campaign& c, const SettingRates& rates) {
-  EntryModel e;
-  e.scheme = c.rig.scheme;
-  e.photons = c.encoding.photon_count();
-  e.p_pass = rates.p_pass;
-  e.visibility = c.rig.source.visibility;
-  e.accidental_ratio = rates.accidental_rate_per_s / rates.pair_detect_rate_per_s;
-  e.accidental_total_ratio = rates.accidental_total_rate_per_s / rates.pair_detect_rate_per_s;
-  return e;
-}
-
-struct EntryStats {
-  SettingRates rates;
-  EntryModel model;
-};
-
-EntryStats entry_stats(const Campaign& c, const PointStates& a, const PointStates& b) {
-  const int photons = c.encoding.photon_count();
-  std::vector<double> overlaps(photons);
-  double kappa = 1.0;
-  for (int p = 0; p < photons; ++p) {
-    overlaps[p] = overlap(a.state[p], b.state[p]);
-    kappa *= overlaps[p];
-  }
-  EntryStats s;
-  s.rates = setting_rates(c.rig, photons, kappa, overlaps);
-  s.model = entry_model(c, s.rates);
-  return s;
-}
-
-double entry_sigma(const Campaign& c, const EntryStats& s, double pairs) {
-  return std::sqrt(kernel_variance(c.rig.scheme, c.encoding.photon_count(),
-                                   model_calibration(c.rig, c.encoding.photon_count(), s.rates),
-                                   s.rates.p_pass, pairs));
 }
 
 // Fills the entry -> step maps and the summary totals that follow from the steps alone.
@@ -117,9 +79,10 @@ void index_steps(int n, int m, Plan& plan) {
 // Shares the pairs among the entries by the campaign's allocation strategy. The precision
 // target fixes the per-entry need; `uniform` gives every entry the largest need (so every entry
 // meets the target), and the other strategies spend that same total time differently
-// (margin.h, allocate_pairs).
-void allocate(const Campaign& c, const Plan& plan, std::vector<EntryRequest>& entries,
-              const std::vector<EntryStats>& stats, double pair_rate_per_s) {
+// (allocation.h).
+void allocate(const Campaign& c, const Plan& plan, const EntryStatistics& stats,
+              std::vector<EntryRequest>& entries, const std::vector<EntryNoise>& noise,
+              double pair_rate_per_s) {
   if (entries.empty() || c.precision.fixed_pairs > 0) return;
   double most = 0.0;
   for (const EntryRequest& r : entries) most = std::max(most, r.pairs);
@@ -127,59 +90,62 @@ void allocate(const Campaign& c, const Plan& plan, std::vector<EntryRequest>& en
   if (c.precision.allocation == Allocation::uniform) {
     for (EntryRequest& r : entries) r.pairs = most;
   } else {
-    const int n = c.data.train_count(), m = c.data.test_count();
-    MarginProblem problem;
-    problem.scheme = c.rig.scheme;
-    problem.photons = c.encoding.photon_count();
-    problem.kernel_train = plan.kernel_train;
-    problem.kernel_test = plan.kernel_test;
-    problem.train_labels = c.data.train_labels;
-    problem.test_labels = c.data.test_labels;
-    problem.noise_train.resize(static_cast<size_t>(n) * n);
-    problem.noise_test.resize(static_cast<size_t>(m) * n);
+    const int n = c.data.train_count();
+    AllocationInput in;
+    in.scheme = stats.scheme();
+    in.photons = stats.photons();
+    in.train_count = n;
+    in.test_count = c.data.test_count();
+    in.entries.reserve(entries.size());
     for (size_t k = 0; k < entries.size(); ++k) {
       const EntryRequest& r = entries[k];
-      EntryNoise e{stats[k].rates.p_pass,
-                   model_calibration(c.rig, problem.photons, stats[k].rates)};
-      if (r.block == Block::train)
-        problem.noise_train[static_cast<size_t>(r.a) * n + r.b] = e;
-      else
-        problem.noise_test[static_cast<size_t>(r.a - n) * n + r.b] = e;
+      const bool train = r.block == Block::train;
+      in.entries.push_back({r.block, train ? r.a : r.a - n, r.b, noise[k]});
     }
-    SvmModel ideal;
     if (c.precision.allocation == Allocation::margin_aware) {
       SvmOptions so;
-      so.C = c.check.C;
-      if (so.C <= 0) {
-        CrossValidationOptions cv;
-        cv.folds = c.check.cv_folds;
-        cv.seed = c.seed;
-        so.C = choose_C(plan.kernel_train, c.data.train_labels, cv).best_C;
-      }
-      ideal = train_svm(plan.kernel_train, c.data.train_labels, so);
+      so.C = fixed_or_cross_validated_C(plan.kernel_train, c.data.train_labels, c.check.C,
+                                        c.check.cv_folds, c.seed)
+                 .C;
+      const SvmModel ideal = train_svm(plan.kernel_train, c.data.train_labels, so);
+      in.dual_coef = ideal.dual_coef;
+      in.decision_test = ideal.decision(plan.kernel_test);
     }
-    allocate_pairs(problem, c.precision.allocation, ideal, total);
-    for (EntryRequest& r : entries) {
-      const double pairs = r.block == Block::train ? problem.pairs_train(r.a, r.b)
-                                                   : problem.pairs_test(r.a - n, r.b);
-      r.pairs = std::max(1.0, std::round(pairs));
-    }
+    const std::vector<double> pairs = allocate_pairs(in, c.precision.allocation, total);
+    for (size_t k = 0; k < entries.size(); ++k)
+      entries[k].pairs = std::max(1.0, std::round(pairs[k]));
   }
   for (EntryRequest& r : entries) r.dwell_s = r.pairs / pair_rate_per_s;
 }
 
 }  // namespace
 
+void PlanOptions::validate(const Campaign& campaign) const {
+  FieldCheck check("PlanOptions");
+  if (resume) {
+    const int points = campaign.data.train_count() + campaign.data.test_count();
+    for (const auto& [a, b] : resume->measured)
+      check.require(a >= 0 && b >= 0 && a < points && b < points, "resume.measured",
+                    "an entry refers to a point that does not exist");
+    const std::size_t positions = resume->start_positions_deg.size();
+    check.require(positions == 0 || positions == campaign.rig.motors.size(),
+                  "resume.start_positions_deg", "one start position per motor is needed");
+  }
+  check.throw_if_failed();
+}
+
 Plan plan_campaign(const Campaign& campaign, const PlanOptions& options) {
   const auto t0 = std::chrono::steady_clock::now();
   if (auto e = campaign.check_consistency(); !e.empty()) throw std::invalid_argument(e);
+  options.validate(campaign);
   const Campaign& c = campaign;
   const int n = c.data.train_count();
   const int m = c.data.test_count();
   const int photons = c.encoding.photon_count();
 
   Plan plan;
-  const std::vector<PointStates> points = synthesize_points(c);
+  const std::vector<PointTargets> targets = synthesize_points(c);
+  const EntryStatistics stats(c);
   plan.kernel_train = ideal_gram(c.encoding, c.data.train);
   plan.kernel_test =
       m > 0 ? ideal_cross(c.encoding, c.data.test, c.data.train) : Eigen::MatrixXd(0, n);
@@ -192,38 +158,30 @@ Plan plan_campaign(const Campaign& campaign, const PlanOptions& options) {
   in.nights = c.nights;
   in.settings = c.schedule;
   in.pair_detect_rate_per_s = pair_detect_rate_per_s(c.rig, photons);
-  for (const PointStates& p : points) in.points.push_back(p.targets);
+  in.points = targets;
   in.entries.reserve(static_cast<size_t>(n) * (n - 1) / 2 + static_cast<size_t>(m) * n);
-  std::vector<EntryStats> stats;
-  stats.reserve(in.entries.capacity());
+  std::vector<EntryNoise> noise;
+  noise.reserve(in.entries.capacity());
   auto add_entry = [&](int a, int b, Block block, double kappa) {
-    EntryStats s = entry_stats(c, points[a], points[b]);
+    const EntryNoise e = stats.noise(a, b);
     EntryRequest r;
     r.a = a;
     r.b = b;
     r.block = block;
     r.kernel_ideal = kappa;
-    r.p_pass = s.rates.p_pass;
+    r.p_pass = e.p_pass;
     r.pairs = c.precision.fixed_pairs > 0 ? c.precision.fixed_pairs
-                                          : pairs_for_precision(s.model, c.precision.budget);
+                                          : pairs_for_precision(stats.model(e), c.precision.budget);
     r.dwell_s = r.pairs / in.pair_detect_rate_per_s;
     in.entries.push_back(r);
-    stats.push_back(s);
+    noise.push_back(e);
   };
   // Entries already measured (resume) are left out; the matrix marks them by index.
   Eigen::Matrix<bool, Eigen::Dynamic, Eigen::Dynamic> done =
       Eigen::Matrix<bool, Eigen::Dynamic, Eigen::Dynamic>::Constant(n + m, n + m, false);
   if (options.resume) {
-    for (const auto& [a, b] : options.resume->measured) {
-      if (a < 0 || b < 0 || a >= n + m || b >= n + m)
-        throw std::invalid_argument("resume: measured entry refers to a point that does not exist");
-      done(a, b) = done(b, a) = true;
-    }
-    if (!options.resume->start_positions_deg.empty()) {
-      if (options.resume->start_positions_deg.size() != c.rig.motors.size())
-        throw std::invalid_argument("resume: one start position per motor is needed");
-      in.start_positions_deg = options.resume->start_positions_deg;
-    }
+    for (const auto& [a, b] : options.resume->measured) done(a, b) = done(b, a) = true;
+    in.start_positions_deg = options.resume->start_positions_deg;
   }
   for (int i = 0; i < n; ++i)
     for (int j = i + 1; j < n; ++j)
@@ -232,7 +190,7 @@ Plan plan_campaign(const Campaign& campaign, const PlanOptions& options) {
     for (int j = 0; j < n; ++j)
       if (!done(n + t, j)) add_entry(n + t, j, Block::test, plan.kernel_test(t, j));
   options.hooks.throw_if_cancelled();
-  allocate(c, plan, in.entries, stats, in.pair_detect_rate_per_s);
+  allocate(c, plan, stats, in.entries, noise, in.pair_detect_rate_per_s);
 
   // A reference step is a diagonal setting (kernel 1); it gets the median entry's pairs unless
   // the campaign sets its own.
@@ -263,9 +221,9 @@ Plan plan_campaign(const Campaign& campaign, const PlanOptions& options) {
   for (size_t k = 0; k < in.entries.size(); ++k) {
     const EntryRequest& r = in.entries[k];
     const double pairs = r.pairs * sched.pairs_scale;
-    const double sigma = entry_sigma(c, stats[k], pairs);
-    worst_half_width =
-        std::max(worst_half_width, precision_for_pairs(stats[k].model, pairs, c.precision.budget));
+    const double sigma = stats.sigma(noise[k], pairs);
+    worst_half_width = std::max(
+        worst_half_width, precision_for_pairs(stats.model(noise[k]), pairs, c.precision.budget));
     if (r.block == Block::train) {
       plan.pairs_train(r.a, r.b) = plan.pairs_train(r.b, r.a) = pairs;
       plan.sigma_train(r.a, r.b) = plan.sigma_train(r.b, r.a) = sigma;
@@ -292,6 +250,9 @@ Plan plan_campaign(const Campaign& campaign, const PlanOptions& options) {
   ge.hooks = options.hooks;
   plan.gram_error = predict_gram_error(plan.kernel_train, plan.sigma_train, ge);
   s.gram_sigma_frobenius = plan.gram_error.sigma_frobenius;
+  plan.options = options;
+  plan.options->resume = nullptr;
+  plan.options->hooks = WorkHooks{};
   s.plan_ms =
       std::chrono::duration<double, std::milli>(std::chrono::steady_clock::now() - t0).count();
   return plan;
@@ -302,7 +263,7 @@ Plan plan_from_steps(const Campaign& campaign, std::vector<Step> steps) {
   const Campaign& c = campaign;
   const int n = c.data.train_count();
   const int m = c.data.test_count();
-  const std::vector<PointStates> points = synthesize_points(c);
+  const EntryStatistics stats(c);
   Plan plan;
   plan.steps = std::move(steps);
   for (size_t k = 0; k < plan.steps.size(); ++k) {
@@ -325,7 +286,7 @@ Plan plan_from_steps(const Campaign& campaign, std::vector<Step> steps) {
     if (st.kind != StepKind::measure) continue;
     const int a = std::min(st.prep_point, st.analysis_point);
     const int b = std::max(st.prep_point, st.analysis_point);
-    const double sigma = entry_sigma(c, entry_stats(c, points[a], points[b]), st.pairs);
+    const double sigma = stats.sigma(stats.noise(a, b), st.pairs);
     if (st.block == Block::train) {
       plan.pairs_train(a, b) = plan.pairs_train(b, a) = st.pairs;
       plan.sigma_train(a, b) = plan.sigma_train(b, a) = sigma;
@@ -402,52 +363,25 @@ std::string Plan::report() const {
   o << std::setprecision(4);
   o << "Gram error: Frobenius sigma " << s.gram_sigma_frobenius << ", P(negative eigenvalue) "
     << gram_error.p_negative_eigenvalue << "\n";
+  if (options) {
+    o << "Options: seed " << options->seed << ", "
+      << (options->optimize_order ? "optimized" : "row-by-row") << " motor order, "
+      << (options->monte_carlo_gram ? "Monte Carlo" : "analytic") << " P(negative eigenvalue)\n";
+  }
   o << std::setprecision(0) << "Planned in " << s.plan_ms << " ms\n";
   return o.str();
 }
 
-std::string to_string(StepKind k) {
-  switch (k) {
-    case StepKind::measure:
-      return "measure";
-    case StepKind::reference:
-      return "reference";
-    case StepKind::dark:
-      return "dark";
-    case StepKind::park:
-      return "park";
-  }
-  return "measure";
-}
+namespace {
+constexpr EnumNames<StepKind, 4> kStepKindNames{{{StepKind::measure, "measure"},
+                                                 {StepKind::reference, "reference"},
+                                                 {StepKind::dark, "dark"},
+                                                 {StepKind::park, "park"}}};
+}  // namespace
 
-std::string to_string(Block b) {
-  switch (b) {
-    case Block::train:
-      return "train";
-    case Block::test:
-      return "test";
-    case Block::none:
-      return "none";
-  }
-  return "none";
-}
-
+std::string to_string(StepKind k) { return enum_text(kStepKindNames, k); }
 bool from_string(const std::string& t, StepKind& out) {
-  for (StepKind k : {StepKind::measure, StepKind::reference, StepKind::dark, StepKind::park})
-    if (to_string(k) == t) {
-      out = k;
-      return true;
-    }
-  return false;
-}
-
-bool from_string(const std::string& t, Block& out) {
-  for (Block b : {Block::train, Block::test, Block::none})
-    if (to_string(b) == t) {
-      out = b;
-      return true;
-    }
-  return false;
+  return enum_from_text(kStepKindNames, t, out);
 }
 
 }  // namespace gramline

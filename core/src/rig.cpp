@@ -3,6 +3,8 @@
 #include <cmath>
 #include <sstream>
 
+#include "gramline/enum_names.h"
+
 namespace gramline {
 
 int Rig::motor_index(int photon, Stage stage, Plate plate) const {
@@ -82,43 +84,28 @@ std::string Rig::check(int photons) const {
   return {};
 }
 
-std::string to_string(Stage s) { return s == Stage::prep ? "prep" : "analysis"; }
-std::string to_string(Plate p) { return p == Plate::HWP ? "HWP" : "QWP"; }
-std::string to_string(Backlash b) { return b == Backlash::shortest ? "shortest" : "from-below"; }
-std::string to_string(MoveMode m) {
-  return m == MoveMode::simultaneous ? "simultaneous" : "sequential";
-}
-std::string to_string(DetectionScheme s) {
-  return s == DetectionScheme::pass_only ? "pass-only" : "both-ports";
-}
-
 namespace {
-template <typename E, size_t K>
-bool parse_enum(const std::string& text, E& out, const E (&values)[K]) {
-  for (E v : values) {
-    if (to_string(v) == text) {
-      out = v;
-      return true;
-    }
-  }
-  return false;
-}
+constexpr EnumNames<Stage, 2> kStageNames{{{Stage::prep, "prep"}, {Stage::analysis, "analysis"}}};
+constexpr EnumNames<Plate, 2> kPlateNames{{{Plate::HWP, "HWP"}, {Plate::QWP, "QWP"}}};
+constexpr EnumNames<Backlash, 2> kBacklashNames{
+    {{Backlash::shortest, "shortest"}, {Backlash::from_below, "from-below"}}};
+constexpr EnumNames<MoveMode, 2> kMoveModeNames{
+    {{MoveMode::simultaneous, "simultaneous"}, {MoveMode::sequential, "sequential"}}};
+constexpr EnumNames<DetectionScheme, 2> kSchemeNames{
+    {{DetectionScheme::pass_only, "pass-only"}, {DetectionScheme::both_ports, "both-ports"}}};
 }  // namespace
 
-bool from_string(const std::string& t, Stage& o) {
-  return parse_enum(t, o, {Stage::prep, Stage::analysis});
-}
-bool from_string(const std::string& t, Plate& o) {
-  return parse_enum(t, o, {Plate::HWP, Plate::QWP});
-}
-bool from_string(const std::string& t, Backlash& o) {
-  return parse_enum(t, o, {Backlash::shortest, Backlash::from_below});
-}
-bool from_string(const std::string& t, MoveMode& o) {
-  return parse_enum(t, o, {MoveMode::simultaneous, MoveMode::sequential});
-}
+std::string to_string(Stage v) { return enum_text(kStageNames, v); }
+std::string to_string(Plate v) { return enum_text(kPlateNames, v); }
+std::string to_string(Backlash v) { return enum_text(kBacklashNames, v); }
+std::string to_string(MoveMode v) { return enum_text(kMoveModeNames, v); }
+std::string to_string(DetectionScheme v) { return enum_text(kSchemeNames, v); }
+bool from_string(const std::string& t, Stage& o) { return enum_from_text(kStageNames, t, o); }
+bool from_string(const std::string& t, Plate& o) { return enum_from_text(kPlateNames, t, o); }
+bool from_string(const std::string& t, Backlash& o) { return enum_from_text(kBacklashNames, t, o); }
+bool from_string(const std::string& t, MoveMode& o) { return enum_from_text(kMoveModeNames, t, o); }
 bool from_string(const std::string& t, DetectionScheme& o) {
-  return parse_enum(t, o, {DetectionScheme::pass_only, DetectionScheme::both_ports});
+  return enum_from_text(kSchemeNames, t, o);
 }
 
 }  // namespace gramline

@@ -12,6 +12,7 @@
 #include <sstream>
 #include <stdexcept>
 
+#include "gramline/field_check.h"
 #include "gramline/random.h"
 
 namespace gramline {
@@ -49,6 +50,34 @@ struct ModelDeleter {
 
 }  // namespace
 
+void SvmOptions::validate() const {
+  FieldCheck("SvmOptions")
+      .positive("C", C)
+      .positive("tolerance", tolerance)
+      .positive("cache_mb", cache_mb)
+      .throw_if_failed();
+}
+
+void CrossValidationOptions::validate() const {
+  FieldCheck check("CrossValidationOptions");
+  check.require(!C_values.empty(), "C_values", "no C values");
+  for (double c : C_values) check.positive("C_values", c);
+  check.at_least("folds", folds, 2);
+  check.throw_if_failed();
+  svm.validate();
+}
+
+int libsvm_label(double decision) { return decision > 0 ? 1 : -1; }
+
+double classification_accuracy(const Eigen::VectorXd& decision, const Eigen::VectorXi& labels) {
+  if (decision.size() != labels.size())
+    throw std::invalid_argument("accuracy: decision values and labels differ in size");
+  if (labels.size() == 0) return std::numeric_limits<double>::quiet_NaN();
+  int right = 0;
+  for (Eigen::Index i = 0; i < labels.size(); ++i) right += libsvm_label(decision[i]) == labels[i];
+  return static_cast<double>(right) / static_cast<double>(labels.size());
+}
+
 double SvmModel::geometric_margin() const {
   if (w_norm_squared <= 0.0) return std::numeric_limits<double>::infinity();
   return 1.0 / std::sqrt(w_norm_squared);
@@ -79,7 +108,7 @@ std::string SvmModel::report() const {
 SvmModel train_svm(const Eigen::MatrixXd& gram, const Eigen::VectorXi& labels,
                    const SvmOptions& options) {
   check_problem(gram, labels);
-  if (!(options.C > 0.0)) throw std::invalid_argument("svm: C must be positive");
+  options.validate();
   silence_libsvm();
   const int n = static_cast<int>(gram.rows());
 
@@ -168,18 +197,19 @@ double cross_validated_accuracy(const Eigen::MatrixXd& gram, const Eigen::Vector
     const SvmModel model = train_svm(gram(train, train), train_labels, options);
     const Eigen::VectorXd held_f = model.decision(gram(held, train));
     for (std::size_t k = 0; k < held.size(); ++k)
-      if ((held_f[static_cast<Eigen::Index>(k)] > 0 ? 1 : -1) == labels[held[k]]) ++right;
+      if (libsvm_label(held_f[static_cast<Eigen::Index>(k)]) == labels[held[k]]) ++right;
   }
   return held_out_total > 0 ? static_cast<double>(right) / held_out_total : 0.0;
 }
 
 CrossValidationResult choose_C(const Eigen::MatrixXd& gram, const Eigen::VectorXi& labels,
                                const CrossValidationOptions& options) {
-  if (options.C_values.empty()) throw std::invalid_argument("cross-validation: no C values");
-  const int folds = std::min<int>(options.folds, static_cast<int>(labels.size()));
+  options.validate();
+  const int folds = cross_validation_folds(options.folds, static_cast<int>(labels.size()));
   const std::vector<int> fold = stratified_folds(labels, folds, options.seed);
   CrossValidationResult result;
   result.folds = folds;
+  result.seed = options.seed;
   std::vector<double> values = options.C_values;
   std::sort(values.begin(), values.end());
   result.best_accuracy = -1.0;
@@ -198,9 +228,27 @@ CrossValidationResult choose_C(const Eigen::MatrixXd& gram, const Eigen::VectorX
   return result;
 }
 
+int cross_validation_folds(int requested, int points) { return std::min(requested, points); }
+
+CChoice fixed_or_cross_validated_C(const Eigen::MatrixXd& gram, const Eigen::VectorXi& labels,
+                                   double fixed_C, int folds, std::uint64_t seed) {
+  CChoice choice;
+  if (fixed_C > 0) {
+    choice.C = fixed_C;
+    return choice;
+  }
+  CrossValidationOptions cv;
+  cv.folds = folds;
+  cv.seed = seed;
+  choice.cross_validation = choose_C(gram, labels, cv);
+  choice.C = choice.cross_validation.best_C;
+  choice.from_cross_validation = true;
+  return choice;
+}
+
 std::string CrossValidationResult::report() const {
   std::ostringstream out;
-  out << folds << "-fold cross-validation over C:";
+  out << folds << "-fold cross-validation over C (folds seeded " << seed << "):";
   for (std::size_t k = 0; k < C_values.size(); ++k)
     out << (k ? ", " : " ") << "C " << C_values[k] << " -> " << accuracy[k];
   out << "\n  chosen C = " << best_C << " (held-out accuracy " << best_accuracy << ")\n";

@@ -17,6 +17,8 @@ struct BudgetOptions {
   double epsilon = 0.02;     ///< target half-width on the kernel value
   double confidence = 0.95;  ///< 1 - delta
   bool worst_case = false;   ///< use p = 1/2 instead of the predicted p
+  /// Throws std::invalid_argument naming the first unusable field.
+  void validate() const;
 };
 
 /// Inputs that describe one entry's statistics.

@@ -30,6 +30,11 @@ double kernel_from_pass_probability(double p, double visibility, int photons);
 SettingRates setting_rates(const Rig& rig, int photons, double kappa,
                            const std::vector<double>& photon_overlaps);
 
+/// Leading-order rate of accidental P-fold coincidences among independent detectors with
+/// singles rates s_p (per s) and full coincidence window tau (s): tau^(P-1) prod_p s_p
+/// (S_A S_B tau for two photons, common practice); 0 for fewer than two detectors.
+double accidental_rate_per_s(const std::vector<double>& singles_per_s, double window_s);
+
 /// Rate of P-fold detections of real pairs summed over all ports: R prod eta_p. The number of
 /// "pairs" of an entry is this rate times its dwell time.
 double pair_detect_rate_per_s(const Rig& rig, int photons);

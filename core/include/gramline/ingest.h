@@ -7,6 +7,7 @@
 
 #include "gramline/campaign.h"
 #include "gramline/plan.h"
+#include "gramline/svm.h"
 
 namespace gramline {
 
@@ -47,7 +48,11 @@ struct Outlier {
 
 struct IngestOptions {
   double outlier_z = 4.0;  ///< |z| above this is listed as an outlier
+  /// The PSD repair of the measured Gram matrix before the classifier is trained on it
+  /// (train_measured_classifier) keeps the unit diagonal.
   bool keep_unit_diagonal = true;
+  /// Throws std::invalid_argument naming the first unusable field.
+  void validate() const;
 };
 
 struct IngestResult {
@@ -61,8 +66,9 @@ struct IngestResult {
   int expected_entries = 0;
   std::vector<DriftPoint> drift;
   std::vector<Outlier> outliers;
-  double z_mean = 0.0;  ///< mean of all z-scores (standard normal expects 0)
-  double z_std = 0.0;   ///< their standard deviation (expects 1)
+  double z_mean = 0.0;    ///< mean of all z-scores (standard normal expects 0)
+  double z_std = 0.0;     ///< their standard deviation (expects 1)
+  IngestOptions options;  ///< as run
   std::string report() const;
 };
 
@@ -73,5 +79,31 @@ struct IngestResult {
 IngestResult ingest_records(const Campaign& campaign, const Plan& plan,
                             const std::vector<StepRecord>& records,
                             const IngestOptions& options = {});
+
+/// A C-SVC trained on the measured Gram matrix, and its predictions for the test points.
+struct MeasuredClassifier {
+  int unmeasured_train = 0;   ///< off-diagonal training entries (i < j) without a value
+  int unmeasured_test = 0;    ///< test entries without a value
+  bool psd_repaired = false;  ///< a negative eigenvalue was clipped before training
+  bool svm_trained = false;
+  std::string svm_skipped_reason;
+  double C = 1.0;
+  bool C_from_cross_validation = false;
+  SvmModel svm;                      ///< trained on the repaired measured Gram matrix
+  Eigen::VectorXd decision_test;     ///< f at the test points with the measured test block
+  double test_accuracy = 0.0;        ///< against the test labels (NaN without test decisions)
+  double ideal_test_accuracy = 0.0;  ///< same classifier setup on the ideal kernels
+  bool keep_unit_diagonal = true;    ///< of the PSD repair, as run (IngestOptions)
+  std::string report() const;
+};
+
+/// Trains the classifier on result.gram_measured once every training entry has a value: PSD
+/// repair (repair_psd, kernel.h; unit diagonal kept as options.keep_unit_diagonal says), C
+/// fixed or by cross-validation as the campaign's check settings say (fold assignment seeded by
+/// campaign.seed), then the test decisions when the test block is complete. An untrainable
+/// matrix is reported in svm_skipped_reason, not thrown.
+MeasuredClassifier train_measured_classifier(const Campaign& campaign, const Plan& plan,
+                                             const IngestResult& result,
+                                             const IngestOptions& options = {});
 
 }  // namespace gramline

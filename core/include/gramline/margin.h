@@ -1,27 +1,25 @@
 #pragma once
-// The margin check (README, user guide step 13): with the planned pairs per entry, does the
-// classifier trained on the measured Gram matrix still put every test point on the same side, with
-// margin? A Monte Carlo over simulated campaigns: counts per setting with the detection scheme's
-// statistics, the unbiased kernel estimator of detection.h, PSD repair, retraining.
+// The margin check (README, user guide step 13): with the planned pairs per entry, does the classifier trained on the
+// measured Gram matrix still put every test point on the same side, with margin?
+// A Monte Carlo over simulated campaigns: counts per setting with the detection scheme's
+// statistics, the unbiased kernel estimator of detection.h, PSD repair (kernel.h), retraining.
 #include <Eigen/Core>
 #include <cstdint>
 #include <string>
 #include <vector>
 
+#include "gramline/allocation.h"
 #include "gramline/budget.h"
 #include "gramline/campaign.h"
 #include "gramline/detection.h"
+#include "gramline/entries.h"
+#include "gramline/estimates.h"
+#include "gramline/kernel.h"
 #include "gramline/plan.h"
 #include "gramline/progress.h"
 #include "gramline/svm.h"
 
 namespace gramline {
-
-/// Count statistics of one kernel entry, independent of its pairs.
-struct EntryNoise {
-  double p_pass = 0.0;      ///< predicted pass probability of the setting
-  Calibration calibration;  ///< pair rate r (per s), visibility, accidentals (per s)
-};
 
 /// Everything one simulated campaign needs. Entries with pairs <= 0 are taken as exact (the
 /// diagonal, or an entry fixed on purpose).
@@ -39,13 +37,14 @@ struct MarginProblem {
 
   int train_count() const { return static_cast<int>(kernel_train.rows()); }
   int test_count() const { return static_cast<int>(kernel_test.rows()); }
-  /// Predicted standard deviation of each entry's estimate (kernel_variance), same shapes.
+  /// Predicted standard deviation of each entry's estimate (entry_sigma; 0 for an exact
+  /// entry), same shapes.
   Eigen::MatrixXd sigma_train() const;
   Eigen::MatrixXd sigma_test() const;
 };
 
 /// Builds the problem from a campaign and its plan: ideal kernels and pairs from the plan,
-/// rates and calibration per setting from the rig model (setting_rates, model_calibration).
+/// each entry's count statistics from the rig model (EntryStatistics, entries.h).
 MarginProblem make_margin_problem(const Campaign& campaign, const Plan& plan);
 
 /// Draws one simulated measured kernel: counts per entry at a fixed dwell (both_ports: total
@@ -56,27 +55,16 @@ MarginProblem make_margin_problem(const Campaign& campaign, const Plan& plan);
 void draw_measured_kernels(const MarginProblem& problem, std::uint64_t trial_seed,
                            Eigen::MatrixXd& train, Eigen::MatrixXd& test);
 
-/// Nearest positive semidefinite matrix in Frobenius norm by clipping negative eigenvalues at
-/// zero (Higham, Linear Algebra Appl. 103 (1988) 103-118); with keep_unit_diagonal, then
-/// rescaled as D^-1/2 K D^-1/2 so every diagonal entry is 1 again. Returns true when a
-/// negative eigenvalue was clipped.
-bool repair_psd(Eigen::MatrixXd& gram, bool keep_unit_diagonal);
-
-/// A Monte Carlo figure with its confidence interval.
-struct Estimate {
-  double value = 0.0;
-  double low = 0.0;
-  double high = 0.0;
-};
-
 struct TrialOptions {
   int trials = 1000;
   std::uint64_t seed = 1;
   int threads = 0;  ///< 0: all cores
   bool keep_unit_diagonal = true;
   double confidence = 0.95;  ///< of every interval
-  SvmOptions svm;            ///< C of the retrained classifiers
+  SvmOptions svm;            ///< options of the retrained classifiers (C: the ideal one's)
   WorkHooks hooks;
+  /// Throws std::invalid_argument naming the first unusable field.
+  void validate() const;
 };
 
 /// One test point's outcome over the trials.
@@ -84,13 +72,15 @@ struct TestPointOutcome {
   int test_index = 0;           ///< 0-based among test points
   double decision_ideal = 0.0;  ///< f at the point, noiseless classifier
   int label = 0;                ///< true label
-  int flips = 0;                ///< trials whose sign differs from the noiseless one
+  int flips = 0;                ///< trials whose label differs from the noiseless one
   Estimate flip_probability;    ///< flips / trials, Wilson interval (Wilson 1927)
   double decision_sd = 0.0;     ///< standard deviation of the noisy f over trials
 };
 
 struct TrialSummary {
   int trials = 0;
+  TrialOptions options;  ///< as run (without hooks); svm.C is the C the trials retrained with
+  int threads_used = 0;  ///< loop_thread_count of options.threads (parallel.h)
   std::vector<TestPointOutcome> points;
   Estimate flip_probability_max;  ///< largest per-point probability, its own Wilson interval
   Estimate accuracy_median;       ///< per-trial accuracy (test points; training if none)
@@ -116,14 +106,8 @@ struct Verdict {
 };
 Verdict judge(const TrialSummary& summary, const CheckSettings& settings, int train_count);
 
-/// Pairs per entry under an allocation strategy for a fixed total of detected pairs
-/// (time = pairs / r, r the same for every setting):
-///  uniform: equal pairs; neyman: pairs proportional to the single-pair sigma of the estimator
-///  (sqrt(p(1-p))/V without accidentals; Neyman, J. R. Stat. Soc. 97 (1934) 558);
-///  margin_aware: pairs proportional to sigma times the sensitivity of the decision function,
-///  |a_i| + |a_j| on training entry (i, j) and |a_j| / max(|f0(t)|, 0.1 mean |f0|) on test entry
-///  (t, j), plus a floor of 10% of the mean weight so no entry goes unmeasured.
-/// Writes problem.pairs_train / pairs_test.
+/// allocate_pairs (allocation.h) over every measure entry of the problem (training upper
+/// triangle and test block); writes problem.pairs_train / pairs_test.
 void allocate_pairs(MarginProblem& problem, Allocation strategy, const SvmModel& ideal,
                     double total_pairs);
 
@@ -134,6 +118,8 @@ struct BudgetSearchOptions {
   double low_pairs = 10.0;      ///< pairs per entry where the search starts
   double high_pairs = 1e9;      ///< give up above this
   double relative_step = 0.05;  ///< stop when high / low < 1 + this
+  /// Throws std::invalid_argument naming the first unusable field.
+  void validate() const;
 };
 
 /// Smallest budget passing, found by bisection on a log scale with common random numbers.
@@ -147,7 +133,7 @@ struct BudgetSearch {
   int evaluations = 0;
 };
 
-/// Encoding scale scan: the scale advice of the margin check (README, user guide step 13).
+/// One factor of the encoding scale scan (README, user guide step 13).
 struct ScalePoint {
   double factor = 1.0;
   double alignment = 0.0;    ///< kernel-target alignment of the ideal training Gram
@@ -172,12 +158,17 @@ struct MarginCheckOptions {
   int search_trials = 300;
   bool minimum_budget = true;
   bool compare_allocations = true;
+  BudgetSearchOptions budget_search;  ///< limits of both searches, in pairs per entry
   bool scan_scale = true;
   std::vector<double> scale_factors = {0.25, 0.5, 0.75, 1.0, 1.25, 1.5, 2.0};
   WorkHooks hooks;
+  /// Throws std::invalid_argument naming the first unusable field.
+  void validate() const;
 };
 
 struct MarginCheck {
+  /// As run, without hooks: trials, seed and search_trials resolved (never 0).
+  MarginCheckOptions options;
   double C = 1.0;
   bool C_from_cross_validation = false;
   CrossValidationResult cross_validation;  ///< filled when C was chosen by CV
@@ -198,7 +189,7 @@ struct MarginCheck {
 };
 
 /// The full check of a planned campaign. Throws std::invalid_argument for an unusable campaign
-/// (one class, no training points) and Cancelled when cancelled.
+/// (one class, no training points) or options, and Cancelled when cancelled.
 MarginCheck check_margin(const Campaign& campaign, const Plan& plan,
                          const MarginCheckOptions& options = {});
 

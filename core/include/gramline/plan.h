@@ -2,18 +2,19 @@
 // Planning: settings, their order, their pairs and dwell times, and the night timeline.
 #include <Eigen/Core>
 #include <cstdint>
+#include <optional>
 #include <string>
 #include <utility>
 #include <vector>
 
 #include "gramline/campaign.h"
+#include "gramline/entries.h"
 #include "gramline/gram_error.h"
 #include "gramline/progress.h"
 
 namespace gramline {
 
 enum class StepKind { measure, reference, dark, park };
-enum class Block { train, test, none };
 
 /// One step of the schedule. Point indices are global (training first, then test), -1 if none.
 struct Step {
@@ -76,9 +77,14 @@ struct PlanOptions {
   bool optimize_order = true;  ///< false: row-by-row order
   bool monte_carlo_gram = false;
   WorkHooks hooks;
+  /// Throws std::invalid_argument naming the first field that does not fit `campaign`.
+  void validate(const Campaign& campaign) const;
 };
 
 struct Plan {
+  /// The options it was planned with (hooks and resume pointer cleared); empty for a plan
+  /// rebuilt from a steps file (plan_from_steps).
+  std::optional<PlanOptions> options;
   std::vector<Step> steps;
   PlanSummary summary;
   Eigen::MatrixXd kernel_train;   ///< N x N ideal
@@ -122,8 +128,6 @@ Plan plan_from_steps(const Campaign& campaign, std::vector<Step> steps);
 double recompute_moves(const Rig& rig, std::vector<Step>& steps);
 
 std::string to_string(StepKind);
-std::string to_string(Block);
 bool from_string(const std::string&, StepKind&);
-bool from_string(const std::string&, Block&);
 
 }  // namespace gramline
