@@ -44,6 +44,9 @@ MainWindow::MainWindow(QWidget* parent) : QMainWindow(parent) {
   document_ = new CampaignDocument(this);
   runner_ = new PlanRunner(this);
   margin_runner_ = new MarginRunner(this);
+  // Connected before the editor refreshes itself from the document: planning starts first and
+  // runs while the editor and the views catch up.
+  connect(document_, &CampaignDocument::changed, this, &MainWindow::on_campaign_changed);
   build_views();
 
   editor_ = new EditorPanel(document_);
@@ -70,7 +73,6 @@ MainWindow::MainWindow(QWidget* parent) : QMainWindow(parent) {
   show_editor->setShortcut(QKeySequence(Qt::CTRL | Qt::Key_E));
   menuBar()->actions().at(2)->menu()->addAction(show_editor);
 
-  connect(document_, &CampaignDocument::changed, this, &MainWindow::on_campaign_changed);
   connect(document_, &CampaignDocument::state_changed, this, &MainWindow::update_title);
   connect(editor_, &EditorPanel::import_requested, files_, &CampaignFiles::import_data);
   connect(editor_, &EditorPanel::demo_requested, this, [this] {
@@ -259,14 +261,14 @@ void MainWindow::follow_margin_check() {
 
 void MainWindow::on_campaign_changed() {
   const Campaign& c = document_->campaign();
+  const bool has_data = c.data.train_count() > 0;
+  if (has_data) runner_->request(c);  // first: the rest below runs while it plans
   margin_->set_campaign(c);
-  if (c.data.train_count() == 0) {
+  if (!has_data) {
     runner_->cancel();
     set_all_stale(true, tr("No data yet: import a CSV (Ctrl+I) or open the demo to plan."));
     plan_status_->set_text(tr("No data."));
-    return;
   }
-  runner_->request(c);
 }
 
 void MainWindow::on_plan_finished() {

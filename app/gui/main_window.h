@@ -44,6 +44,7 @@ class MainWindow : public QMainWindow {
   MarginView* margin_view() const { return margin_; }
   SummaryView* summary_view() const { return summary_; }
   StepsView* steps_view() const { return steps_; }
+  TimelineView* timeline_view() const { return timeline_; }
   MeasuredView* measured_view() const { return measured_; }
   HandOff* hand_off() const { return hand_off_; }
   EditorPanel* editor() const { return editor_; }

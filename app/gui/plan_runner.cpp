@@ -9,7 +9,6 @@ PlanRunner::PlanRunner(QObject* parent)
       planner_([](const Campaign& c, const PlanOptions& o) { return plan_campaign(c, o); }) {}
 
 void PlanRunner::request(const Campaign& campaign) {
-  emit stale();
   run([campaign, planner = planner_](const WorkHooks& hooks) {
     const std::string problem = campaign.check_consistency();
     if (!problem.empty()) throw std::invalid_argument(problem);
@@ -18,6 +17,7 @@ void PlanRunner::request(const Campaign& campaign) {
     options.hooks = hooks;
     return PlannedCampaign{campaign, std::make_shared<const Plan>(planner(campaign, options))};
   });
+  emit stale();  // after the start: the views are marked while the plan runs
 }
 
 const Campaign& PlanRunner::planned_campaign() const {

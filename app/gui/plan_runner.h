@@ -34,7 +34,7 @@ class PlanRunner : public JobRunner<PlannedCampaign> {
   const Campaign& planned_campaign() const;
 
  signals:
-  /// A request arrived: what is shown is now out of date.
+  /// A request arrived (and its plan has started): what is shown is now out of date.
   void stale();
 
  private:

@@ -29,6 +29,7 @@
 #include "status_indicator.h"
 #include "steps_view.h"
 #include "summary_view.h"
+#include "timeline_view.h"
 #include "view_frame.h"
 
 using gramline::gui::MainWindow;
@@ -151,6 +152,24 @@ class MainWindowTest : public QObject {
     QVERIFY(!w.plan_status()->running());
     QVERIFY2(w.plan_status()->text().startsWith(QStringLiteral("Planned ")),
              qPrintable(w.plan_status()->text()));
+  }
+
+  // A hidden timeline draws the newest plan when it is shown, not while other views are.
+  void timeline_catches_up_when_shown() {
+    MainWindow w;
+    make_quick(w);
+    w.show();
+    w.views()->setCurrentIndex(MainWindow::kSummary);
+    w.load_demo();
+    QTRY_VERIFY_WITH_TIMEOUT(settled(w), kWaitMs);
+    const auto first = w.runner()->plan();
+    QCOMPARE(w.timeline_view()->drawn_plan(), first);  // the first plan is drawn at once
+    w.document()->edit(QStringLiteral("slower settle"),
+                       [](gramline::Campaign& c) { c.rig.controller.settle_s += 0.3; });
+    QTRY_VERIFY_WITH_TIMEOUT(settled(w) && w.runner()->plan() != first, kWaitMs);
+    QCOMPARE(w.timeline_view()->drawn_plan(), first);
+    w.views()->setCurrentIndex(MainWindow::kTimeline);
+    QCOMPARE(w.timeline_view()->drawn_plan(), w.runner()->plan());
   }
 
   void save_and_open_round_trip() {
