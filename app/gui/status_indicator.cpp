@@ -14,7 +14,8 @@ namespace {
 constexpr int kBarSteps = 1000;
 }
 
-StatusIndicator::StatusIndicator(const Look& look, QWidget* parent) : QWidget(parent) {
+StatusIndicator::StatusIndicator(const Look& look, QWidget* parent)
+    : QWidget(parent), collapse_(!look.stretch) {
   text_ = new QLabel;
   if (!look.text_name.isEmpty()) text_->setAccessibleName(look.text_name);
   text_->hide();
@@ -34,6 +35,7 @@ StatusIndicator::StatusIndicator(const Look& look, QWidget* parent) : QWidget(pa
     cancel_->hide();
     layout->addWidget(cancel_);
   }
+  fit();
 }
 
 void StatusIndicator::follow(JobRunnerBase* job) {
@@ -52,6 +54,7 @@ void StatusIndicator::follow(JobRunnerBase* job) {
 void StatusIndicator::set_text(const QString& text) {
   text_->setText(text);
   text_->setVisible(!text.isEmpty());
+  fit();
 }
 
 QString StatusIndicator::text() const { return text_->text(); }
@@ -74,6 +77,12 @@ QSize StatusIndicator::minimumSizeHint() const {
 void StatusIndicator::show_running(bool running) {
   bar_->setVisible(running);
   if (cancel_) cancel_->setVisible(running);
+  fit();
+}
+
+void StatusIndicator::fit() {
+  // A hidden item leaves no gap in the status bar; a shown one, however empty, does.
+  if (collapse_) setHidden(text_->isHidden() && bar_->isHidden());
 }
 
 }  // namespace gramline::gui

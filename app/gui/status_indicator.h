@@ -24,7 +24,10 @@ class StatusIndicator : public QWidget {
     int bar_width = 180;    ///< widest the progress bar grows, in pixels
     bool percent = false;   ///< print the percentage on the bar
     bool measured = true;   ///< false: the job reports no progress and the bar only moves
-    bool stretch = false;   ///< the text takes the free width (the status bar's leading item)
+    /// The text takes the free width: the status bar's leading item, which stays in place
+    /// (the status bar hides it while it shows a message). Any other indicator takes no room
+    /// while it shows nothing.
+    bool stretch = false;
   };
 
   explicit StatusIndicator(const Look& look, QWidget* parent = nullptr);
@@ -43,7 +46,9 @@ class StatusIndicator : public QWidget {
 
  private:
   void show_running(bool running);
+  void fit();
 
+  bool collapse_;
   QLabel* text_;
   QProgressBar* bar_;
   QPushButton* cancel_ = nullptr;
