@@ -295,12 +295,12 @@
         <translation>Kampagne kann nicht geöffnet werden</translation>
     </message>
     <message>
-        <location line="+7"/>
+        <location line="+8"/>
         <source>Open Campaign</source>
         <translation>Kampagne öffnen</translation>
     </message>
     <message>
-        <location line="+13"/>
+        <location line="+12"/>
         <source>Saved %1</source>
         <translation>%1 gespeichert</translation>
     </message>
@@ -401,7 +401,7 @@
 <context>
     <name>gramline::gui::DataPage</name>
     <message>
-        <location filename="../app/gui/data_page.cpp" line="+22"/>
+        <location filename="../app/gui/data_page.cpp" line="+21"/>
         <location line="+1"/>
         <source>Campaign name</source>
         <translation>Kampagnenname</translation>
@@ -530,7 +530,7 @@
 <context>
     <name>gramline::gui::EncodingPage</name>
     <message>
-        <location filename="../app/gui/encoding_page.cpp" line="+25"/>
+        <location filename="../app/gui/encoding_page.cpp" line="+24"/>
         <source>Each photon&apos;s polarization state is set by the features: the polar angle θ and the azimuth φ on the Bloch sphere are affine in the features.</source>
         <translation>Der Polarisationszustand jedes Photons wird von den Merkmalen eingestellt: Polarwinkel θ und Azimut φ auf der Bloch-Kugel hängen affin von den Merkmalen ab.</translation>
     </message>
@@ -874,7 +874,7 @@
     </message>
     <message>
         <location line="+9"/>
-        <location line="+139"/>
+        <location line="+138"/>
         <source>The bundle %1 was not written.
 
 %2</source>
@@ -883,7 +883,7 @@
 %2</translation>
     </message>
     <message>
-        <location line="-130"/>
+        <location line="-129"/>
         <source>Ingest Counts: Choose the Bundle the Rig Ran</source>
         <translation>Zähldaten einlesen: Bündel wählen, das der Aufbau ausgeführt hat</translation>
     </message>
@@ -917,7 +917,7 @@
         <translation>%1 eingelesen: %2 von %3 Einträgen gemessen.</translation>
     </message>
     <message>
-        <location line="+11"/>
+        <location line="+10"/>
         <source>Resume: Choose the Bundle the Rig Ran</source>
         <translation>Fortsetzen: Bündel wählen, das der Aufbau ausgeführt hat</translation>
     </message>
@@ -932,7 +932,7 @@
         <translation>Der Rest nach %1 wird geplant…</translation>
     </message>
     <message>
-        <location line="-155"/>
+        <location line="-154"/>
         <source>Cannot resume</source>
         <translation>Fortsetzen nicht möglich</translation>
     </message>
@@ -946,7 +946,7 @@
 %1</translation>
     </message>
     <message>
-        <location line="+166"/>
+        <location line="+165"/>
         <source>Resume from Counts</source>
         <translation>Aus Zähldaten fortsetzen</translation>
     </message>
@@ -1107,7 +1107,7 @@
 <context>
     <name>gramline::gui::JobRunnerBase</name>
     <message>
-        <location filename="../app/gui/job_runner.cpp" line="+54"/>
+        <location filename="../app/gui/job_runner.cpp" line="+56"/>
         <source>The background job stopped with an unexpected error.</source>
         <translation>Die Hintergrundarbeit endete mit einem unerwarteten Fehler.</translation>
     </message>
@@ -1115,7 +1115,7 @@
 <context>
     <name>gramline::gui::MainWindow</name>
     <message>
-        <location filename="../app/gui/main_window.cpp" line="+103"/>
+        <location filename="../app/gui/main_window.cpp" line="+105"/>
         <source>Views of the plan</source>
         <translation>Ansichten des Plans</translation>
     </message>
@@ -1190,7 +1190,7 @@
         <translation>Lasersicherheit und unbeaufsichtigter Betrieb</translation>
     </message>
     <message>
-        <location line="-68"/>
+        <location line="-67"/>
         <source>Campaign</source>
         <translation>Kampagne</translation>
     </message>
@@ -1200,12 +1200,12 @@
         <translation>&amp;Kampagnen-Editor anzeigen</translation>
     </message>
     <message>
-        <location line="+155"/>
+        <location line="+154"/>
         <source>Recomputing: the figures below belong to the campaign before your last edit.</source>
         <translation>Neuberechnung: Die Zahlen unten gehören zur Kampagne vor Ihrer letzten Änderung.</translation>
     </message>
     <message>
-        <location line="+4"/>
+        <location line="+3"/>
         <source>Planning…</source>
         <translation>Planung…</translation>
     </message>
@@ -1255,7 +1255,7 @@
         <translation>Margin-Prüfung: abgebrochen.</translation>
     </message>
     <message>
-        <location line="-133"/>
+        <location line="-132"/>
         <source>&amp;File</source>
         <translation>&amp;Datei</translation>
     </message>
@@ -1295,12 +1295,12 @@
         <translation>Ö&amp;ffnen…</translation>
     </message>
     <message>
-        <location line="-86"/>
+        <location line="-85"/>
         <source>Open &amp;Recent</source>
         <translation>&amp;Zuletzt geöffnet</translation>
     </message>
     <message>
-        <location line="+89"/>
+        <location line="+88"/>
         <source>&amp;Save</source>
         <translation>&amp;Speichern</translation>
     </message>
@@ -1436,7 +1436,7 @@
         <translation>Die Margin-Prüfung abbrechen</translation>
     </message>
     <message>
-        <location line="+54"/>
+        <location line="+55"/>
         <source>No data yet: import a CSV (Ctrl+I) or open the demo to plan.</source>
         <translation>Noch keine Daten: Importieren Sie eine CSV-Datei (Strg+I) oder öffnen Sie die Demo, um zu planen.</translation>
     </message>
@@ -1446,7 +1446,7 @@
         <translation>Keine Daten.</translation>
     </message>
     <message>
-        <location line="+17"/>
+        <location line="+15"/>
         <source>The plan needs more nights than allowed (%1). Allow more nights, loosen ε, or turn on “Scale pairs to fit”.</source>
         <translation>Der Plan braucht mehr Nächte als erlaubt (%1). Erlauben Sie mehr Nächte, lockern Sie ε oder schalten Sie „Paare an die erlaubten Nächte anpassen“ ein.</translation>
     </message>
@@ -2079,7 +2079,7 @@ Bündel: %2</translation>
 <context>
     <name>gramline::gui::NightsPage</name>
     <message>
-        <location filename="../app/gui/nights_page.cpp" line="+19"/>
+        <location filename="../app/gui/nights_page.cpp" line="+18"/>
         <source>When the lab is yours</source>
         <translation>Wann das Labor Ihnen gehört</translation>
     </message>
@@ -2128,7 +2128,7 @@ Bündel: %2</translation>
 <context>
     <name>gramline::gui::PrecisionPage</name>
     <message>
-        <location filename="../app/gui/precision_page.cpp" line="+19"/>
+        <location filename="../app/gui/precision_page.cpp" line="+18"/>
         <source>Precision of each kernel entry</source>
         <translation>Präzision jedes Kernel-Eintrags</translation>
     </message>
@@ -2378,7 +2378,7 @@ Bündel: %2</translation>
 <context>
     <name>gramline::gui::RecentFiles</name>
     <message>
-        <location filename="../app/gui/recent_files.cpp" line="+35"/>
+        <location filename="../app/gui/recent_files.cpp" line="+33"/>
         <source>&amp;%1 %2</source>
         <translation>&amp;%1 %2</translation>
     </message>
@@ -2391,7 +2391,7 @@ Bündel: %2</translation>
 <context>
     <name>gramline::gui::RigPage</name>
     <message>
-        <location filename="../app/gui/rig_page.cpp" line="+24"/>
+        <location filename="../app/gui/rig_page.cpp" line="+23"/>
         <source>Motorized waveplates</source>
         <translation>Motorisierte Wellenplatten</translation>
     </message>
@@ -2540,7 +2540,7 @@ Bündel: %2</translation>
 <context>
     <name>gramline::gui::SessionAutosave</name>
     <message>
-        <location filename="../app/gui/session_autosave.cpp" line="+81"/>
+        <location filename="../app/gui/session_autosave.cpp" line="+80"/>
         <source>Recover unsaved work?</source>
         <translation>Ungespeicherte Arbeit wiederherstellen?</translation>
     </message>
@@ -3016,7 +3016,7 @@ Bündel: %2</translation>
         <translation>Nacht %1 (%2)</translation>
     </message>
     <message>
-        <location line="+13"/>
+        <location line="+27"/>
         <source>Where each night&apos;s window goes (hours)</source>
         <translation>Wofür das Fenster jeder Nacht verwendet wird (Stunden)</translation>
     </message>
