@@ -874,7 +874,7 @@
     </message>
     <message>
         <location line="+9"/>
-        <location line="+138"/>
+        <location line="+136"/>
         <source>The bundle %1 was not written.
 
 %2</source>
@@ -883,22 +883,22 @@
 %2</translation>
     </message>
     <message>
-        <location line="-129"/>
+        <location line="-117"/>
         <source>Ingest Counts: Choose the Bundle the Rig Ran</source>
         <translation>Zähldaten einlesen: Bündel wählen, das der Aufbau ausgeführt hat</translation>
     </message>
     <message>
-        <location line="+5"/>
+        <location line="+1"/>
         <source>Ingest Counts: Choose the Counts File for %1</source>
         <translation>Zähldaten einlesen: Zähldatei für %1 wählen</translation>
     </message>
     <message>
-        <location line="+8"/>
+        <location line="+6"/>
         <source>Ingesting %1…</source>
         <translation>%1 wird eingelesen…</translation>
     </message>
     <message>
-        <location line="-126"/>
+        <location line="-130"/>
         <source>Cannot ingest the counts</source>
         <translation>Die Zähldaten können nicht eingelesen werden</translation>
     </message>
@@ -912,7 +912,7 @@
 %1</translation>
     </message>
     <message>
-        <location line="+137"/>
+        <location line="+141"/>
         <source>Ingested %1: %2 of %3 entries measured.</source>
         <translation>%1 eingelesen: %2 von %3 Einträgen gemessen.</translation>
     </message>
@@ -922,17 +922,17 @@
         <translation>Fortsetzen: Bündel wählen, das der Aufbau ausgeführt hat</translation>
     </message>
     <message>
-        <location line="+5"/>
+        <location line="+1"/>
         <source>Resume: Choose the Partial Counts File for %1</source>
         <translation>Fortsetzen: unvollständige Zähldatei für %1 wählen</translation>
     </message>
     <message>
-        <location line="+8"/>
+        <location line="+6"/>
         <source>Planning the rest after %1…</source>
         <translation>Der Rest nach %1 wird geplant…</translation>
     </message>
     <message>
-        <location line="-154"/>
+        <location line="-152"/>
         <source>Cannot resume</source>
         <translation>Fortsetzen nicht möglich</translation>
     </message>
@@ -946,7 +946,7 @@
 %1</translation>
     </message>
     <message>
-        <location line="+165"/>
+        <location line="+163"/>
         <source>Resume from Counts</source>
         <translation>Aus Zähldaten fortsetzen</translation>
     </message>

@@ -224,18 +224,22 @@ bool HandOff::export_bundle_to(const QString& path) {
   }
 }
 
-void HandOff::ingest() {
-  if (busy()) return;
-  const QString bundle =
-      QFileDialog::getOpenFileName(window_, tr("Ingest Counts: Choose the Bundle the Rig Ran"),
-                                   last_dir(), gui_tr(kBundleFilter));
-  if (bundle.isEmpty()) return;
+bool HandOff::choose_bundle_and_counts(const QString& bundle_title, const QString& counts_title,
+                                       QString& bundle, QString& counts) {
+  bundle = QFileDialog::getOpenFileName(window_, bundle_title, last_dir(), gui_tr(kBundleFilter));
+  if (bundle.isEmpty()) return false;
   remember_dir(bundle);
-  const QString counts = QFileDialog::getOpenFileName(
-      window_, tr("Ingest Counts: Choose the Counts File for %1").arg(QFileInfo(bundle).fileName()),
-      QFileInfo(bundle).absolutePath(), gui_tr(kCountsFilter));
-  if (counts.isEmpty()) return;
-  ingest_files(bundle, counts);
+  counts = QFileDialog::getOpenFileName(window_, counts_title.arg(QFileInfo(bundle).fileName()),
+                                        QFileInfo(bundle).absolutePath(), gui_tr(kCountsFilter));
+  return !counts.isEmpty();
+}
+
+void HandOff::ingest() {
+  QString bundle, counts;
+  if (!busy() &&
+      choose_bundle_and_counts(tr("Ingest Counts: Choose the Bundle the Rig Ran"),
+                               tr("Ingest Counts: Choose the Counts File for %1"), bundle, counts))
+    ingest_files(bundle, counts);
 }
 
 void HandOff::ingest_files(const QString& bundle_path, const QString& counts_path) {
@@ -260,17 +264,11 @@ void HandOff::show_ingested() {
 }
 
 void HandOff::resume() {
-  if (busy()) return;
-  const QString bundle = QFileDialog::getOpenFileName(
-      window_, tr("Resume: Choose the Bundle the Rig Ran"), last_dir(), gui_tr(kBundleFilter));
-  if (bundle.isEmpty()) return;
-  remember_dir(bundle);
-  const QString counts = QFileDialog::getOpenFileName(
-      window_,
-      tr("Resume: Choose the Partial Counts File for %1").arg(QFileInfo(bundle).fileName()),
-      QFileInfo(bundle).absolutePath(), gui_tr(kCountsFilter));
-  if (counts.isEmpty()) return;
-  resume_files(bundle, counts);
+  QString bundle, counts;
+  if (!busy() &&
+      choose_bundle_and_counts(tr("Resume: Choose the Bundle the Rig Ran"),
+                               tr("Resume: Choose the Partial Counts File for %1"), bundle, counts))
+    resume_files(bundle, counts);
 }
 
 void HandOff::resume_files(const QString& bundle_path, const QString& counts_path) {

@@ -89,6 +89,10 @@ class HandOff : public QObject {
   void clear_busy();
   void show_error(const QString& title, const QString& message);
   void show_resume_dialog();
+  /// Asks for a bundle, then for a counts file beside it (`counts_title` takes the bundle's
+  /// file name as %1); false when the user cancels either.
+  bool choose_bundle_and_counts(const QString& bundle_title, const QString& counts_title,
+                                QString& bundle, QString& counts);
   QString last_dir() const;
   void remember_dir(const QString& path) const;
 
