@@ -4,7 +4,7 @@
 <context>
     <name>gramline::gui</name>
     <message>
-        <location filename="../app/gui/cautions.cpp" line="+14"/>
+        <location filename="../app/gui/cautions.cpp" line="+17"/>
         <source>Before you run a plan</source>
         <translation>Bevor Sie einen Plan ausführen</translation>
     </message>
@@ -77,6 +77,16 @@
         <location line="+8"/>
         <source>Cautions</source>
         <translation>Sicherheitshinweise</translation>
+    </message>
+    <message>
+        <location line="+7"/>
+        <source>Before the first export</source>
+        <translation>Vor dem ersten Export</translation>
+    </message>
+    <message>
+        <location line="+6"/>
+        <source>I have read this</source>
+        <translation>Ich habe das gelesen</translation>
     </message>
     <message>
         <location filename="../app/gui/gui_text.cpp" line="+15"/>
@@ -224,7 +234,7 @@
         <translation>eigene Gewichte</translation>
     </message>
     <message>
-        <location filename="../app/gui/main_window.cpp" line="+56"/>
+        <location filename="../app/gui/campaign_files.cpp" line="+27"/>
         <source>Gramline campaign (*.json);;All files (*)</source>
         <translation>Gramline-Kampagne (*.json);;Alle Dateien (*)</translation>
     </message>
@@ -249,7 +259,7 @@
         <translation>%1: unerwarteter Fehler beim Einlesen</translation>
     </message>
     <message>
-        <location line="+19"/>
+        <location line="+20"/>
         <source>%1: unexpected error while planning the rest</source>
         <translation>%1: unerwarteter Fehler beim Planen des Rests</translation>
     </message>
@@ -260,6 +270,99 @@
         <location filename="../app/gui/campaign_document.cpp" line="+83"/>
         <source>Untitled</source>
         <translation>Unbenannt</translation>
+    </message>
+</context>
+<context>
+    <name>gramline::gui::CampaignFiles</name>
+    <message>
+        <location filename="../app/gui/campaign_files.cpp" line="+26"/>
+        <source>Unsaved changes</source>
+        <translation>Ungespeicherte Änderungen</translation>
+    </message>
+    <message>
+        <location line="+1"/>
+        <source>“%1” has changes that are not saved. Save them first?</source>
+        <translation>„%1“ hat ungespeicherte Änderungen. Zuerst speichern?</translation>
+    </message>
+    <message>
+        <location line="+9"/>
+        <source>untitled</source>
+        <translation>unbenannt</translation>
+    </message>
+    <message>
+        <location line="+15"/>
+        <source>Cannot open campaign</source>
+        <translation>Kampagne kann nicht geöffnet werden</translation>
+    </message>
+    <message>
+        <location line="+8"/>
+        <source>Open Campaign</source>
+        <translation>Kampagne öffnen</translation>
+    </message>
+    <message>
+        <location line="+12"/>
+        <source>Saved %1</source>
+        <translation>%1 gespeichert</translation>
+    </message>
+    <message>
+        <location line="+3"/>
+        <source>Cannot save campaign</source>
+        <translation>Kampagne kann nicht gespeichert werden</translation>
+    </message>
+    <message>
+        <location line="+17"/>
+        <source>Save Campaign</source>
+        <translation>Kampagne speichern</translation>
+    </message>
+    <message>
+        <location line="+8"/>
+        <source>Import Data</source>
+        <translation>Daten importieren</translation>
+    </message>
+    <message>
+        <location line="+1"/>
+        <source>CSV files (*.csv);;All files (*)</source>
+        <translation>CSV-Dateien (*.csv);;Alle Dateien (*)</translation>
+    </message>
+    <message>
+        <location line="+6"/>
+        <source>Import data</source>
+        <translation>Daten importieren</translation>
+    </message>
+    <message>
+        <location line="+11"/>
+        <source>The encoding was rebuilt for %1 features (one feature per photon).</source>
+        <translation>Die Kodierung wurde für %1 Merkmale neu aufgebaut (ein Merkmal pro Photon).</translation>
+    </message>
+    <message>
+        <location line="+4"/>
+        <source>Cannot import data</source>
+        <translation>Daten können nicht importiert werden</translation>
+    </message>
+    <message>
+        <location line="+7"/>
+        <source>No current plan</source>
+        <translation>Kein aktueller Plan</translation>
+    </message>
+    <message>
+        <location line="+1"/>
+        <source>Wait until the plan is up to date, then export it.</source>
+        <translation>Warten Sie, bis der Plan aktuell ist, und exportieren Sie ihn dann.</translation>
+    </message>
+    <message>
+        <location line="+5"/>
+        <source>Export Plan Files To</source>
+        <translation>Plandateien exportieren nach</translation>
+    </message>
+    <message>
+        <location line="+5"/>
+        <source>Wrote steps.json, steps.csv, summary.json and kernel.csv to %1</source>
+        <translation>steps.json, steps.csv, summary.json und kernel.csv nach %1 geschrieben</translation>
+    </message>
+    <message>
+        <location line="+4"/>
+        <source>Cannot export</source>
+        <translation>Export nicht möglich</translation>
     </message>
 </context>
 <context>
@@ -296,80 +399,9 @@
     </message>
 </context>
 <context>
-    <name>gramline::gui::DecisionMap</name>
+    <name>gramline::gui::DataPage</name>
     <message>
-        <location filename="../app/gui/margin_view.cpp" line="+9"/>
-        <source>Data and decision boundary</source>
-        <translation>Daten und Entscheidungsgrenze</translation>
-    </message>
-    <message>
-        <location line="+106"/>
-        <source>feature %1</source>
-        <translation>Merkmal %1</translation>
-    </message>
-    <message>
-        <location line="+57"/>
-        <source>&lt;b&gt;Test point %1&lt;/b&gt; (point %2), class %3</source>
-        <translation>&lt;b&gt;Testpunkt %1&lt;/b&gt; (Punkt %2), Klasse %3</translation>
-    </message>
-    <message>
-        <location line="+6"/>
-        <source>&lt;br&gt;noiseless f = %1&lt;br&gt;flip probability %2 (%3 – %4)</source>
-        <translation>&lt;br&gt;rauschfrei f = %1&lt;br&gt;Kippwahrscheinlichkeit %2 (%3 – %4)</translation>
-    </message>
-</context>
-<context>
-    <name>gramline::gui::EditorPanel</name>
-    <message>
-        <location filename="../app/gui/editor_panel.cpp" line="+53"/>
-        <source>Campaign editor pages</source>
-        <translation>Seiten des Kampagnen-Editors</translation>
-    </message>
-    <message>
-        <location line="+1"/>
-        <source>&amp;Data</source>
-        <translation>&amp;Daten</translation>
-    </message>
-    <message>
-        <location line="+1"/>
-        <source>&amp;Encoding</source>
-        <translation>&amp;Kodierung</translation>
-    </message>
-    <message>
-        <location line="+1"/>
-        <source>&amp;Rig</source>
-        <translation>&amp;Aufbau</translation>
-    </message>
-    <message>
-        <location line="+1"/>
-        <source>&amp;Precision</source>
-        <translation>&amp;Präzision</translation>
-    </message>
-    <message>
-        <location line="+1"/>
-        <source>&amp;Nights</source>
-        <translation>&amp;Nächte</translation>
-    </message>
-    <message>
-        <location line="+24"/>
-        <location line="+22"/>
-        <location line="+40"/>
-        <location line="+475"/>
-        <source>Change %1</source>
-        <translation>%1 ändern</translation>
-    </message>
-    <message>
-        <location line="-497"/>
-        <source>Turn on %1</source>
-        <translation>%1 einschalten</translation>
-    </message>
-    <message>
-        <location line="+0"/>
-        <source>Turn off %1</source>
-        <translation>%1 ausschalten</translation>
-    </message>
-    <message>
-        <location line="+37"/>
+        <location filename="../app/gui/data_page.cpp" line="+21"/>
         <location line="+1"/>
         <source>Campaign name</source>
         <translation>Kampagnenname</translation>
@@ -419,8 +451,86 @@
         <source>%1 training points (%2 “%3”, %4 “%5”), %6 test points, %7 features.</source>
         <translation>%1 Trainingspunkte (%2 „%3“, %4 „%5“), %6 Testpunkte, %7 Merkmale.</translation>
     </message>
+</context>
+<context>
+    <name>gramline::gui::DecisionMap</name>
     <message>
-        <location line="+16"/>
+        <location filename="../app/gui/margin_view.cpp" line="+9"/>
+        <source>Data and decision boundary</source>
+        <translation>Daten und Entscheidungsgrenze</translation>
+    </message>
+    <message>
+        <location line="+106"/>
+        <source>feature %1</source>
+        <translation>Merkmal %1</translation>
+    </message>
+    <message>
+        <location line="+57"/>
+        <source>&lt;b&gt;Test point %1&lt;/b&gt; (point %2), class %3</source>
+        <translation>&lt;b&gt;Testpunkt %1&lt;/b&gt; (Punkt %2), Klasse %3</translation>
+    </message>
+    <message>
+        <location line="+6"/>
+        <source>&lt;br&gt;noiseless f = %1&lt;br&gt;flip probability %2 (%3 – %4)</source>
+        <translation>&lt;br&gt;rauschfrei f = %1&lt;br&gt;Kippwahrscheinlichkeit %2 (%3 – %4)</translation>
+    </message>
+</context>
+<context>
+    <name>gramline::gui::EditorPage</name>
+    <message>
+        <location filename="../app/gui/editor_page.cpp" line="+39"/>
+        <location line="+61"/>
+        <source>Change %1</source>
+        <translation>%1 ändern</translation>
+    </message>
+    <message>
+        <location line="-22"/>
+        <source>Turn on %1</source>
+        <translation>%1 einschalten</translation>
+    </message>
+    <message>
+        <location line="+0"/>
+        <source>Turn off %1</source>
+        <translation>%1 ausschalten</translation>
+    </message>
+</context>
+<context>
+    <name>gramline::gui::EditorPanel</name>
+    <message>
+        <location filename="../app/gui/editor_panel.cpp" line="+36"/>
+        <source>Campaign editor pages</source>
+        <translation>Seiten des Kampagnen-Editors</translation>
+    </message>
+    <message>
+        <location line="+1"/>
+        <source>&amp;Data</source>
+        <translation>&amp;Daten</translation>
+    </message>
+    <message>
+        <location line="+1"/>
+        <source>&amp;Encoding</source>
+        <translation>&amp;Kodierung</translation>
+    </message>
+    <message>
+        <location line="+1"/>
+        <source>&amp;Rig</source>
+        <translation>&amp;Aufbau</translation>
+    </message>
+    <message>
+        <location line="+1"/>
+        <source>&amp;Precision</source>
+        <translation>&amp;Präzision</translation>
+    </message>
+    <message>
+        <location line="+1"/>
+        <source>&amp;Nights</source>
+        <translation>&amp;Nächte</translation>
+    </message>
+</context>
+<context>
+    <name>gramline::gui::EncodingPage</name>
+    <message>
+        <location filename="../app/gui/encoding_page.cpp" line="+24"/>
         <source>Each photon&apos;s polarization state is set by the features: the polar angle θ and the azimuth φ on the Bloch sphere are affine in the features.</source>
         <translation>Der Polarisationszustand jedes Photons wird von den Merkmalen eingestellt: Polarwinkel θ und Azimut φ auf der Bloch-Kugel hängen affin von den Merkmalen ab.</translation>
     </message>
@@ -515,7 +625,7 @@
         <translation>Kodierungsgewichte</translation>
     </message>
     <message>
-        <location line="+18"/>
+        <location line="+17"/>
         <source>Photon</source>
         <translation>Photon</translation>
     </message>
@@ -583,380 +693,6 @@
         <location line="+10"/>
         <source>The scale advice appears when the margin check of the current plan is done.</source>
         <translation>Der Skalierungsvorschlag erscheint, sobald die Margin-Prüfung des aktuellen Plans fertig ist.</translation>
-    </message>
-    <message>
-        <location line="+9"/>
-        <source>Motorized waveplates</source>
-        <translation>Motorisierte Wellenplatten</translation>
-    </message>
-    <message>
-        <location line="+5"/>
-        <source>Edit motor %1</source>
-        <translation>Motor %1 bearbeiten</translation>
-    </message>
-    <message>
-        <location line="+8"/>
-        <source>Motors</source>
-        <translation>Motoren</translation>
-    </message>
-    <message>
-        <location line="+7"/>
-        <source>Double-click a cell to edit it.</source>
-        <translation>Doppelklicken Sie auf eine Zelle, um sie zu bearbeiten.</translation>
-    </message>
-    <message>
-        <location line="+9"/>
-        <source>Controller</source>
-        <translation>Steuerung</translation>
-    </message>
-    <message>
-        <location line="+3"/>
-        <source>Moves</source>
-        <translation>Bewegungen</translation>
-    </message>
-    <message>
-        <location line="+0"/>
-        <source>Whether the controller drives all motors at once</source>
-        <translation>Ob die Steuerung alle Motoren gleichzeitig fährt</translation>
-    </message>
-    <message>
-        <location line="+5"/>
-        <source>Settle time</source>
-        <translation>Einschwingzeit</translation>
-    </message>
-    <message>
-        <location line="+0"/>
-        <source>Wait after any motor moved, once per step</source>
-        <translation>Wartezeit nach jeder Motorbewegung, einmal pro Schritt</translation>
-    </message>
-    <message>
-        <location line="+1"/>
-        <location line="+4"/>
-        <location line="+122"/>
-        <location line="+20"/>
-        <source> s</source>
-        <translation> s</translation>
-    </message>
-    <message>
-        <location line="-143"/>
-        <source>Overhead per step</source>
-        <translation>Zusatzzeit pro Schritt</translation>
-    </message>
-    <message>
-        <location line="+0"/>
-        <source>Command and readout time of every step</source>
-        <translation>Befehls- und Auslesezeit jedes Schritts</translation>
-    </message>
-    <message>
-        <location line="+5"/>
-        <source>Source and detectors</source>
-        <translation>Quelle und Detektoren</translation>
-    </message>
-    <message>
-        <location line="+3"/>
-        <source>Pair rate</source>
-        <translation>Paarrate</translation>
-    </message>
-    <message>
-        <location line="+0"/>
-        <source>Photon pairs emitted per second</source>
-        <translation>Pro Sekunde emittierte Photonenpaare</translation>
-    </message>
-    <message>
-        <location line="+1"/>
-        <source> /s</source>
-        <translation> /s</translation>
-    </message>
-    <message>
-        <location line="+3"/>
-        <source>Visibility</source>
-        <translation>Sichtbarkeit</translation>
-    </message>
-    <message>
-        <location line="+0"/>
-        <source>V in p = V·κ + (1 − V)/2^P</source>
-        <translation>V in p = V·κ + (1 − V)/2^P</translation>
-    </message>
-    <message>
-        <location line="+4"/>
-        <source>Coincidence window</source>
-        <translation>Koinzidenzfenster</translation>
-    </message>
-    <message>
-        <location line="+0"/>
-        <source>Full coincidence window τ</source>
-        <translation>Volles Koinzidenzfenster τ</translation>
-    </message>
-    <message>
-        <location line="+1"/>
-        <source> ns</source>
-        <translation> ns</translation>
-    </message>
-    <message>
-        <location line="+3"/>
-        <source>Detection</source>
-        <translation>Detektion</translation>
-    </message>
-    <message>
-        <location line="+0"/>
-        <source>Which PBS outputs carry detectors</source>
-        <translation>Welche PBS-Ausgänge Detektoren tragen</translation>
-    </message>
-    <message>
-        <location line="+6"/>
-        <source>Efficiency (0–1)</source>
-        <translation>Effizienz (0–1)</translation>
-    </message>
-    <message>
-        <location line="+0"/>
-        <source>Dark counts (/s)</source>
-        <translation>Dunkelzählrate (/s)</translation>
-    </message>
-    <message>
-        <location line="+1"/>
-        <source>Detectors, one per photon</source>
-        <translation>Detektoren, einer pro Photon</translation>
-    </message>
-    <message>
-        <location line="+3"/>
-        <source>Detectors</source>
-        <translation>Detektoren</translation>
-    </message>
-    <message>
-        <location line="+10"/>
-        <source>Edit detector %1</source>
-        <translation>Detektor %1 bearbeiten</translation>
-    </message>
-    <message>
-        <location line="+17"/>
-        <source>Photon %1</source>
-        <translation>Photon %1</translation>
-    </message>
-    <message>
-        <location line="+11"/>
-        <source>Precision of each kernel entry</source>
-        <translation>Präzision jedes Kernel-Eintrags</translation>
-    </message>
-    <message>
-        <location line="+3"/>
-        <source>Half-width ε</source>
-        <translation>Halbbreite ε</translation>
-    </message>
-    <message>
-        <location line="+1"/>
-        <source>Each kernel entry is known to within ± ε at the confidence below</source>
-        <translation>Jeder Kernel-Eintrag ist bei der unten angegebenen Konfidenz auf ± ε genau bekannt</translation>
-    </message>
-    <message>
-        <location line="+4"/>
-        <source>Confidence</source>
-        <translation>Konfidenz</translation>
-    </message>
-    <message>
-        <location line="+0"/>
-        <source>1 − δ</source>
-        <translation>1 − δ</translation>
-    </message>
-    <message>
-        <location line="+0"/>
-        <source> %</source>
-        <translation> %</translation>
-    </message>
-    <message>
-        <location line="+4"/>
-        <source>Interval</source>
-        <translation>Intervall</translation>
-    </message>
-    <message>
-        <location line="+0"/>
-        <source>How pairs per entry follow from ε and δ</source>
-        <translation>Wie sich die Paare pro Eintrag aus ε und δ ergeben</translation>
-    </message>
-    <message>
-        <location line="+6"/>
-        <source>Assume the worst case p = 1/2</source>
-        <translation>Ungünstigsten Fall p = 1/2 annehmen</translation>
-    </message>
-    <message>
-        <location line="+1"/>
-        <source>Ignore the predicted pass probability</source>
-        <translation>Vorhergesagte Durchlasswahrscheinlichkeit nicht berücksichtigen</translation>
-    </message>
-    <message>
-        <location line="+4"/>
-        <source>Fixed pairs per entry</source>
-        <translation>Feste Paarzahl pro Eintrag</translation>
-    </message>
-    <message>
-        <location line="+1"/>
-        <source>When set, every entry gets this many pairs instead of the target above</source>
-        <translation>Wenn gesetzt, erhält jeder Eintrag so viele Paare statt des Ziels oben</translation>
-    </message>
-    <message>
-        <location line="+3"/>
-        <source>off: use the target</source>
-        <translation>aus: Ziel verwenden</translation>
-    </message>
-    <message>
-        <location line="+2"/>
-        <source>Share pairs</source>
-        <translation>Paare verteilen</translation>
-    </message>
-    <message>
-        <location line="+0"/>
-        <source>How pairs are shared among entries</source>
-        <translation>Wie die Paare auf die Einträge verteilt werden</translation>
-    </message>
-    <message>
-        <location line="+7"/>
-        <source>Schedule</source>
-        <translation>Zeitplan</translation>
-    </message>
-    <message>
-        <location line="+3"/>
-        <source>Reference every</source>
-        <translation>Referenz alle</translation>
-    </message>
-    <message>
-        <location line="+1"/>
-        <source>A reference step at least this often; 0 for none</source>
-        <translation>Ein Referenzschritt mindestens so oft; 0 für keinen</translation>
-    </message>
-    <message>
-        <location line="+0"/>
-        <source> min</source>
-        <translation> min</translation>
-    </message>
-    <message>
-        <location line="+3"/>
-        <source>never</source>
-        <translation>nie</translation>
-    </message>
-    <message>
-        <location line="+2"/>
-        <source>Pairs per reference</source>
-        <translation>Paare pro Referenz</translation>
-    </message>
-    <message>
-        <location line="+0"/>
-        <source>0: as many as a measure step</source>
-        <translation>0: so viele wie ein Messschritt</translation>
-    </message>
-    <message>
-        <location line="+3"/>
-        <source>as a measure step</source>
-        <translation>wie ein Messschritt</translation>
-    </message>
-    <message>
-        <location line="+2"/>
-        <source>Dark steps at night start and end</source>
-        <translation>Dunkelschritte zu Beginn und Ende der Nacht</translation>
-    </message>
-    <message>
-        <location line="+1"/>
-        <source>Shutter closed, to measure the background</source>
-        <translation>Verschluss zu, um den Untergrund zu messen</translation>
-    </message>
-    <message>
-        <location line="+4"/>
-        <source>Dark step length</source>
-        <translation>Dauer eines Dunkelschritts</translation>
-    </message>
-    <message>
-        <location line="+4"/>
-        <source>Park the motors at the end of each night</source>
-        <translation>Motoren am Ende jeder Nacht parken</translation>
-    </message>
-    <message>
-        <location line="+1"/>
-        <source>Return every motor to its initial position</source>
-        <translation>Jeden Motor in seine Anfangsposition zurückfahren</translation>
-    </message>
-    <message>
-        <location line="+4"/>
-        <source>Scale pairs to fit the allowed nights</source>
-        <translation>Paare an die erlaubten Nächte anpassen</translation>
-    </message>
-    <message>
-        <location line="+1"/>
-        <source>Lower the pairs per entry so the campaign ends within the night limit</source>
-        <translation>Die Paare pro Eintrag senken, damit die Kampagne innerhalb der erlaubten Nächte endet</translation>
-    </message>
-    <message>
-        <location line="+4"/>
-        <source>Finish small sub-matrices early</source>
-        <translation>Kleine Teilmatrizen früh abschließen</translation>
-    </message>
-    <message>
-        <location line="+1"/>
-        <source>Order steps so the Gram matrix of the first points is complete early, in case the run is cut short</source>
-        <translation>Schritte so ordnen, dass die Gram-Matrix der ersten Punkte früh vollständig ist, falls der Lauf abbricht</translation>
-    </message>
-    <message>
-        <location line="+5"/>
-        <source>Optimizer time limit</source>
-        <translation>Zeitlimit des Optimierers</translation>
-    </message>
-    <message>
-        <location line="+0"/>
-        <source>0: no limit</source>
-        <translation>0: kein Limit</translation>
-    </message>
-    <message>
-        <location line="+3"/>
-        <source>no limit</source>
-        <translation>kein Limit</translation>
-    </message>
-    <message>
-        <location line="+2"/>
-        <source>Random seed</source>
-        <translation>Zufallsstartwert</translation>
-    </message>
-    <message>
-        <location line="+0"/>
-        <source>Same seed, same plan</source>
-        <translation>Gleicher Startwert, gleicher Plan</translation>
-    </message>
-    <message>
-        <location line="+11"/>
-        <source>When the lab is yours</source>
-        <translation>Wann das Labor Ihnen gehört</translation>
-    </message>
-    <message>
-        <location line="+6"/>
-        <location line="+1"/>
-        <source>First night</source>
-        <translation>Erste Nacht</translation>
-    </message>
-    <message>
-        <location line="+4"/>
-        <source>Change first night</source>
-        <translation>Erste Nacht ändern</translation>
-    </message>
-    <message>
-        <location line="+20"/>
-        <source>Window opens</source>
-        <translation>Fenster öffnet</translation>
-    </message>
-    <message>
-        <location line="+1"/>
-        <source>Window closes</source>
-        <translation>Fenster schließt</translation>
-    </message>
-    <message>
-        <location line="+2"/>
-        <source>Nights allowed</source>
-        <translation>Erlaubte Nächte</translation>
-    </message>
-    <message>
-        <location line="+0"/>
-        <source>Most nights the campaign may take</source>
-        <translation>Höchstzahl der Nächte, die die Kampagne dauern darf</translation>
-    </message>
-    <message>
-        <location line="+12"/>
-        <source>Each night&apos;s window lasts %1; a window whose close is not after its opening ends the next morning.</source>
-        <translation>Das Fenster jeder Nacht dauert %1; ein Fenster, dessen Ende nicht nach seinem Beginn liegt, endet am nächsten Morgen.</translation>
     </message>
 </context>
 <context>
@@ -1071,12 +807,12 @@
         <translation>Übergabestatus</translation>
     </message>
     <message>
-        <location line="+6"/>
+        <location line="+1"/>
         <source>Working on the counts</source>
         <translation>Zähldaten werden verarbeitet</translation>
     </message>
     <message>
-        <location line="+14"/>
+        <location line="+33"/>
         <source>Export &amp;Bundle…</source>
         <translation>&amp;Bündel exportieren…</translation>
     </message>
@@ -1106,7 +842,7 @@
         <translation>Die Schritte, die eine unvollständige Nacht nicht gezählt hat, als neues Bündel planen</translation>
     </message>
     <message>
-        <location line="+38"/>
+        <location line="+35"/>
         <source>No current plan</source>
         <translation>Kein aktueller Plan</translation>
     </message>
@@ -1138,7 +874,7 @@
     </message>
     <message>
         <location line="+9"/>
-        <location line="+162"/>
+        <location line="+136"/>
         <source>The bundle %1 was not written.
 
 %2</source>
@@ -1147,22 +883,22 @@
 %2</translation>
     </message>
     <message>
-        <location line="-153"/>
+        <location line="-117"/>
         <source>Ingest Counts: Choose the Bundle the Rig Ran</source>
         <translation>Zähldaten einlesen: Bündel wählen, das der Aufbau ausgeführt hat</translation>
     </message>
     <message>
-        <location line="+5"/>
+        <location line="+1"/>
         <source>Ingest Counts: Choose the Counts File for %1</source>
         <translation>Zähldaten einlesen: Zähldatei für %1 wählen</translation>
     </message>
     <message>
-        <location line="+8"/>
+        <location line="+6"/>
         <source>Ingesting %1…</source>
         <translation>%1 wird eingelesen…</translation>
     </message>
     <message>
-        <location line="+8"/>
+        <location line="-130"/>
         <source>Cannot ingest the counts</source>
         <translation>Die Zähldaten können nicht eingelesen werden</translation>
     </message>
@@ -1176,27 +912,27 @@
 %1</translation>
     </message>
     <message>
-        <location line="+8"/>
+        <location line="+141"/>
         <source>Ingested %1: %2 of %3 entries measured.</source>
         <translation>%1 eingelesen: %2 von %3 Einträgen gemessen.</translation>
     </message>
     <message>
-        <location line="+14"/>
+        <location line="+10"/>
         <source>Resume: Choose the Bundle the Rig Ran</source>
         <translation>Fortsetzen: Bündel wählen, das der Aufbau ausgeführt hat</translation>
     </message>
     <message>
-        <location line="+5"/>
+        <location line="+1"/>
         <source>Resume: Choose the Partial Counts File for %1</source>
         <translation>Fortsetzen: unvollständige Zähldatei für %1 wählen</translation>
     </message>
     <message>
-        <location line="+8"/>
+        <location line="+6"/>
         <source>Planning the rest after %1…</source>
         <translation>Der Rest nach %1 wird geplant…</translation>
     </message>
     <message>
-        <location line="+8"/>
+        <location line="-152"/>
         <source>Cannot resume</source>
         <translation>Fortsetzen nicht möglich</translation>
     </message>
@@ -1210,7 +946,7 @@
 %1</translation>
     </message>
     <message>
-        <location line="+18"/>
+        <location line="+163"/>
         <source>Resume from Counts</source>
         <translation>Aus Zähldaten fortsetzen</translation>
     </message>
@@ -1369,9 +1105,17 @@
     </message>
 </context>
 <context>
+    <name>gramline::gui::JobRunnerBase</name>
+    <message>
+        <location filename="../app/gui/job_runner.cpp" line="+56"/>
+        <source>The background job stopped with an unexpected error.</source>
+        <translation>Die Hintergrundarbeit endete mit einem unerwarteten Fehler.</translation>
+    </message>
+</context>
+<context>
     <name>gramline::gui::MainWindow</name>
     <message>
-        <location filename="../app/gui/main_window.cpp" line="+18"/>
+        <location filename="../app/gui/main_window.cpp" line="+105"/>
         <source>Views of the plan</source>
         <translation>Ansichten des Plans</translation>
     </message>
@@ -1446,27 +1190,27 @@
         <translation>Lasersicherheit und unbeaufsichtigter Betrieb</translation>
     </message>
     <message>
-        <location line="+4"/>
+        <location line="-67"/>
         <source>Campaign</source>
         <translation>Kampagne</translation>
     </message>
     <message>
-        <location line="+12"/>
+        <location line="+19"/>
         <source>Show &amp;Campaign Editor</source>
         <translation>&amp;Kampagnen-Editor anzeigen</translation>
     </message>
     <message>
-        <location line="+13"/>
+        <location line="+154"/>
         <source>Recomputing: the figures below belong to the campaign before your last edit.</source>
         <translation>Neuberechnung: Die Zahlen unten gehören zur Kampagne vor Ihrer letzten Änderung.</translation>
     </message>
     <message>
-        <location line="+4"/>
+        <location line="+3"/>
         <source>Planning…</source>
         <translation>Planung…</translation>
     </message>
     <message>
-        <location line="+12"/>
+        <location line="+4"/>
         <source>Planning cancelled. Edit anything, or press F5, to plan again.</source>
         <translation>Planung abgebrochen. Ändern Sie etwas oder drücken Sie F5, um neu zu planen.</translation>
     </message>
@@ -1476,12 +1220,12 @@
         <translation>Die Planung wurde abgebrochen: Die Zahlen unten gehören zu einer älteren Kampagne. Drücken Sie F5, um neu zu planen.</translation>
     </message>
     <message>
-        <location line="+5"/>
+        <location line="+7"/>
         <source>Margin check…</source>
         <translation>Margin-Prüfung…</translation>
     </message>
     <message>
-        <location line="+6"/>
+        <location line="+2"/>
         <source>&lt;b&gt;Margin check running…&lt;/b&gt; Simulating the measurement many times with the planned pairs; progress is shown at the bottom right.</source>
         <translation>&lt;b&gt;Margin-Prüfung läuft…&lt;/b&gt; Die Messung wird mit den geplanten Paaren viele Male simuliert; der Fortschritt steht unten rechts.</translation>
     </message>
@@ -1491,7 +1235,7 @@
         <translation>Margin-Prüfung: läuft…</translation>
     </message>
     <message>
-        <location line="+12"/>
+        <location line="+5"/>
         <source>&lt;b&gt;Margin check failed:&lt;/b&gt; %1</source>
         <translation>&lt;b&gt;Margin-Prüfung fehlgeschlagen:&lt;/b&gt; %1</translation>
     </message>
@@ -1511,7 +1255,7 @@
         <translation>Margin-Prüfung: abgebrochen.</translation>
     </message>
     <message>
-        <location line="+35"/>
+        <location line="-132"/>
         <source>&amp;File</source>
         <translation>&amp;Datei</translation>
     </message>
@@ -1541,22 +1285,22 @@
         <translation>&amp;Neu</translation>
     </message>
     <message>
-        <location line="+3"/>
+        <location line="+5"/>
         <source>Open &amp;Demo</source>
         <translation>&amp;Demo öffnen</translation>
     </message>
     <message>
-        <location line="+3"/>
+        <location line="+4"/>
         <source>&amp;Open…</source>
         <translation>Ö&amp;ffnen…</translation>
     </message>
     <message>
-        <location line="+1"/>
+        <location line="-85"/>
         <source>Open &amp;Recent</source>
         <translation>&amp;Zuletzt geöffnet</translation>
     </message>
     <message>
-        <location line="+3"/>
+        <location line="+88"/>
         <source>&amp;Save</source>
         <translation>&amp;Speichern</translation>
     </message>
@@ -1647,7 +1391,7 @@
         <translation>&amp;Benutzerhandbuch</translation>
     </message>
     <message>
-        <location line="+3"/>
+        <location line="+4"/>
         <source>&amp;About Gramline</source>
         <translation>&amp;Über Gramline</translation>
     </message>
@@ -1662,12 +1406,12 @@
         <translation>Planungsstatus</translation>
     </message>
     <message>
-        <location line="+5"/>
+        <location line="+1"/>
         <source>Planning progress</source>
         <translation>Planungsfortschritt</translation>
     </message>
     <message>
-        <location line="+2"/>
+        <location line="+1"/>
         <source>Cancel</source>
         <translation>Abbrechen</translation>
     </message>
@@ -1677,12 +1421,12 @@
         <translation>Planung abbrechen</translation>
     </message>
     <message>
-        <location line="+8"/>
+        <location line="+6"/>
         <source>Margin check progress</source>
         <translation>Fortschritt der Margin-Prüfung</translation>
     </message>
     <message>
-        <location line="+2"/>
+        <location line="+1"/>
         <source>Stop Check</source>
         <translation>Prüfung stoppen</translation>
     </message>
@@ -1692,7 +1436,7 @@
         <translation>Die Margin-Prüfung abbrechen</translation>
     </message>
     <message>
-        <location line="+16"/>
+        <location line="+55"/>
         <source>No data yet: import a CSV (Ctrl+I) or open the demo to plan.</source>
         <translation>Noch keine Daten: Importieren Sie eine CSV-Datei (Strg+I) oder öffnen Sie die Demo, um zu planen.</translation>
     </message>
@@ -1702,7 +1446,7 @@
         <translation>Keine Daten.</translation>
     </message>
     <message>
-        <location line="+18"/>
+        <location line="+15"/>
         <source>The plan needs more nights than allowed (%1). Allow more nights, loosen ε, or turn on “Scale pairs to fit”.</source>
         <translation>Der Plan braucht mehr Nächte als erlaubt (%1). Erlauben Sie mehr Nächte, lockern Sie ε oder schalten Sie „Paare an die erlaubten Nächte anpassen“ ein.</translation>
     </message>
@@ -1712,7 +1456,7 @@
         <translation>%1 Schritte in %2 ms geplant.</translation>
     </message>
     <message>
-        <location line="+12"/>
+        <location line="+10"/>
         <source>Margin check: pass</source>
         <translation>Margin-Prüfung: bestanden</translation>
     </message>
@@ -1732,7 +1476,7 @@
         <translation>; das Mindestbudget braucht %1 Zählzeit</translation>
     </message>
     <message>
-        <location line="+9"/>
+        <location line="+7"/>
         <source>Cannot plan this campaign.</source>
         <translation>Diese Kampagne kann nicht geplant werden.</translation>
     </message>
@@ -1746,136 +1490,6 @@
         <location line="+13"/>
         <source>%1[*] — Gramline</source>
         <translation>%1[*] — Gramline</translation>
-    </message>
-    <message>
-        <location line="+7"/>
-        <source>Unsaved changes</source>
-        <translation>Ungespeicherte Änderungen</translation>
-    </message>
-    <message>
-        <location line="+1"/>
-        <source>“%1” has changes that are not saved. Save them first?</source>
-        <translation>„%1“ hat ungespeicherte Änderungen. Zuerst speichern?</translation>
-    </message>
-    <message>
-        <location line="+9"/>
-        <source>untitled</source>
-        <translation>unbenannt</translation>
-    </message>
-    <message>
-        <location line="+16"/>
-        <source>Cannot open campaign</source>
-        <translation>Kampagne kann nicht geöffnet werden</translation>
-    </message>
-    <message>
-        <location line="+8"/>
-        <source>Open Campaign</source>
-        <translation>Kampagne öffnen</translation>
-    </message>
-    <message>
-        <location line="+13"/>
-        <source>Saved %1</source>
-        <translation>%1 gespeichert</translation>
-    </message>
-    <message>
-        <location line="+3"/>
-        <source>Cannot save campaign</source>
-        <translation>Kampagne kann nicht gespeichert werden</translation>
-    </message>
-    <message>
-        <location line="+16"/>
-        <source>Save Campaign</source>
-        <translation>Kampagne speichern</translation>
-    </message>
-    <message>
-        <location line="+9"/>
-        <source>Import Data</source>
-        <translation>Daten importieren</translation>
-    </message>
-    <message>
-        <location line="+1"/>
-        <source>CSV files (*.csv);;All files (*)</source>
-        <translation>CSV-Dateien (*.csv);;Alle Dateien (*)</translation>
-    </message>
-    <message>
-        <location line="+6"/>
-        <source>Import data</source>
-        <translation>Daten importieren</translation>
-    </message>
-    <message>
-        <location line="+14"/>
-        <source>The encoding was rebuilt for %1 features (one feature per photon).</source>
-        <translation>Die Kodierung wurde für %1 Merkmale neu aufgebaut (ein Merkmal pro Photon).</translation>
-    </message>
-    <message>
-        <location line="+4"/>
-        <source>Cannot import data</source>
-        <translation>Daten können nicht importiert werden</translation>
-    </message>
-    <message>
-        <location line="+7"/>
-        <source>Before the first export</source>
-        <translation>Vor dem ersten Export</translation>
-    </message>
-    <message>
-        <location line="+6"/>
-        <source>I have read this</source>
-        <translation>Ich habe das gelesen</translation>
-    </message>
-    <message>
-        <location line="+14"/>
-        <source>No current plan</source>
-        <translation>Kein aktueller Plan</translation>
-    </message>
-    <message>
-        <location line="+1"/>
-        <source>Wait until the plan is up to date, then export it.</source>
-        <translation>Warten Sie, bis der Plan aktuell ist, und exportieren Sie ihn dann.</translation>
-    </message>
-    <message>
-        <location line="+5"/>
-        <source>Export Plan Files To</source>
-        <translation>Plandateien exportieren nach</translation>
-    </message>
-    <message>
-        <location line="+5"/>
-        <source>Wrote steps.json, steps.csv, summary.json and kernel.csv to %1</source>
-        <translation>steps.json, steps.csv, summary.json und kernel.csv nach %1 geschrieben</translation>
-    </message>
-    <message>
-        <location line="+4"/>
-        <source>Cannot export</source>
-        <translation>Export nicht möglich</translation>
-    </message>
-    <message>
-        <location line="+21"/>
-        <source>&amp;%1 %2</source>
-        <translation>&amp;%1 %2</translation>
-    </message>
-    <message>
-        <location line="+8"/>
-        <source>Clear List</source>
-        <translation>Liste leeren</translation>
-    </message>
-    <message>
-        <location line="+42"/>
-        <source>Recover unsaved work?</source>
-        <translation>Ungespeicherte Arbeit wiederherstellen?</translation>
-    </message>
-    <message>
-        <location line="+1"/>
-        <source>Gramline found unsaved changes from a session that did not close properly (%1, saved %2). Recover them?</source>
-        <translation>Gramline hat ungespeicherte Änderungen aus einer Sitzung gefunden, die nicht ordnungsgemäß beendet wurde (%1, gespeichert %2). Wiederherstellen?</translation>
-    </message>
-    <message>
-        <location line="+2"/>
-        <source>untitled campaign</source>
-        <translation>unbenannte Kampagne</translation>
-    </message>
-    <message>
-        <location line="+7"/>
-        <source>Cannot recover</source>
-        <translation>Wiederherstellen nicht möglich</translation>
     </message>
 </context>
 <context>
@@ -1989,7 +1603,7 @@
 <context>
     <name>gramline::gui::MeasuredView</name>
     <message>
-        <location filename="../app/gui/measured_view.cpp" line="+70"/>
+        <location filename="../app/gui/measured_view.cpp" line="+71"/>
         <source>&lt;h3&gt;No counts ingested yet&lt;/h3&gt;</source>
         <translation>&lt;h3&gt;Noch keine Zähldaten eingelesen&lt;/h3&gt;</translation>
     </message>
@@ -2024,7 +1638,7 @@
         <translation>Eingelesene Dateien</translation>
     </message>
     <message>
-        <location line="+7"/>
+        <location line="+5"/>
         <source>Entries measured</source>
         <translation>Gemessene Einträge</translation>
     </message>
@@ -2034,7 +1648,7 @@
         <translation>Kernel-Einträge mit Zähldaten, von denen, die das Bündel plant</translation>
     </message>
     <message>
-        <location line="+1"/>
+        <location line="+2"/>
         <source>Steps without counts</source>
         <translation>Schritte ohne Zähldaten</translation>
     </message>
@@ -2065,12 +1679,12 @@
     </message>
     <message>
         <location line="+2"/>
-        <location line="+18"/>
+        <location line="+19"/>
         <source>Outlier entries</source>
         <translation>Ausreißer-Einträge</translation>
     </message>
     <message>
-        <location line="-17"/>
+        <location line="-18"/>
         <source>Entries whose z-score is beyond the outlier limit</source>
         <translation>Einträge, deren z-Wert jenseits der Ausreißergrenze liegt</translation>
     </message>
@@ -2085,7 +1699,7 @@
         <translation>Referenzschritte, deren Paarrate oder Sichtbarkeit um mehr als 3 kombinierte σ von der ersten Referenz abweicht</translation>
     </message>
     <message>
-        <location line="+2"/>
+        <location line="+3"/>
         <source>Test accuracy (measured kernel)</source>
         <translation>Testgenauigkeit (gemessener Kernel)</translation>
     </message>
@@ -2140,7 +1754,7 @@
         <translation>z</translation>
     </message>
     <message>
-        <location line="+101"/>
+        <location line="+68"/>
         <source>Measured %1 of %2 entries. The z-scores have mean %3 and standard deviation %4; when the predicted errors are right they are near 0 and 1.</source>
         <translation>%1 von %2 Einträgen gemessen. Die z-Werte haben den Mittelwert %3 und die Standardabweichung %4; wenn die vorhergesagten Fehler stimmen, liegen sie nahe 0 und 1.</translation>
     </message>
@@ -2463,6 +2077,249 @@ Bündel: %2</translation>
     </message>
 </context>
 <context>
+    <name>gramline::gui::NightsPage</name>
+    <message>
+        <location filename="../app/gui/nights_page.cpp" line="+18"/>
+        <source>When the lab is yours</source>
+        <translation>Wann das Labor Ihnen gehört</translation>
+    </message>
+    <message>
+        <location line="+6"/>
+        <location line="+1"/>
+        <source>First night</source>
+        <translation>Erste Nacht</translation>
+    </message>
+    <message>
+        <location line="+4"/>
+        <source>Change first night</source>
+        <translation>Erste Nacht ändern</translation>
+    </message>
+    <message>
+        <location line="+12"/>
+        <source>Change %1</source>
+        <translation>%1 ändern</translation>
+    </message>
+    <message>
+        <location line="+8"/>
+        <source>Window opens</source>
+        <translation>Fenster öffnet</translation>
+    </message>
+    <message>
+        <location line="+1"/>
+        <source>Window closes</source>
+        <translation>Fenster schließt</translation>
+    </message>
+    <message>
+        <location line="+2"/>
+        <source>Nights allowed</source>
+        <translation>Erlaubte Nächte</translation>
+    </message>
+    <message>
+        <location line="+0"/>
+        <source>Most nights the campaign may take</source>
+        <translation>Höchstzahl der Nächte, die die Kampagne dauern darf</translation>
+    </message>
+    <message>
+        <location line="+12"/>
+        <source>Each night&apos;s window lasts %1; a window whose close is not after its opening ends the next morning.</source>
+        <translation>Das Fenster jeder Nacht dauert %1; ein Fenster, dessen Ende nicht nach seinem Beginn liegt, endet am nächsten Morgen.</translation>
+    </message>
+</context>
+<context>
+    <name>gramline::gui::PrecisionPage</name>
+    <message>
+        <location filename="../app/gui/precision_page.cpp" line="+18"/>
+        <source>Precision of each kernel entry</source>
+        <translation>Präzision jedes Kernel-Eintrags</translation>
+    </message>
+    <message>
+        <location line="+3"/>
+        <source>Half-width ε</source>
+        <translation>Halbbreite ε</translation>
+    </message>
+    <message>
+        <location line="+1"/>
+        <source>Each kernel entry is known to within ± ε at the confidence below</source>
+        <translation>Jeder Kernel-Eintrag ist bei der unten angegebenen Konfidenz auf ± ε genau bekannt</translation>
+    </message>
+    <message>
+        <location line="+4"/>
+        <source>Confidence</source>
+        <translation>Konfidenz</translation>
+    </message>
+    <message>
+        <location line="+0"/>
+        <source>1 − δ</source>
+        <translation>1 − δ</translation>
+    </message>
+    <message>
+        <location line="+0"/>
+        <source> %</source>
+        <translation> %</translation>
+    </message>
+    <message>
+        <location line="+4"/>
+        <source>Interval</source>
+        <translation>Intervall</translation>
+    </message>
+    <message>
+        <location line="+0"/>
+        <source>How pairs per entry follow from ε and δ</source>
+        <translation>Wie sich die Paare pro Eintrag aus ε und δ ergeben</translation>
+    </message>
+    <message>
+        <location line="+6"/>
+        <source>Assume the worst case p = 1/2</source>
+        <translation>Ungünstigsten Fall p = 1/2 annehmen</translation>
+    </message>
+    <message>
+        <location line="+1"/>
+        <source>Ignore the predicted pass probability</source>
+        <translation>Vorhergesagte Durchlasswahrscheinlichkeit nicht berücksichtigen</translation>
+    </message>
+    <message>
+        <location line="+4"/>
+        <source>Fixed pairs per entry</source>
+        <translation>Feste Paarzahl pro Eintrag</translation>
+    </message>
+    <message>
+        <location line="+1"/>
+        <source>When set, every entry gets this many pairs instead of the target above</source>
+        <translation>Wenn gesetzt, erhält jeder Eintrag so viele Paare statt des Ziels oben</translation>
+    </message>
+    <message>
+        <location line="+3"/>
+        <source>off: use the target</source>
+        <translation>aus: Ziel verwenden</translation>
+    </message>
+    <message>
+        <location line="+2"/>
+        <source>Share pairs</source>
+        <translation>Paare verteilen</translation>
+    </message>
+    <message>
+        <location line="+0"/>
+        <source>How pairs are shared among entries</source>
+        <translation>Wie die Paare auf die Einträge verteilt werden</translation>
+    </message>
+    <message>
+        <location line="+7"/>
+        <source>Schedule</source>
+        <translation>Zeitplan</translation>
+    </message>
+    <message>
+        <location line="+3"/>
+        <source>Reference every</source>
+        <translation>Referenz alle</translation>
+    </message>
+    <message>
+        <location line="+1"/>
+        <source>A reference step at least this often; 0 for none</source>
+        <translation>Ein Referenzschritt mindestens so oft; 0 für keinen</translation>
+    </message>
+    <message>
+        <location line="+0"/>
+        <source> min</source>
+        <translation> min</translation>
+    </message>
+    <message>
+        <location line="+3"/>
+        <source>never</source>
+        <translation>nie</translation>
+    </message>
+    <message>
+        <location line="+2"/>
+        <source>Pairs per reference</source>
+        <translation>Paare pro Referenz</translation>
+    </message>
+    <message>
+        <location line="+0"/>
+        <source>0: as many as a measure step</source>
+        <translation>0: so viele wie ein Messschritt</translation>
+    </message>
+    <message>
+        <location line="+3"/>
+        <source>as a measure step</source>
+        <translation>wie ein Messschritt</translation>
+    </message>
+    <message>
+        <location line="+2"/>
+        <source>Dark steps at night start and end</source>
+        <translation>Dunkelschritte zu Beginn und Ende der Nacht</translation>
+    </message>
+    <message>
+        <location line="+1"/>
+        <source>Shutter closed, to measure the background</source>
+        <translation>Verschluss zu, um den Untergrund zu messen</translation>
+    </message>
+    <message>
+        <location line="+4"/>
+        <source>Dark step length</source>
+        <translation>Dauer eines Dunkelschritts</translation>
+    </message>
+    <message>
+        <location line="+0"/>
+        <location line="+20"/>
+        <source> s</source>
+        <translation> s</translation>
+    </message>
+    <message>
+        <location line="-16"/>
+        <source>Park the motors at the end of each night</source>
+        <translation>Motoren am Ende jeder Nacht parken</translation>
+    </message>
+    <message>
+        <location line="+1"/>
+        <source>Return every motor to its initial position</source>
+        <translation>Jeden Motor in seine Anfangsposition zurückfahren</translation>
+    </message>
+    <message>
+        <location line="+4"/>
+        <source>Scale pairs to fit the allowed nights</source>
+        <translation>Paare an die erlaubten Nächte anpassen</translation>
+    </message>
+    <message>
+        <location line="+1"/>
+        <source>Lower the pairs per entry so the campaign ends within the night limit</source>
+        <translation>Die Paare pro Eintrag senken, damit die Kampagne innerhalb der erlaubten Nächte endet</translation>
+    </message>
+    <message>
+        <location line="+4"/>
+        <source>Finish small sub-matrices early</source>
+        <translation>Kleine Teilmatrizen früh abschließen</translation>
+    </message>
+    <message>
+        <location line="+1"/>
+        <source>Order steps so the Gram matrix of the first points is complete early, in case the run is cut short</source>
+        <translation>Schritte so ordnen, dass die Gram-Matrix der ersten Punkte früh vollständig ist, falls der Lauf abbricht</translation>
+    </message>
+    <message>
+        <location line="+5"/>
+        <source>Optimizer time limit</source>
+        <translation>Zeitlimit des Optimierers</translation>
+    </message>
+    <message>
+        <location line="+0"/>
+        <source>0: no limit</source>
+        <translation>0: kein Limit</translation>
+    </message>
+    <message>
+        <location line="+3"/>
+        <source>no limit</source>
+        <translation>kein Limit</translation>
+    </message>
+    <message>
+        <location line="+2"/>
+        <source>Random seed</source>
+        <translation>Zufallsstartwert</translation>
+    </message>
+    <message>
+        <location line="+0"/>
+        <source>Same seed, same plan</source>
+        <translation>Gleicher Startwert, gleicher Plan</translation>
+    </message>
+</context>
+<context>
     <name>gramline::gui::PreferencesDialog</name>
     <message>
         <location filename="../app/gui/preferences.cpp" line="+79"/>
@@ -2516,6 +2373,191 @@ Bündel: %2</translation>
         <location line="+5"/>
         <source>%1 runs; tallest bar %2</source>
         <translation>%1 Läufe; höchster Balken %2</translation>
+    </message>
+</context>
+<context>
+    <name>gramline::gui::RecentFiles</name>
+    <message>
+        <location filename="../app/gui/recent_files.cpp" line="+33"/>
+        <source>&amp;%1 %2</source>
+        <translation>&amp;%1 %2</translation>
+    </message>
+    <message>
+        <location line="+6"/>
+        <source>Clear List</source>
+        <translation>Liste leeren</translation>
+    </message>
+</context>
+<context>
+    <name>gramline::gui::RigPage</name>
+    <message>
+        <location filename="../app/gui/rig_page.cpp" line="+23"/>
+        <source>Motorized waveplates</source>
+        <translation>Motorisierte Wellenplatten</translation>
+    </message>
+    <message>
+        <location line="+5"/>
+        <source>Edit motor %1</source>
+        <translation>Motor %1 bearbeiten</translation>
+    </message>
+    <message>
+        <location line="+8"/>
+        <source>Motors</source>
+        <translation>Motoren</translation>
+    </message>
+    <message>
+        <location line="+7"/>
+        <source>Double-click a cell to edit it.</source>
+        <translation>Doppelklicken Sie auf eine Zelle, um sie zu bearbeiten.</translation>
+    </message>
+    <message>
+        <location line="+9"/>
+        <source>Controller</source>
+        <translation>Steuerung</translation>
+    </message>
+    <message>
+        <location line="+3"/>
+        <source>Moves</source>
+        <translation>Bewegungen</translation>
+    </message>
+    <message>
+        <location line="+0"/>
+        <source>Whether the controller drives all motors at once</source>
+        <translation>Ob die Steuerung alle Motoren gleichzeitig fährt</translation>
+    </message>
+    <message>
+        <location line="+5"/>
+        <source>Settle time</source>
+        <translation>Einschwingzeit</translation>
+    </message>
+    <message>
+        <location line="+0"/>
+        <source>Wait after any motor moved, once per step</source>
+        <translation>Wartezeit nach jeder Motorbewegung, einmal pro Schritt</translation>
+    </message>
+    <message>
+        <location line="+1"/>
+        <location line="+4"/>
+        <source> s</source>
+        <translation> s</translation>
+    </message>
+    <message>
+        <location line="-1"/>
+        <source>Overhead per step</source>
+        <translation>Zusatzzeit pro Schritt</translation>
+    </message>
+    <message>
+        <location line="+0"/>
+        <source>Command and readout time of every step</source>
+        <translation>Befehls- und Auslesezeit jedes Schritts</translation>
+    </message>
+    <message>
+        <location line="+5"/>
+        <source>Source and detectors</source>
+        <translation>Quelle und Detektoren</translation>
+    </message>
+    <message>
+        <location line="+3"/>
+        <source>Pair rate</source>
+        <translation>Paarrate</translation>
+    </message>
+    <message>
+        <location line="+0"/>
+        <source>Photon pairs emitted per second</source>
+        <translation>Pro Sekunde emittierte Photonenpaare</translation>
+    </message>
+    <message>
+        <location line="+1"/>
+        <source> /s</source>
+        <translation> /s</translation>
+    </message>
+    <message>
+        <location line="+3"/>
+        <source>Visibility</source>
+        <translation>Sichtbarkeit</translation>
+    </message>
+    <message>
+        <location line="+0"/>
+        <source>V in p = V·κ + (1 − V)/2^P</source>
+        <translation>V in p = V·κ + (1 − V)/2^P</translation>
+    </message>
+    <message>
+        <location line="+4"/>
+        <source>Coincidence window</source>
+        <translation>Koinzidenzfenster</translation>
+    </message>
+    <message>
+        <location line="+0"/>
+        <source>Full coincidence window τ</source>
+        <translation>Volles Koinzidenzfenster τ</translation>
+    </message>
+    <message>
+        <location line="+1"/>
+        <source> ns</source>
+        <translation> ns</translation>
+    </message>
+    <message>
+        <location line="+3"/>
+        <source>Detection</source>
+        <translation>Detektion</translation>
+    </message>
+    <message>
+        <location line="+0"/>
+        <source>Which PBS outputs carry detectors</source>
+        <translation>Welche PBS-Ausgänge Detektoren tragen</translation>
+    </message>
+    <message>
+        <location line="+6"/>
+        <source>Efficiency (0–1)</source>
+        <translation>Effizienz (0–1)</translation>
+    </message>
+    <message>
+        <location line="+0"/>
+        <source>Dark counts (/s)</source>
+        <translation>Dunkelzählrate (/s)</translation>
+    </message>
+    <message>
+        <location line="+1"/>
+        <source>Detectors, one per photon</source>
+        <translation>Detektoren, einer pro Photon</translation>
+    </message>
+    <message>
+        <location line="+3"/>
+        <source>Detectors</source>
+        <translation>Detektoren</translation>
+    </message>
+    <message>
+        <location line="+10"/>
+        <source>Edit detector %1</source>
+        <translation>Detektor %1 bearbeiten</translation>
+    </message>
+    <message>
+        <location line="+16"/>
+        <source>Photon %1</source>
+        <translation>Photon %1</translation>
+    </message>
+</context>
+<context>
+    <name>gramline::gui::SessionAutosave</name>
+    <message>
+        <location filename="../app/gui/session_autosave.cpp" line="+80"/>
+        <source>Recover unsaved work?</source>
+        <translation>Ungespeicherte Arbeit wiederherstellen?</translation>
+    </message>
+    <message>
+        <location line="+1"/>
+        <source>Gramline found unsaved changes from a session that did not close properly (%1, saved %2). Recover them?</source>
+        <translation>Gramline hat ungespeicherte Änderungen aus einer Sitzung gefunden, die nicht ordnungsgemäß beendet wurde (%1, gespeichert %2). Wiederherstellen?</translation>
+    </message>
+    <message>
+        <location line="+2"/>
+        <source>untitled campaign</source>
+        <translation>unbenannte Kampagne</translation>
+    </message>
+    <message>
+        <location line="+7"/>
+        <source>Cannot recover</source>
+        <translation>Wiederherstellen nicht möglich</translation>
     </message>
 </context>
 <context>
@@ -2713,23 +2755,23 @@ Bündel: %2</translation>
 <context>
     <name>gramline::gui::SummaryView</name>
     <message>
-        <location filename="../app/gui/summary_view.cpp" line="+24"/>
+        <location filename="../app/gui/summary_view.cpp" line="+25"/>
         <source>Plan verdict</source>
         <translation>Urteil zum Plan</translation>
     </message>
     <message>
         <location line="+1"/>
-        <location line="+156"/>
+        <location line="+124"/>
         <source>Margin check: not computed yet.</source>
         <translation>Margin-Prüfung: noch nicht berechnet.</translation>
     </message>
     <message>
-        <location line="-154"/>
+        <location line="-122"/>
         <source>Margin verdict</source>
         <translation>Margin-Urteil</translation>
     </message>
     <message>
-        <location line="+7"/>
+        <location line="+5"/>
         <source>Nights</source>
         <translation>Nächte</translation>
     </message>
@@ -2859,12 +2901,12 @@ Bündel: %2</translation>
         <translation>Derselbe Bericht, den die Kommandozeile ausgibt:</translation>
     </message>
     <message>
-        <location line="+45"/>
+        <location line="+16"/>
         <source>No plan yet.</source>
         <translation>Noch kein Plan.</translation>
     </message>
     <message>
-        <location line="+13"/>
+        <location line="+12"/>
         <source>Fits in one night (of %1 allowed), done by %2.</source>
         <translation>Passt in eine Nacht (von %1 erlaubten), fertig um %2.</translation>
     </message>
@@ -2974,7 +3016,7 @@ Bündel: %2</translation>
         <translation>Nacht %1 (%2)</translation>
     </message>
     <message>
-        <location line="+13"/>
+        <location line="+27"/>
         <source>Where each night&apos;s window goes (hours)</source>
         <translation>Wofür das Fenster jeder Nacht verwendet wird (Stunden)</translation>
     </message>
@@ -3070,7 +3112,7 @@ Bündel: %2</translation>
 <context>
     <name>main</name>
     <message>
-        <location filename="../app/gui/main.cpp" line="+26"/>
+        <location filename="../app/gui/main.cpp" line="+27"/>
         <source>Plans polarization-encoded quantum-kernel measurements with photon pairs.</source>
         <translation>Plant polarisationskodierte Quantenkernel-Messungen mit Photonenpaaren.</translation>
     </message>

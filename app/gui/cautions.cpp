@@ -1,7 +1,10 @@
 #include "cautions.h"
 
 #include <QCoreApplication>
+#include <QDialog>
+#include <QDialogButtonBox>
 #include <QTextBrowser>
+#include <QVBoxLayout>
 
 namespace gramline::gui {
 
@@ -45,6 +48,24 @@ QWidget* make_cautions_page() {
   browser->setOpenExternalLinks(false);
   browser->setAccessibleName(QCoreApplication::translate("gramline::gui", "Cautions"));
   return browser;
+}
+
+bool acknowledge_cautions(QWidget* parent) {
+  const auto tr = [](const char* t) { return QCoreApplication::translate("gramline::gui", t); };
+  QDialog dialog(parent);
+  dialog.setWindowTitle(tr("Before the first export"));
+  auto* layout = new QVBoxLayout(&dialog);
+  auto* text = new QTextBrowser;
+  text->setHtml(cautions_html());
+  layout->addWidget(text);
+  auto* buttons = new QDialogButtonBox;
+  buttons->addButton(tr("I have read this"), QDialogButtonBox::AcceptRole);
+  buttons->addButton(QDialogButtonBox::Cancel);
+  QObject::connect(buttons, &QDialogButtonBox::accepted, &dialog, &QDialog::accept);
+  QObject::connect(buttons, &QDialogButtonBox::rejected, &dialog, &QDialog::reject);
+  layout->addWidget(buttons);
+  dialog.resize(640, 560);
+  return dialog.exec() == QDialog::Accepted;
 }
 
 }  // namespace gramline::gui

@@ -11,5 +11,8 @@ namespace gramline::gui {
 QString cautions_html();
 /// A read-only page showing the cautions.
 QWidget* make_cautions_page();
+/// Shows the cautions in a modal dialog over `parent`; true when the user confirms having read
+/// them.
+bool acknowledge_cautions(QWidget* parent);
 
 }  // namespace gramline::gui

@@ -14,18 +14,18 @@
 #include <QMenu>
 #include <QMessageBox>
 #include <QPlainTextEdit>
-#include <QProgressBar>
 #include <QPushButton>
 #include <QRegularExpression>
 #include <QSettings>
 #include <QStatusBar>
 #include <QVBoxLayout>
-#include <QtConcurrent/QtConcurrentRun>
 #include <exception>
+#include <stdexcept>
 
 #include "gui_text.h"
 #include "measured_view.h"
 #include "plan_runner.h"
+#include "status_indicator.h"
 
 namespace gramline::gui {
 
@@ -43,39 +43,40 @@ QString message_of(const std::exception& e) { return QString::fromStdString(e.wh
 
 }  // namespace
 
-IngestOutcome load_and_ingest(const QString& bundle_path, const QString& counts_path) {
-  IngestOutcome out;
+formats::IngestRun load_and_ingest(const QString& bundle_path, const QString& counts_path) {
   try {
     const formats::Bundle bundle = formats::read_bundle(bundle_path);
     const formats::CountsFile counts =
         formats::read_counts_csv(counts_path, formats::counts_layout(bundle.campaign));
-    out.run = std::make_shared<const formats::IngestRun>(formats::ingest_counts(bundle, counts));
-  } catch (const std::exception& e) {
-    out.error = message_of(e);
+    return formats::ingest_counts(bundle, counts);
+  } catch (const std::exception&) {
+    throw;
   } catch (...) {
-    out.error = QCoreApplication::translate("gramline::gui", "%1: unexpected error while ingesting")
-                    .arg(counts_path);
+    throw std::runtime_error(
+        QCoreApplication::translate("gramline::gui", "%1: unexpected error while ingesting")
+            .arg(counts_path)
+            .toStdString());
   }
-  return out;
 }
 
 ResumeOutcome load_and_resume(const QString& bundle_path, const QString& counts_path) {
-  ResumeOutcome out;
-  out.bundle_path = bundle_path;
   try {
+    ResumeOutcome out;
+    out.bundle_path = bundle_path;
     auto bundle = std::make_shared<const formats::Bundle>(formats::read_bundle(bundle_path));
     const formats::CountsFile counts =
         formats::read_counts_csv(counts_path, formats::counts_layout(bundle->campaign));
     out.run = std::make_shared<const formats::ResumeRun>(formats::plan_resume(*bundle, counts));
     out.bundle = std::move(bundle);
-  } catch (const std::exception& e) {
-    out.error = message_of(e);
+    return out;
+  } catch (const std::exception&) {
+    throw;
   } catch (...) {
-    out.error =
+    throw std::runtime_error(
         QCoreApplication::translate("gramline::gui", "%1: unexpected error while planning the rest")
-            .arg(counts_path);
+            .arg(counts_path)
+            .toStdString());
   }
-  return out;
 }
 
 QString file_stem(const QString& name) {
@@ -92,24 +93,38 @@ HandOff::HandOff(QMainWindow* window, PlanRunner* planner, MeasuredView* view,
       planner_(planner),
       view_(view),
       cautions_acknowledged_(std::move(cautions_acknowledged)) {
-  busy_label_ = new QLabel;
-  busy_label_->setAccessibleName(tr("Hand-off status"));
-  busy_label_->hide();
-  busy_bar_ = new QProgressBar;
-  busy_bar_->setRange(0, 0);  // the formats calls report no progress: a busy indicator
-  busy_bar_->setMaximumWidth(140);
-  busy_bar_->setTextVisible(false);
-  busy_bar_->setAccessibleName(tr("Working on the counts"));
-  busy_bar_->hide();
-  window_->statusBar()->addPermanentWidget(busy_label_);
-  window_->statusBar()->addPermanentWidget(busy_bar_);
+  StatusIndicator::Look look;
+  look.text_name = tr("Hand-off status");
+  look.progress_name = tr("Working on the counts");
+  look.bar_width = 140;
+  look.measured = false;  // the formats calls report no progress: a busy indicator
+  status_ = new StatusIndicator(look);
+  window_->statusBar()->addPermanentWidget(status_);
+  ingest_ = new JobRunner<std::shared_ptr<const formats::IngestRun>>(0, this);
+  resume_ = new JobRunner<ResumeOutcome>(0, this);
+  status_->follow(ingest_);
+  status_->follow(resume_);
+  connect(ingest_, &JobRunnerBase::succeeded, this, &HandOff::show_ingested);
+  connect(resume_, &JobRunnerBase::succeeded, this, [this] {
+    clear_busy();
+    last_error_.clear();
+    resumed_ = *resume_->result();
+    emit resumed();
+    show_resume_dialog();
+  });
+  connect(ingest_, &JobRunnerBase::failed, this, [this](const QString& message) {
+    clear_busy();
+    show_error(tr("Cannot ingest the counts"),
+               tr("Nothing was ingested; your campaign and the Measured view are "
+                  "unchanged.\n\n%1")
+                   .arg(message));
+  });
+  connect(resume_, &JobRunnerBase::failed, this, [this](const QString& message) {
+    clear_busy();
+    show_error(tr("Cannot resume"),
+               tr("Nothing was planned; your campaign is unchanged.\n\n%1").arg(message));
+  });
   connect(view_, &MeasuredView::ingest_requested, this, &HandOff::ingest);
-}
-
-HandOff::~HandOff() {
-  // The worker threads hold no pointer to this object; wait so none outlives the app.
-  if (ingest_watcher_) ingest_watcher_->waitForFinished();
-  if (resume_watcher_) resume_watcher_->waitForFinished();
 }
 
 void HandOff::add_actions(QMenu* menu) {
@@ -149,15 +164,12 @@ void HandOff::show_error(const QString& title, const QString& message) {
 }
 
 void HandOff::set_busy(const QString& what) {
-  busy_label_->setText(what);
-  busy_label_->show();
-  busy_bar_->show();
+  status_->set_text(what);
   for (QAction* a : actions_) a->setEnabled(false);
 }
 
 void HandOff::clear_busy() {
-  busy_label_->hide();
-  busy_bar_->hide();
+  status_->set_text(QString());
   for (QAction* a : actions_) a->setEnabled(true);
 }
 
@@ -212,89 +224,63 @@ bool HandOff::export_bundle_to(const QString& path) {
   }
 }
 
-void HandOff::ingest() {
-  if (busy()) return;
-  const QString bundle =
-      QFileDialog::getOpenFileName(window_, tr("Ingest Counts: Choose the Bundle the Rig Ran"),
-                                   last_dir(), gui_tr(kBundleFilter));
-  if (bundle.isEmpty()) return;
+bool HandOff::choose_bundle_and_counts(const QString& bundle_title, const QString& counts_title,
+                                       QString& bundle, QString& counts) {
+  bundle = QFileDialog::getOpenFileName(window_, bundle_title, last_dir(), gui_tr(kBundleFilter));
+  if (bundle.isEmpty()) return false;
   remember_dir(bundle);
-  const QString counts = QFileDialog::getOpenFileName(
-      window_, tr("Ingest Counts: Choose the Counts File for %1").arg(QFileInfo(bundle).fileName()),
-      QFileInfo(bundle).absolutePath(), gui_tr(kCountsFilter));
-  if (counts.isEmpty()) return;
-  ingest_files(bundle, counts);
+  counts = QFileDialog::getOpenFileName(window_, counts_title.arg(QFileInfo(bundle).fileName()),
+                                        QFileInfo(bundle).absolutePath(), gui_tr(kCountsFilter));
+  return !counts.isEmpty();
+}
+
+void HandOff::ingest() {
+  QString bundle, counts;
+  if (!busy() &&
+      choose_bundle_and_counts(tr("Ingest Counts: Choose the Bundle the Rig Ran"),
+                               tr("Ingest Counts: Choose the Counts File for %1"), bundle, counts))
+    ingest_files(bundle, counts);
 }
 
 void HandOff::ingest_files(const QString& bundle_path, const QString& counts_path) {
   if (busy()) return;
   set_busy(tr("Ingesting %1…").arg(QFileInfo(counts_path).fileName()));
-  ingest_watcher_ = new QFutureWatcher<IngestOutcome>(this);
-  connect(ingest_watcher_, &QFutureWatcher<IngestOutcome>::finished, this, [this] {
-    const IngestOutcome outcome = ingest_watcher_->result();
-    ingest_watcher_->deleteLater();
-    ingest_watcher_ = nullptr;
-    clear_busy();
-    if (!outcome.run) {
-      show_error(tr("Cannot ingest the counts"),
-                 tr("Nothing was ingested; your campaign and the Measured view are "
-                    "unchanged.\n\n%1")
-                     .arg(outcome.error));
-      return;
-    }
-    last_error_.clear();
-    view_->set_run(outcome.run);
-    window_->statusBar()->showMessage(
-        tr("Ingested %1: %2 of %3 entries measured.")
-            .arg(QFileInfo(QString::fromStdString(outcome.run->counts_source)).fileName())
-            .arg(count_text(outcome.run->result.measured_entries),
-                 count_text(outcome.run->result.expected_entries)),
-        8000);
-    emit ingested();
+  ingest_->run([bundle_path, counts_path](const WorkHooks&) {
+    return std::make_shared<const formats::IngestRun>(load_and_ingest(bundle_path, counts_path));
   });
-  ingest_watcher_->setFuture(QtConcurrent::run(
-      [bundle_path, counts_path] { return load_and_ingest(bundle_path, counts_path); }));
+}
+
+void HandOff::show_ingested() {
+  clear_busy();
+  const auto run = *ingest_->result();
+  last_error_.clear();
+  view_->set_run(run);
+  window_->statusBar()->showMessage(
+      tr("Ingested %1: %2 of %3 entries measured.")
+          .arg(QFileInfo(QString::fromStdString(run->counts_source)).fileName())
+          .arg(count_text(run->result.measured_entries), count_text(run->result.expected_entries)),
+      8000);
+  emit ingested();
 }
 
 void HandOff::resume() {
-  if (busy()) return;
-  const QString bundle = QFileDialog::getOpenFileName(
-      window_, tr("Resume: Choose the Bundle the Rig Ran"), last_dir(), gui_tr(kBundleFilter));
-  if (bundle.isEmpty()) return;
-  remember_dir(bundle);
-  const QString counts = QFileDialog::getOpenFileName(
-      window_,
-      tr("Resume: Choose the Partial Counts File for %1").arg(QFileInfo(bundle).fileName()),
-      QFileInfo(bundle).absolutePath(), gui_tr(kCountsFilter));
-  if (counts.isEmpty()) return;
-  resume_files(bundle, counts);
+  QString bundle, counts;
+  if (!busy() &&
+      choose_bundle_and_counts(tr("Resume: Choose the Bundle the Rig Ran"),
+                               tr("Resume: Choose the Partial Counts File for %1"), bundle, counts))
+    resume_files(bundle, counts);
 }
 
 void HandOff::resume_files(const QString& bundle_path, const QString& counts_path) {
   if (busy()) return;
   set_busy(tr("Planning the rest after %1…").arg(QFileInfo(counts_path).fileName()));
-  resume_watcher_ = new QFutureWatcher<ResumeOutcome>(this);
-  connect(resume_watcher_, &QFutureWatcher<ResumeOutcome>::finished, this, [this] {
-    const ResumeOutcome outcome = resume_watcher_->result();
-    resume_watcher_->deleteLater();
-    resume_watcher_ = nullptr;
-    clear_busy();
-    if (!outcome.run) {
-      show_error(tr("Cannot resume"),
-                 tr("Nothing was planned; your campaign is unchanged.\n\n%1").arg(outcome.error));
-      return;
-    }
-    last_error_.clear();
-    resume_ = outcome;
-    emit resumed();
-    show_resume_dialog();
+  resume_->run([bundle_path, counts_path](const WorkHooks&) {
+    return load_and_resume(bundle_path, counts_path);
   });
-  resume_watcher_->setFuture(QtConcurrent::run(
-      [bundle_path, counts_path] { return load_and_resume(bundle_path, counts_path); }));
 }
 
 void HandOff::show_resume_dialog() {
-  const formats::ResumeRun& run = *resume_.run;
+  const formats::ResumeRun& run = *resumed_.run;
   const PlanSummary& s = run.plan.summary;
   auto* dialog = new QDialog(window_);
   dialog->setObjectName(QStringLiteral("resume_dialog"));
@@ -307,7 +293,7 @@ void HandOff::show_resume_dialog() {
                              "counts measured so far.")
                               .arg(count_text(run.measured_entries))
                               .arg(count_text(run.remaining_entries))
-                              .arg(QFileInfo(resume_.bundle_path).fileName()));
+                              .arg(QFileInfo(resumed_.bundle_path).fileName()));
   head->setWordWrap(true);
   layout->addWidget(head);
   auto* form = new QFormLayout;
@@ -337,7 +323,7 @@ void HandOff::show_resume_dialog() {
   connect(buttons, &QDialogButtonBox::rejected, dialog, &QDialog::reject);
   connect(buttons, &QDialogButtonBox::accepted, dialog, [this, dialog] {
     if (!cautions_acknowledged_()) return;
-    const QFileInfo parent(resume_.bundle_path);
+    const QFileInfo parent(resumed_.bundle_path);
     QString path = QFileDialog::getSaveFileName(dialog, tr("Save the Resumed Bundle"),
                                                 parent.absolutePath() + QLatin1Char('/') +
                                                     parent.completeBaseName() + tr("-resumed") +
@@ -353,11 +339,11 @@ void HandOff::show_resume_dialog() {
 }
 
 bool HandOff::save_resumed_to(const QString& path) {
-  if (!resume_.run || !resume_.bundle) return false;
+  if (!resumed_.run || !resumed_.bundle) return false;
   QApplication::setOverrideCursor(Qt::WaitCursor);
   try {
     const formats::BundleWritten written = formats::write_resumed_bundle(
-        *resume_.run, *resume_.bundle, resume_.bundle_path, path, formats::Overwrite::allow);
+        *resumed_.run, *resumed_.bundle, resumed_.bundle_path, path, formats::Overwrite::allow);
     QApplication::restoreOverrideCursor();
     last_error_.clear();
     window_->statusBar()->showMessage(tr("Wrote the resumed bundle %1 (%2 files)")

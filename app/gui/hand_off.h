@@ -4,7 +4,6 @@
 // interrupted campaign from a partial counts file. Reading, ingesting and re-planning run on a
 // worker thread; the formats layer does all the work (formats::write_bundle, ingest_counts,
 // plan_resume, write_resumed_bundle), so the app and gramline-cli give the same numbers.
-#include <QFutureWatcher>
 #include <QObject>
 #include <QString>
 #include <functional>
@@ -13,34 +12,29 @@
 #include "formats/bundle.h"
 #include "formats/ingest_run.h"
 #include "formats/resume_run.h"
+#include "job_runner.h"
 
 class QAction;
-class QLabel;
 class QMainWindow;
 class QMenu;
-class QProgressBar;
 
 namespace gramline::gui {
 
 class MeasuredView;
 class PlanRunner;
+class StatusIndicator;
 
-/// What reading and ingesting a bundle and its counts produced: the run, or the error message
-/// (which names the file, and the line for a counts file).
-struct IngestOutcome {
-  std::shared_ptr<const formats::IngestRun> run;
-  QString error;
-};
-/// read_bundle, read_counts_csv and ingest_counts; safe on any thread, never throws.
-IngestOutcome load_and_ingest(const QString& bundle_path, const QString& counts_path);
+/// read_bundle, read_counts_csv and ingest_counts. Throws std::exception with a message that
+/// names the file (and the line for a counts file).
+formats::IngestRun load_and_ingest(const QString& bundle_path, const QString& counts_path);
 
+/// A resumed campaign, with the bundle it continues.
 struct ResumeOutcome {
   std::shared_ptr<const formats::Bundle> bundle;
   std::shared_ptr<const formats::ResumeRun> run;
   QString bundle_path;
-  QString error;
 };
-/// read_bundle, read_counts_csv and plan_resume; safe on any thread, never throws.
+/// read_bundle, read_counts_csv and plan_resume; throws like load_and_ingest.
 ResumeOutcome load_and_resume(const QString& bundle_path, const QString& counts_path);
 
 /// A file-name-safe version of a campaign name, for default file names.
@@ -54,7 +48,6 @@ class HandOff : public QObject {
   /// whether the user went on.
   HandOff(QMainWindow* window, PlanRunner* planner, MeasuredView* view,
           std::function<bool()> cautions_acknowledged);
-  ~HandOff() override;
 
   /// Adds Export Bundle…, Ingest Counts… and Resume from Counts… to `menu`.
   void add_actions(QMenu* menu);
@@ -77,9 +70,9 @@ class HandOff : public QObject {
   void resume_files(const QString& bundle_path, const QString& counts_path);
   /// Writes the new bundle of the last resume to `path` (cautions already acknowledged).
   bool save_resumed_to(const QString& path);
-  std::shared_ptr<const formats::ResumeRun> last_resume() const { return resume_.run; }
+  std::shared_ptr<const formats::ResumeRun> last_resume() const { return resumed_.run; }
 
-  bool busy() const { return ingest_watcher_ || resume_watcher_; }
+  bool busy() const { return ingest_->busy() || resume_->busy(); }
   /// The last error shown to the user (empty after a success).
   QString last_error() const { return last_error_; }
 
@@ -92,9 +85,14 @@ class HandOff : public QObject {
 
  private:
   void set_busy(const QString& what);
+  void show_ingested();
   void clear_busy();
   void show_error(const QString& title, const QString& message);
   void show_resume_dialog();
+  /// Asks for a bundle, then for a counts file beside it (`counts_title` takes the bundle's
+  /// file name as %1); false when the user cancels either.
+  bool choose_bundle_and_counts(const QString& bundle_title, const QString& counts_title,
+                                QString& bundle, QString& counts);
   QString last_dir() const;
   void remember_dir(const QString& path) const;
 
@@ -102,12 +100,11 @@ class HandOff : public QObject {
   PlanRunner* planner_;
   MeasuredView* view_;
   std::function<bool()> cautions_acknowledged_;
-  QLabel* busy_label_;
-  QProgressBar* busy_bar_;
+  StatusIndicator* status_;
   QList<QAction*> actions_;
-  QFutureWatcher<IngestOutcome>* ingest_watcher_ = nullptr;
-  QFutureWatcher<ResumeOutcome>* resume_watcher_ = nullptr;
-  ResumeOutcome resume_;
+  JobRunner<std::shared_ptr<const formats::IngestRun>>* ingest_;
+  JobRunner<ResumeOutcome>* resume_;
+  ResumeOutcome resumed_;  ///< the last resume, held for saving
   QString last_error_;
 };
 

@@ -8,6 +8,7 @@
 #include "app_icon.h"
 #include "main_window.h"
 #include "preferences.h"
+#include "screenshots.h"
 
 int main(int argc, char** argv) {
   QApplication app(argc, argv);
@@ -46,8 +47,8 @@ int main(int argc, char** argv) {
 
   if (parser.isSet(screenshots)) {
     window.resize(1400, 860);
-    window.take_screenshots(parser.value(screenshots),
-                            [](bool ok) { QApplication::exit(ok ? 0 : 1); });
+    gramline::gui::take_screenshots(window, parser.value(screenshots),
+                                    [](bool ok) { QApplication::exit(ok ? 0 : 1); });
   } else {
     QTimer::singleShot(0, &window, [&window] { window.offer_recovery(); });
   }

@@ -1,78 +1,45 @@
 #pragma once
-// Plans the campaign on a worker thread: debounced requests, a cancel flag per job, progress
-// polled on the GUI thread, and only the newest job's result delivered.
-#include <QFutureWatcher>
-#include <QObject>
-#include <QTimer>
-#include <atomic>
+// Plans the campaign on a worker thread as soon as it is asked to, cancelling the plan still
+// running; only the newest plan reaches the views (JobRunner).
+#include <functional>
 #include <memory>
-#include <vector>
 
 #include "gramline/campaign.h"
 #include "gramline/plan.h"
+#include "job_runner.h"
 
 namespace gramline::gui {
 
-/// What one planning job produced. Exactly one of plan and error is set unless cancelled.
-struct PlanOutcome {
+/// A finished plan and the campaign it was made from.
+struct PlannedCampaign {
+  Campaign campaign;
   std::shared_ptr<const Plan> plan;
-  QString error;
-  bool cancelled = false;
 };
 
-class PlanRunner : public QObject {
+class PlanRunner : public JobRunner<PlannedCampaign> {
   Q_OBJECT
 
  public:
+  /// The planning call (plan_campaign); tests wrap it to watch the jobs.
+  using Planner = std::function<Plan(const Campaign&, const PlanOptions&)>;
+
   explicit PlanRunner(QObject* parent = nullptr);
-  ~PlanRunner() override;
 
-  /// Plans `campaign` after the debounce delay; a newer request replaces an older one and
-  /// cancels a job already running.
+  /// Starts planning `campaign` at once; a plan still running is cancelled and never shown.
   void request(const Campaign& campaign);
-  /// Starts at once (no debounce).
-  void request_now(const Campaign& campaign);
-  /// Raises the cancel flag of the running job and drops a pending request.
-  void cancel();
-
-  bool busy() const { return pending_ || running_; }
-  void set_debounce_ms(int ms) { debounce_.setInterval(ms); }
+  void set_planner(Planner planner) { planner_ = std::move(planner); }
 
   /// The newest finished plan and the campaign it was made from (null before the first).
-  std::shared_ptr<const Plan> plan() const { return plan_; }
-  const Campaign& planned_campaign() const { return planned_; }
+  std::shared_ptr<const Plan> plan() const { return result() ? result()->plan : nullptr; }
+  const Campaign& planned_campaign() const;
 
  signals:
-  /// A request arrived: what is shown is now out of date.
+  /// A request arrived (and its plan has started): what is shown is now out of date.
   void stale();
-  void started();
-  void progress(double fraction_done);
-  void finished(std::shared_ptr<const gramline::Plan> plan);
-  void failed(const QString& message);
-  void cancelled();
 
  private:
-  struct Job {
-    Campaign campaign;
-    std::shared_ptr<CancelFlag> cancel;
-    std::shared_ptr<std::atomic<double>> fraction;
-    QFutureWatcher<PlanOutcome>* watcher = nullptr;
-    long generation = 0;
-  };
-
-  void start();
-  void on_job_done(long generation, const PlanOutcome& outcome, const Campaign& campaign);
-
-  QTimer debounce_;
-  QTimer poll_;
-  Campaign next_;
-  bool pending_ = false;
-  bool running_ = false;
-  long generation_ = 0;
-  std::shared_ptr<Job> current_;
-  std::vector<std::shared_ptr<Job>> alive_;  ///< jobs whose threads have not returned yet
-  std::shared_ptr<const Plan> plan_;
-  Campaign planned_;
+  Planner planner_;
+  Campaign none_;  ///< planned_campaign() before the first plan
 };
 
 }  // namespace gramline::gui

@@ -113,8 +113,22 @@ void TimelineView::set_plan(std::shared_ptr<const Plan> plan, const Campaign& ca
           n);
     night_->setCurrentIndex(std::min(keep, night_->count() - 1));
   }
+  drawn_ = false;
+  // The first charts are drawn at once all the same: the splitter sizes itself to them when it
+  // is first shown.
+  if (isVisible() || !ever_drawn_) draw();
+}
+
+void TimelineView::showEvent(QShowEvent* event) {
+  QWidget::showEvent(event);
+  if (!drawn_) draw();
+}
+
+void TimelineView::draw() {
   draw_nights();
   draw_progress();
+  drawn_plan_ = plan_;
+  drawn_ = ever_drawn_ = true;
 }
 
 void TimelineView::draw_nights() {

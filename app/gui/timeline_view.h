@@ -33,9 +33,17 @@ class TimelineView : public QWidget {
 
  public:
   explicit TimelineView(QWidget* parent = nullptr);
+  /// Shows `plan`; while the view is hidden the charts are drawn when it is next shown, so a
+  /// new plan reaches the views that are on screen sooner.
   void set_plan(std::shared_ptr<const Plan> plan, const Campaign& campaign);
+  /// The plan the charts show: the newest one once the view has been shown since.
+  std::shared_ptr<const Plan> drawn_plan() const { return drawn_plan_; }
+
+ protected:
+  void showEvent(QShowEvent* event) override;
 
  private:
+  void draw();
   void draw_nights();
   void draw_progress();
 
@@ -46,6 +54,9 @@ class TimelineView : public QWidget {
   QChartView* progress_view_;
   QComboBox* night_;
   QLabel* note_;
+  std::shared_ptr<const Plan> drawn_plan_;
+  bool drawn_ = true;        ///< the charts show plan_
+  bool ever_drawn_ = false;  ///< the charts were drawn for some plan
 };
 
 }  // namespace gramline::gui

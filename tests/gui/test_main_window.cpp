@@ -6,6 +6,7 @@
 #include <QFile>
 #include <QMessageBox>
 #include <QPushButton>
+#include <QSemaphore>
 #include <QSettings>
 #include <QSignalSpy>
 #include <QStandardPaths>
@@ -13,6 +14,9 @@
 #include <QTest>
 #include <QTimer>
 #include <QUndoStack>
+#include <atomic>
+#include <chrono>
+#include <thread>
 
 #include "campaign_document.h"
 #include "editor_panel.h"
@@ -22,8 +26,10 @@
 #include "margin_runner.h"
 #include "plan_runner.h"
 #include "rig_tables.h"
+#include "status_indicator.h"
 #include "steps_view.h"
 #include "summary_view.h"
+#include "timeline_view.h"
 #include "view_frame.h"
 
 using gramline::gui::MainWindow;
@@ -98,6 +104,72 @@ class MainWindowTest : public QObject {
     // Redo brings the edit back.
     w.document()->undo_stack()->redo();
     QCOMPARE(w.document()->campaign().rig.motors[0].speed_deg_per_s, old_speed / 5.0);
+  }
+
+  // Each edit plans at once; an edit that arrives while a plan runs cancels it, and the views
+  // show the plan of the last edit.
+  void edits_replan_at_once_and_cancel_the_running_plan() {
+    MainWindow w;
+    make_quick(w);
+    w.load_demo();
+    QTRY_VERIFY_WITH_TIMEOUT(settled(w), kWaitMs);
+    QSemaphore first_running;
+    std::atomic<int> calls{0};
+    std::atomic<bool> first_cancelled{false};
+    w.runner()->set_planner([&](const gramline::Campaign& c, const gramline::PlanOptions& o) {
+      if (calls++ > 0) return gramline::plan_campaign(c, o);
+      first_running.release();
+      // Held until the next edit raises the flag (or a minute passes, failing below).
+      const auto give_up = std::chrono::steady_clock::now() + std::chrono::minutes(1);
+      while (!o.hooks.cancelled() && std::chrono::steady_clock::now() < give_up)
+        std::this_thread::sleep_for(std::chrono::milliseconds(1));
+      try {
+        return gramline::plan_campaign(c, o);
+      } catch (const gramline::Cancelled&) {
+        first_cancelled = true;
+        throw;
+      }
+    });
+    QSignalSpy started(w.runner(), &gramline::gui::PlanRunner::started);
+    const double settle_s = w.document()->campaign().rig.controller.settle_s;
+
+    w.document()->edit(QStringLiteral("first edit"), [settle_s](gramline::Campaign& c) {
+      c.rig.controller.settle_s = settle_s + 0.4;
+    });
+    QCOMPARE(started.count(), 1);  // planning began within the edit
+    QVERIFY(w.plan_status()->running());
+    QVERIFY(!w.frame(MainWindow::kSummary)->banner().isEmpty());
+    QVERIFY(first_running.tryAcquire(1, kWaitMs));
+    w.document()->edit(QStringLiteral("second edit"), [settle_s](gramline::Campaign& c) {
+      c.rig.controller.settle_s = settle_s + 0.8;
+    });
+    QCOMPARE(started.count(), 2);
+    QTRY_VERIFY_WITH_TIMEOUT(settled(w) && w.runner()->jobs_alive() == 0, kWaitMs);
+    QVERIFY(first_cancelled);
+    QCOMPARE(calls.load(), 2);
+    QCOMPARE(w.runner()->planned_campaign().rig.controller.settle_s, settle_s + 0.8);
+    QVERIFY(w.frame(MainWindow::kSummary)->banner().isEmpty());
+    QVERIFY(!w.plan_status()->running());
+    QVERIFY2(w.plan_status()->text().startsWith(QStringLiteral("Planned ")),
+             qPrintable(w.plan_status()->text()));
+  }
+
+  // A hidden timeline draws the newest plan when it is shown, not while other views are.
+  void timeline_catches_up_when_shown() {
+    MainWindow w;
+    make_quick(w);
+    w.show();
+    w.views()->setCurrentIndex(MainWindow::kSummary);
+    w.load_demo();
+    QTRY_VERIFY_WITH_TIMEOUT(settled(w), kWaitMs);
+    const auto first = w.runner()->plan();
+    QCOMPARE(w.timeline_view()->drawn_plan(), first);  // the first plan is drawn at once
+    w.document()->edit(QStringLiteral("slower settle"),
+                       [](gramline::Campaign& c) { c.rig.controller.settle_s += 0.3; });
+    QTRY_VERIFY_WITH_TIMEOUT(settled(w) && w.runner()->plan() != first, kWaitMs);
+    QCOMPARE(w.timeline_view()->drawn_plan(), first);
+    w.views()->setCurrentIndex(MainWindow::kTimeline);
+    QCOMPARE(w.timeline_view()->drawn_plan(), w.runner()->plan());
   }
 
   void save_and_open_round_trip() {
