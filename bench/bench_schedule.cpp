@@ -108,7 +108,8 @@ void run_plan(const Campaign& c) {
   const Plan plan = plan_campaign(c);
   const double wall_ms = ms_since(t0);
   const PlanSummary& s = plan.summary;
-  std::printf("demo plan  plan_ms %.1f (summary), wall %.1f ms\n", s.plan_ms, wall_ms);
+  std::printf("demo plan  plan_ms %.1f (summary), then gram_error_ms %.1f, wall %.1f ms\n",
+              s.plan_ms, s.gram_error_ms, wall_ms);
   print_figures("demo plan", s.settings, wall_ms, s.measure_move_s, s.move_naive_s,
                 s.move_lower_bound_s, s.nights);
 }

@@ -2169,13 +2169,13 @@ Bündel: %2</translation>
     </message>
     <message>
         <location line="+6"/>
-        <source>Assume the worst case p = 1/2</source>
-        <translation>Ungünstigsten Fall p = 1/2 annehmen</translation>
+        <source>Plan for the worst pass probability</source>
+        <translation>Für die ungünstigste Durchlasswahrscheinlichkeit planen</translation>
     </message>
     <message>
         <location line="+1"/>
-        <source>Ignore the predicted pass probability</source>
-        <translation>Vorhergesagte Durchlasswahrscheinlichkeit nicht berücksichtigen</translation>
+        <source>Ignore the predicted pass probability; plan every entry for the least favourable one the detection scheme can produce</source>
+        <translation>Vorhergesagte Durchlasswahrscheinlichkeit nicht berücksichtigen; jeden Eintrag für die ungünstigste planen, die das Nachweisschema ergeben kann</translation>
     </message>
     <message>
         <location line="+4"/>

@@ -161,7 +161,8 @@ std::string format_summary_json(const Campaign& campaign, const Plan& plan) {
                 {"fits", s.fits},
                 {"max_nights", campaign.nights.max_nights},
                 {"night_use", nights},
-                {"plan_ms", s.plan_ms}};
+                {"plan_ms", s.plan_ms},
+                {"gram_error_ms", s.gram_error_ms}};
   return json_text(o);
 }
 

@@ -33,8 +33,9 @@ PrecisionPage::PrecisionPage(CampaignDocument* campaign_document, QWidget* paren
       [](const Campaign& c) { return static_cast<int>(c.precision.budget.method); },
       [](Campaign& c, int v) { c.precision.budget.method = static_cast<BudgetMethod>(v); });
   flag(
-      tf, "precision/worst", tr("Assume the worst case p = 1/2"),
-      tr("Ignore the predicted pass probability"),
+      tf, "precision/worst", tr("Plan for the worst pass probability"),
+      tr("Ignore the predicted pass probability; plan every entry for the least favourable one "
+         "the detection scheme can produce"),
       [](const Campaign& c) { return c.precision.budget.worst_case; },
       [](Campaign& c, bool v) { c.precision.budget.worst_case = v; });
   auto* fixed = number(

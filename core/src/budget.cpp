@@ -43,7 +43,9 @@ Calibration unit_calibration(const EntryModel& e) {
   return c;
 }
 
-double effective_p(const EntryModel& e, bool worst_case) { return worst_case ? 0.5 : e.p_pass; }
+double effective_p(const EntryModel& e, bool worst_case) {
+  return worst_case ? worst_case_pass_probability(e) : e.p_pass;
+}
 
 // Half-width of the Wilson score interval at observed fraction p after n trials (Wilson 1927).
 double wilson_half_width(double p, double n, double z) {
@@ -65,15 +67,38 @@ double score_precision(const EntryModel& e, double pairs, double z, bool worst_c
   return wilson_half_width(p_obs, n_total, z) * (1.0 + e.accidental_total_ratio) / e.visibility;
 }
 
-double hoeffding_precision(const EntryModel& e, double pairs, double delta) {
-  // Hoeffding (1963): P(|mean - p| >= w) <= 2 exp(-2 n w^2) for n variables in [0, 1].
-  // Each detected pair (or accidental) is one such variable in the observed pass fraction.
-  const double ratio_total =
-      e.scheme == DetectionScheme::both_ports ? e.accidental_total_ratio : 0.0;
-  const double n_total = pairs * (1.0 + ratio_total);
-  return std::sqrt(std::log(2.0 / delta) / (2.0 * n_total)) * (1.0 + ratio_total) / e.visibility;
+// Distribution-free half-width on the kernel with `pairs` pairs at confidence 1 - delta.
+double hoeffding_precision(const EntryModel& e, double pairs, double delta, bool worst_case) {
+  const double log_term = std::log(2.0 / delta);
+  if (e.scheme == DetectionScheme::pass_only) {
+    // A Poisson count n of mean mu = pairs (p + a/r) is no mean of a fixed number of [0, 1]
+    // variables, so Hoeffding's inequality does not hold for it. Bernstein's inequality for a
+    // Poisson count does: P(|n - mu| >= x) <= 2 exp(-x^2 / (2 (mu + x/3))) (Boucheron, Lugosi &
+    // Massart, Concentration Inequalities, 2013, sec. 2.2 and 2.8). Solved for x, divided by
+    // pairs V on the kernel scale.
+    const double mu = pairs * (effective_p(e, worst_case) + e.accidental_ratio);
+    const double x = log_term / 3.0 + std::sqrt(log_term * log_term / 9.0 + 2.0 * log_term * mu);
+    return x / (pairs * e.visibility);
+  }
+  // Hoeffding (1963): P(|mean - p| >= w) <= 2 exp(-2 n w^2) for n variables in [0, 1]. Given
+  // the total n_tot = pairs (1 + a_tot/r) over all channels, each detection (pair or
+  // accidental) is one such variable in the observed pass fraction, and the kernel moves by
+  // (1 + a_tot/r)/V per unit of that fraction.
+  const double n_total = pairs * (1.0 + e.accidental_total_ratio);
+  return std::sqrt(log_term / (2.0 * n_total)) * (1.0 + e.accidental_total_ratio) / e.visibility;
 }
 }  // namespace
+
+double worst_case_pass_probability(const EntryModel& entry) {
+  // The scheme reaches p = V kappa + (1 - V)/2^P for kernels in [0, 1] (docs/conventions.md).
+  const double p_low = pass_probability(0.0, entry.visibility, entry.photons);
+  const double p_high = pass_probability(1.0, entry.visibility, entry.photons);
+  if (entry.scheme == DetectionScheme::pass_only) return p_high;
+  // Both ports: the half-width follows p_o (1 - p_o), p_o = (p + a/r)/(1 + a_tot/r), which is
+  // concave in p with its top at p_o = 1/2.
+  const double top = 0.5 * (1.0 + entry.accidental_total_ratio) - entry.accidental_ratio;
+  return std::clamp(top, p_low, p_high);
+}
 
 double entry_variance_per_pair(const EntryModel& entry, bool worst_case) {
   return kernel_variance(entry.scheme, entry.photons, unit_calibration(entry),
@@ -89,7 +114,7 @@ double precision_for_pairs(const EntryModel& entry, double pairs, const BudgetOp
     case BudgetMethod::wilson:
       return score_precision(entry, pairs, z, options.worst_case);
     case BudgetMethod::hoeffding:
-      return hoeffding_precision(entry, pairs, 1.0 - options.confidence);
+      return hoeffding_precision(entry, pairs, 1.0 - options.confidence, options.worst_case);
   }
   return std::numeric_limits<double>::infinity();
 }
@@ -111,10 +136,18 @@ double pairs_for_precision(const EntryModel& entry, const BudgetOptions& options
       pairs = z * z * entry_variance_per_pair(entry, options.worst_case) / (eps * eps);
       break;
     case BudgetMethod::hoeffding: {
-      const double ratio_total =
-          entry.scheme == DetectionScheme::both_ports ? entry.accidental_total_ratio : 0.0;
-      const double w = eps * entry.visibility / (1.0 + ratio_total);
-      pairs = std::log(2.0 / (1.0 - options.confidence)) / (2.0 * w * w) / (1.0 + ratio_total);
+      const double log_term = std::log(2.0 / (1.0 - options.confidence));
+      const double v = entry.visibility;
+      if (entry.scheme == DetectionScheme::pass_only) {
+        // hoeffding_precision <= eps with x = eps V pairs:
+        // pairs >= 2 ln(2/delta) (p + a/r + eps V / 3) / (eps V)^2.
+        const double rate = effective_p(entry, options.worst_case) + entry.accidental_ratio;
+        pairs = 2.0 * log_term * (rate + eps * v / 3.0) / (eps * v * eps * v);
+      } else {
+        const double ratio_total = entry.accidental_total_ratio;
+        const double w = eps * v / (1.0 + ratio_total);
+        pairs = log_term / (2.0 * w * w) / (1.0 + ratio_total);
+      }
       break;
     }
     case BudgetMethod::wilson: {

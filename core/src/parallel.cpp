@@ -17,6 +17,11 @@ int loop_thread_count(int requested, int iterations) {
 
 void parallel_for(int iterations, int threads, const WorkHooks& hooks,
                   const std::function<void(int)>& body) {
+  parallel_for(iterations, threads, hooks, [&body](int i, int) { body(i); });
+}
+
+void parallel_for(int iterations, int threads, const WorkHooks& hooks,
+                  const std::function<void(int, int)>& body) {
   if (iterations <= 0) {
     hooks.throw_if_cancelled();
     return;
@@ -26,7 +31,8 @@ void parallel_for(int iterations, int threads, const WorkHooks& hooks,
   std::atomic<bool> stop{false};
   std::exception_ptr failure;
   std::mutex failure_mutex;
-  auto work = [&](bool caller) {
+  auto work = [&](int worker) {
+    const bool caller = worker == 0;
     try {
       for (;;) {
         if (stop.load(std::memory_order_relaxed)) return;
@@ -36,7 +42,7 @@ void parallel_for(int iterations, int threads, const WorkHooks& hooks,
         }
         const int i = next.fetch_add(1);
         if (i >= iterations) return;
-        body(i);
+        body(i, worker);
         const int finished = done.fetch_add(1) + 1;
         if (caller) hooks.report(static_cast<double>(finished) / iterations);
       }
@@ -47,8 +53,8 @@ void parallel_for(int iterations, int threads, const WorkHooks& hooks,
     }
   };
   std::vector<std::thread> pool;
-  for (int k = 1; k < workers; ++k) pool.emplace_back(work, false);
-  work(true);
+  for (int k = 1; k < workers; ++k) pool.emplace_back(work, k);
+  work(0);
   for (std::thread& th : pool) th.join();
   if (failure) std::rethrow_exception(failure);
   hooks.throw_if_cancelled();

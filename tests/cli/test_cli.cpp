@@ -188,7 +188,8 @@ TEST_F(PlannedDemo, SummaryHasTheDocumentedKeysAndAgreesWithTheSteps) {
       QJsonDocument::fromJson(QByteArray::fromStdString(read_text(out("summary.json")))).object();
   for (const char* key :
        {"settings", "steps", "pairs_total", "integration_s", "move_s", "reference_s", "total_s",
-        "nights", "move_lower_bound_s", "move_naive_s", "gram_sigma_frobenius", "plan_ms"}) {
+        "nights", "move_lower_bound_s", "move_naive_s", "gram_sigma_frobenius", "plan_ms",
+        "gram_error_ms", "gram_spectral_estimate", "p_negative_eigenvalue"}) {
     EXPECT_TRUE(summary[key].isDouble()) << key;
   }
   const formats::StepsFile file = formats::read_steps_json(out("steps.json"));

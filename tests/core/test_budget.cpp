@@ -2,10 +2,12 @@
 // Clopper-Pearson bounds), Wilson's and Hoeffding's published formulas, and a units sanity check.
 #include <gtest/gtest.h>
 
+#include <algorithm>
 #include <boost/math/distributions/binomial.hpp>
 #include <boost/math/distributions/normal.hpp>
 #include <boost/math/special_functions/beta.hpp>
 #include <cmath>
+#include <random>
 #include <string>
 #include <vector>
 
@@ -184,6 +186,32 @@ TEST(Budget, HoeffdingSampleSize) {
               std::sqrt(std::log(2.0 / 0.05) / (2.0 * n)) / 0.9, 1e-12);
 }
 
+// A Poisson count n of mean mu obeys Bernstein's inequality
+// P(|n - mu| >= x) <= 2 exp(-x^2 / (2 (mu + x/3))) (Boucheron, Lugosi & Massart, Concentration
+// Inequalities, 2013, sec. 2.2 and 2.8; from memory). The pass port's distribution-free budget
+// is the smallest pairs with x = eps V pairs meeting it at mu = pairs (p + a/r):
+// pairs = 2 ln(2/delta) (p + a/r + eps V/3) / (eps V)^2.
+TEST(Budget, PassPortDistributionFreeSampleSize) {
+  for (double eps : {0.005, 0.02}) {
+    for (double delta : {0.05, 0.001}) {
+      for (double p : {0.1, 0.9}) {
+        EntryModel e = both_ports_entry(p, 0.9);
+        e.scheme = DetectionScheme::pass_only;
+        e.accidental_ratio = 0.01;
+        const double w = eps * 0.9;
+        const double n_ref = 2 * std::log(2 / delta) * (p + 0.01 + w / 3) / (w * w);
+        const double got =
+            gramline::pairs_for_precision(e, options(BudgetMethod::hoeffding, eps, 1 - delta));
+        expect_smallest_integer_above(got, n_ref);
+        // The inverse: at n_ref the bound's x equals eps V n_ref.
+        EXPECT_NEAR(gramline::precision_for_pairs(e, n_ref,
+                                                  options(BudgetMethod::hoeffding, eps, 1 - delta)),
+                    eps, 1e-12);
+      }
+    }
+  }
+}
+
 // Normal approximation (common practice): n = z^2 p (1 - p) / eps^2 for a binomial fraction,
 // z from Boost's normal quantile; worst case p = 1/2.
 TEST(Budget, NormalApproximationSampleSize) {
@@ -295,7 +323,7 @@ TEST(Budget, PrecisionForPairsIsTheInverse) {
   }
 }
 
-// The worst case p = 1/2 never needs fewer pairs than the predicted p (p(1-p) <= 1/4).
+// The worst case never needs fewer pairs than the predicted p.
 TEST(Budget, WorstCaseNeedsAtLeastAsManyPairs) {
   for (BudgetMethod m : {BudgetMethod::normal, BudgetMethod::wilson}) {
     for (double p : {0.02, 0.2, 0.5, 0.7, 0.99}) {
@@ -304,6 +332,143 @@ TEST(Budget, WorstCaseNeedsAtLeastAsManyPairs) {
       const double worst =
           gramline::pairs_for_precision(both_ports_entry(p), options(m, 0.01, 0.95, true));
       EXPECT_GE(worst, predicted) << "p=" << p;
+    }
+  }
+}
+
+EntryModel scheme_entry(DetectionScheme scheme, int photons, double v, double kappa,
+                        double accidental = 0.0, double accidental_total = 0.0) {
+  EntryModel e;
+  e.scheme = scheme;
+  e.photons = photons;
+  e.visibility = v;
+  // Global depolarizing model of docs/conventions.md: p = V kappa + (1 - V)/2^P.
+  e.p_pass = v * kappa + (1 - v) / std::pow(2.0, photons);
+  e.accidental_ratio = accidental;
+  e.accidental_total_ratio = accidental_total;
+  return e;
+}
+
+// The worst case is the worst over the pass probabilities the scheme can produce, kernels in
+// [0, 1]: the worst-case pairs meet the target at every kernel of a fine grid, and are no more
+// than the largest need on that grid (the pass port's Poisson variance (p + a/r)/V^2 peaks at
+// kappa = 1, the binomial one where the observed fraction is nearest 1/2).
+TEST(Budget, WorstCaseCoversEveryKernelOfTheScheme) {
+  for (DetectionScheme scheme : {DetectionScheme::pass_only, DetectionScheme::both_ports}) {
+    for (int photons : {1, 2, 3}) {
+      for (double v : {0.97, 0.8}) {
+        for (double acc : {0.0, 0.01}) {
+          for (BudgetMethod m :
+               {BudgetMethod::normal, BudgetMethod::wilson, BudgetMethod::hoeffding}) {
+            SCOPED_TRACE(gramline::to_string(m) + " " + gramline::to_string(scheme) +
+                         " P=" + std::to_string(photons) + " V=" + std::to_string(v) +
+                         " a/r=" + std::to_string(acc));
+            const double eps = 0.01;
+            const EntryModel any = scheme_entry(scheme, photons, v, 0.3, acc, 4 * acc);
+            const double worst = gramline::pairs_for_precision(any, options(m, eps, 0.95, true));
+            double largest_need = 0.0, largest_half_width = 0.0;
+            for (int k = 0; k <= 1000; ++k) {
+              const EntryModel e = scheme_entry(scheme, photons, v, k / 1000.0, acc, 4 * acc);
+              largest_need =
+                  std::max(largest_need, gramline::pairs_for_precision(e, options(m, eps, 0.95)));
+              largest_half_width =
+                  std::max(largest_half_width,
+                           gramline::precision_for_pairs(e, worst, options(m, eps, 0.95)));
+            }
+            EXPECT_LE(largest_half_width, eps * (1 + 1e-9));
+            EXPECT_LE(worst, largest_need + 1.0);
+            EXPECT_GE(worst, largest_need);
+          }
+        }
+      }
+    }
+  }
+  // Hoeffding's bound for both ports does not depend on p: worst case and predicted p need the
+  // same pairs.
+  const EntryModel e = scheme_entry(DetectionScheme::both_ports, 1, 0.97, 0.999);
+  EXPECT_EQ(gramline::pairs_for_precision(e, options(BudgetMethod::hoeffding, 0.01, 0.95, true)),
+            gramline::pairs_for_precision(e, options(BudgetMethod::hoeffding, 0.01, 0.95)));
+}
+
+// One photon, pass port only, V = 0.97, eps = 0.01 at 95 %, normal method: p = 1/2 would give
+// z^2 0.5 / (eps V)^2 = 20414 pairs, whose true half-width at kappa = 0.999
+// (p = 0.97 * 0.999 + 0.015 = 0.98403) is z sqrt(p / 20414) / V = 0.0140. The worst case of
+// the scheme is p = V + (1 - V)/2 = 0.985: z^2 0.985 / (eps V)^2 pairs.
+TEST(Budget, PassPortWorstCaseIsTheTopOfTheRange) {
+  const double z = boost_z(0.95);
+  const EntryModel e = scheme_entry(DetectionScheme::pass_only, 1, 0.97, 0.999);
+  EXPECT_NEAR(z * z * 0.5 / (0.01 * 0.01 * 0.97 * 0.97), 20413.75, 0.01);
+  EXPECT_NEAR(gramline::precision_for_pairs(e, 20414, options(BudgetMethod::normal, 0.01, 0.95)),
+              0.0140, 5e-5);
+  EXPECT_NEAR(gramline::worst_case_pass_probability(e), 0.985, 1e-15);
+  expect_smallest_integer_above(
+      gramline::pairs_for_precision(e, options(BudgetMethod::normal, 0.01, 0.95, true)),
+      z * z * 0.985 / (0.01 * 0.01 * 0.97 * 0.97));
+  // Both ports without accidentals: p_o = p, worst at p = 1/2, inside [(1 - V)/2, V + (1 - V)/2].
+  EntryModel b = e;
+  b.scheme = DetectionScheme::both_ports;
+  EXPECT_NEAR(gramline::worst_case_pass_probability(b), 0.5, 1e-15);
+  // Both ports with a visibility so low that 1/2 is out of reach for three photons? The range
+  // is [(1 - V)/8, V + (1 - V)/8], which holds 1/2 for every V > 4/7: at V = 0.4 the top,
+  // 0.475, is the worst.
+  b.photons = 3;
+  b.visibility = 0.4;
+  EXPECT_NEAR(gramline::worst_case_pass_probability(b), 0.4 + 0.6 / 8, 1e-15);
+}
+
+// Seeded simulation of the counts the worst-case budget implies, at the kernels where the
+// scheme is least favourable (pass port: kappa = 1 and 0.999; both ports: kappa near 1/2):
+// pass port, Poisson n with mean pairs (p + a/r), kappa_hat = (n / pairs - a/r - (1 - V)/2^P)/V;
+// both ports, binomial pass count out of n_total = pairs (1 + a_tot/r) with
+// p_o = (p + a/r)/(1 + a_tot/r), kappa_hat = (p_hat_o (1 + a_tot/r) - a/r - (1 - V)/2^P)/V
+// (README, user guide step 6). The share of estimates within eps of the truth must reach the
+// confidence (95 %) within three standard errors of the simulation, and for the normal method
+// z times the spread of the estimates must match the half-width the budget reports at that
+// entry's own p (within three standard errors of a standard deviation, 1/sqrt(2T)).
+TEST(Budget, WorstCaseBudgetCoversSimulatedCounts) {
+  const int trials = 4000;
+  const double eps = 0.01, z = boost_z(0.95);
+  const double coverage_floor = 0.95 - 3 * std::sqrt(0.95 * 0.05 / trials);
+  std::mt19937_64 rng(2024);
+  struct Case {
+    DetectionScheme scheme;
+    int photons;
+    double v, kappa, acc, acc_total;
+  };
+  for (const Case& c : std::vector<Case>{{DetectionScheme::pass_only, 1, 0.97, 0.999, 0, 0},
+                                         {DetectionScheme::pass_only, 2, 0.9, 1.0, 0.01, 0.04},
+                                         {DetectionScheme::both_ports, 2, 0.97, 0.5, 0.0, 0.0},
+                                         {DetectionScheme::both_ports, 2, 0.9, 0.45, 0.01, 0.04}}) {
+    const EntryModel e = scheme_entry(c.scheme, c.photons, c.v, c.kappa, c.acc, c.acc_total);
+    const double floor = (1 - c.v) / std::pow(2.0, c.photons);
+    for (BudgetMethod m : {BudgetMethod::normal, BudgetMethod::wilson, BudgetMethod::hoeffding}) {
+      SCOPED_TRACE(gramline::to_string(m) + " " + gramline::to_string(c.scheme) +
+                   " kappa=" + std::to_string(c.kappa));
+      const double pairs = gramline::pairs_for_precision(e, options(m, eps, 0.95, true));
+      int inside = 0;
+      double sum = 0.0, sum_sq = 0.0;
+      for (int t = 0; t < trials; ++t) {
+        double kappa_hat;
+        if (c.scheme == DetectionScheme::pass_only) {
+          std::poisson_distribution<long long> count(pairs * (e.p_pass + c.acc));
+          kappa_hat = (static_cast<double>(count(rng)) / pairs - c.acc - floor) / c.v;
+        } else {
+          const long long total = std::llround(pairs * (1 + c.acc_total));
+          std::binomial_distribution<long long> pass(total, (e.p_pass + c.acc) / (1 + c.acc_total));
+          const double p_o = static_cast<double>(pass(rng)) / static_cast<double>(total);
+          kappa_hat = (p_o * (1 + c.acc_total) - c.acc - floor) / c.v;
+        }
+        if (std::abs(kappa_hat - c.kappa) <= eps) ++inside;
+        sum += kappa_hat;
+        sum_sq += kappa_hat * kappa_hat;
+      }
+      EXPECT_GE(static_cast<double>(inside) / trials, coverage_floor) << pairs << " pairs";
+      if (m == BudgetMethod::normal) {
+        const double sd = std::sqrt((sum_sq - sum * sum / trials) / (trials - 1));
+        const double promised = gramline::precision_for_pairs(e, pairs, options(m, eps, 0.95));
+        EXPECT_NEAR(z * sd / promised, 1.0, 3.0 / std::sqrt(2.0 * trials));
+        EXPECT_LE(promised, eps * (1 + 1e-9));
+      }
     }
   }
 }

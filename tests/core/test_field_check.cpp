@@ -81,8 +81,8 @@ TEST(FieldCheck, EveryOptionsStructNamesItsOffendingField) {
   EXPECT_TRUE(contains(failure_of(search), "BudgetSearchOptions.high_pairs"));
 
   gramline::GramErrorOptions gram;
-  gram.monte_carlo_trials = -3;
-  EXPECT_TRUE(contains(failure_of(gram), "GramErrorOptions.monte_carlo_trials"));
+  gram.draws = -3;
+  EXPECT_TRUE(contains(failure_of(gram), "GramErrorOptions.draws"));
 
   gramline::IngestOptions ingest;
   ingest.outlier_z = 0.0;
@@ -126,12 +126,12 @@ TEST(FieldCheck, TheCallsThemselvesRefuseBadOptionsByField) {
     EXPECT_TRUE(contains(e.what(), "SvmOptions.tolerance")) << e.what();
   }
   gramline::GramErrorOptions gram;
-  gram.confidence = 0.0;
+  gram.full_size_limit = 0;
   try {
     gramline::predict_gram_error(k, Eigen::MatrixXd::Zero(4, 4), gram);
     FAIL() << "expected an error";
   } catch (const std::invalid_argument& e) {
-    EXPECT_TRUE(contains(e.what(), "GramErrorOptions.confidence")) << e.what();
+    EXPECT_TRUE(contains(e.what(), "GramErrorOptions.full_size_limit")) << e.what();
   }
 }
 

@@ -62,6 +62,58 @@ TEST(Plan, NeymanSpendsTheSameTimeAndLowersTheWorstHalfWidth) {
   EXPECT_LT(neyman.summary.epsilon_reached, uniform.summary.epsilon_reached);
 }
 
+// One photon, one feature as linear polarization (theta = feature, degrees), pass port only, on
+// the demo's rig: kernel cos^2((theta_a - theta_b)/2), no accidentals (one detector).
+Campaign one_photon_pass_port(const std::vector<double>& thetas) {
+  Campaign c = make_demo_campaign();
+  const int n = static_cast<int>(thetas.size());
+  c.data.feature_names = {"theta"};
+  c.data.train.resize(n, 1);
+  c.data.train_labels.resize(n);
+  for (int i = 0; i < n; ++i) {
+    c.data.train(i, 0) = thetas[i];
+    c.data.train_labels(i) = i % 2 == 0 ? 1 : -1;
+  }
+  c.data.test.resize(0, 1);
+  c.data.test_labels.resize(0);
+  PhotonEncoding e;
+  e.theta_weights_deg = Eigen::VectorXd::Ones(1);
+  e.phi_weights_deg = Eigen::VectorXd::Zero(1);
+  c.encoding = {};
+  c.encoding.photons = {e};
+  std::vector<Motor> motors;
+  for (const Motor& m : c.rig.motors)
+    if (m.photon == 0) motors.push_back(m);
+  c.rig.motors = motors;
+  c.rig.detectors.resize(1);
+  c.rig.scheme = DetectionScheme::pass_only;
+  return c;
+}
+
+// epsilon_reached is the true worst half-width of the plan: every entry's half-width at its own
+// predicted p, maximised. With the worst-case option, one photon, V = 0.97, eps = 0.01 and an
+// entry of kernel 0.999 (theta 10 and 13.624 deg), the normal half-width of each entry is
+// z sqrt(p / pairs) / V (README, user guide steps 5-7, no accidentals), p = V kappa + (1 - V)/2;
+// it must stay within eps, and the summary must report its maximum.
+TEST(Plan, EpsilonReachedIsTheTrueWorstHalfWidth) {
+  Campaign c = one_photon_pass_port({10.0, 13.624, 60.0, 120.0, 170.0});
+  c.precision.budget = {BudgetMethod::normal, 0.01, 0.95, true};
+  const double v = c.rig.source.visibility, z = 1.959963984540054;  // common practice
+  for (bool worst : {true, false}) {
+    c.precision.budget.worst_case = worst;
+    const Plan plan = plan_campaign(c);
+    double largest = 0.0, largest_kernel = 0.0;
+    for (const Step* s : measure_steps(plan)) {
+      const double p = v * s->kernel_ideal + (1 - v) / 2;
+      largest = std::max(largest, z * std::sqrt(p / s->pairs) / v);
+      largest_kernel = std::max(largest_kernel, s->kernel_ideal);
+    }
+    EXPECT_NEAR(largest_kernel, 0.999, 1e-4);
+    EXPECT_NEAR(plan.summary.epsilon_reached, largest, 1e-9 * largest) << worst;
+    EXPECT_LE(plan.summary.epsilon_reached, 0.01 * (1 + 1e-9)) << worst;
+  }
+}
+
 TEST(Plan, MarginAwareAllocationFavoursSupportVectorRows) {
   Campaign c = make_demo_campaign();
   c.precision.allocation = Allocation::margin_aware;

@@ -3,6 +3,7 @@
 #include <gtest/gtest.h>
 
 #include <algorithm>
+#include <array>
 #include <cmath>
 #include <complex>
 #include <numbers>
@@ -309,6 +310,83 @@ TEST(Synthesis, SolutionsShiftedByPlatePeriodsStillWork) {
         EXPECT_GE(gramline::analysis_pass_probability(s.qwp_deg - 180.0 * k, s.hwp_deg + 90.0 * k,
                                                       target),
                   1.0 - kTight);
+      }
+    }
+  }
+}
+
+// Near the circular poles S3 is within rounding of 1, and chi = asin(S3)/2 loses half the
+// digits: 6e-7 deg from R the plates then realise R itself. Against D the ideal kernel of
+// psi(90, 90 + delta) is (1 + cos(90 + delta))/2 = (1 - sin delta)/2 (overlap of Bloch vectors,
+// docs/conventions.md), e.g. 0.4999999948 at delta = 6e-7 deg; the kernel recomputed from the
+// plate positions by Jones products (prepare with every solution, analyse D with every solution)
+// must match it to 1e-12. The same near the other pole, approached in theta as well as in phi.
+TEST(Synthesis, KernelFromPositionsNearTheCircularPoles) {
+  const double d_rad = kPi / 180.0;
+  for (double delta : {1e-2, 1e-4, 6e-7, 1e-8, 1e-10, 1e-12}) {
+    struct Near {
+      double theta, phi;
+      double kernel_against_d;  // (1 + S1 S1' + S2 S2' + S3 S3')/2 with S' = (0, 1, 0)
+    };
+    const std::vector<Near> cases = {
+        {90.0, 90.0 + delta, (1.0 - std::sin(delta * d_rad)) / 2.0},
+        {90.0, 270.0 - delta, (1.0 - std::sin(delta * d_rad)) / 2.0},
+        {90.0 - delta, 90.0, 0.5},  // S2 = sin theta cos 90 = 0
+        {90.0 + delta, 270.0, 0.5},
+    };
+    for (const Near& c : cases) {
+      SCOPED_TRACE("theta=" + std::to_string(c.theta) + " phi=" + std::to_string(c.phi) +
+                   " delta=" + std::to_string(delta));
+      for (const gramline::PlatePair& prep : gramline::preparation_solutions(c.theta, c.phi)) {
+        const JonesVector made = gramline::prepared_state(prep.hwp_deg, prep.qwp_deg);
+        for (const gramline::PlatePair& an : gramline::analysis_solutions(90.0, 0.0)) {
+          EXPECT_NEAR(gramline::analysis_pass_probability(an.qwp_deg, an.hwp_deg, made),
+                      c.kernel_against_d, 1e-12);
+        }
+      }
+      // And the other way round: prepare D, analyse the near-pole state.
+      for (const gramline::PlatePair& an : gramline::analysis_solutions(c.theta, c.phi)) {
+        for (const gramline::PlatePair& prep : gramline::preparation_solutions(90.0, 0.0)) {
+          EXPECT_NEAR(
+              gramline::analysis_pass_probability(
+                  an.qwp_deg, an.hwp_deg, gramline::prepared_state(prep.hwp_deg, prep.qwp_deg)),
+              c.kernel_against_d, 1e-12);
+        }
+      }
+      EXPECT_LE(gramline::synthesis_kernel_error(c.theta, c.phi), 1e-14);
+    }
+  }
+}
+
+// synthesis_kernel_error bounds the kernel error against any partner: on random states, the
+// largest |kernel from positions - ideal| against random partners (ideal from the Bloch
+// vectors, docs/conventions.md) stays below it plus rounding, and it stays far below 1e-12.
+TEST(Synthesis, KernelErrorBoundsEveryPartner) {
+  std::mt19937_64 rng(7);
+  std::uniform_real_distribution<double> u(0.0, 1.0);
+  auto draw = [&] {
+    return std::pair{std::acos(1.0 - 2.0 * u(rng)) * 180.0 / kPi, 360.0 * u(rng)};
+  };
+  auto bloch = [](double theta, double phi) {
+    const double t = theta * kPi / 180.0, f = phi * kPi / 180.0;
+    return std::array<double, 3>{std::cos(t), std::sin(t) * std::cos(f), std::sin(t) * std::sin(f)};
+  };
+  for (int i = 0; i < 200; ++i) {
+    const auto [theta, phi] = draw();
+    const double bound = gramline::synthesis_kernel_error(theta, phi);
+    EXPECT_LT(bound, 1e-14);
+    const auto s = bloch(theta, phi);
+    for (int k = 0; k < 5; ++k) {
+      const auto [t2, f2] = draw();
+      const auto s2 = bloch(t2, f2);
+      const double ideal = (1.0 + s[0] * s2[0] + s[1] * s2[1] + s[2] * s2[2]) / 2.0;
+      for (const gramline::PlatePair& p : gramline::preparation_solutions(theta, phi)) {
+        const double from_positions =
+            gramline::analysis_pass_probability(gramline::analysis_solutions(t2, f2)[0].qwp_deg,
+                                                gramline::analysis_solutions(t2, f2)[0].hwp_deg,
+                                                gramline::prepared_state(p.hwp_deg, p.qwp_deg));
+        EXPECT_LE(std::abs(from_positions - ideal),
+                  bound + gramline::synthesis_kernel_error(t2, f2) + 1e-15);
       }
     }
   }

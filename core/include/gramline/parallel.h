@@ -21,4 +21,10 @@ int loop_thread_count(int requested, int iterations);
 void parallel_for(int iterations, int threads, const WorkHooks& hooks,
                   const std::function<void(int)>& body);
 
+/// The same loop, telling the body which worker runs it: body(i, worker) with worker in
+/// [0, loop_thread_count(threads, iterations)), the calling thread being worker 0. A body may
+/// keep scratch space per worker (never results: those go to iteration i's own slot).
+void parallel_for(int iterations, int threads, const WorkHooks& hooks,
+                  const std::function<void(int, int)>& body);
+
 }  // namespace gramline

@@ -58,7 +58,8 @@ struct PlanSummary {
   double epsilon_reached = 0.0;    ///< kernel half-width at the planned pairs (fit to nights)
   double truncation_cost_s = 0.0;  ///< extra move time of the truncation-safe order
   double plan_ms = 0.0;
-  bool fits = true;  ///< false when max_nights is not enough
+  double gram_error_ms = 0.0;  ///< wall time of the Gram-error simulation, not part of plan_ms
+  bool fits = true;            ///< false when max_nights is not enough
   std::vector<NightUse> night_use;
 };
 
@@ -75,7 +76,9 @@ struct PlanOptions {
   /// When set, plan only the entries not yet measured, starting from the given positions.
   const ResumeState* resume = nullptr;
   bool optimize_order = true;  ///< false: row-by-row order
-  bool monte_carlo_gram = false;
+  /// Simulate the Gram error (estimate_gram_error) once the plan is made; false leaves only the
+  /// quick figures of describe_gram_noise, for a later estimate_gram_error call.
+  bool simulate_gram_error = true;
   WorkHooks hooks;
   /// Throws std::invalid_argument naming the first field that does not fit `campaign`.
   void validate(const Campaign& campaign) const;
@@ -95,6 +98,8 @@ struct Plan {
   Eigen::MatrixXd sigma_test;     ///< M x N
   Eigen::MatrixXi step_of_train;  ///< N x N index of the step measuring each entry (-1: none)
   Eigen::MatrixXi step_of_test;   ///< M x N
+  /// Noise components shared by several training entries (gram_error.h), beside sigma_train.
+  std::vector<SharedNoiseComponent> shared_noise_train;
   GramError gram_error;
   /// Human-readable summary (a few lines), as printed by the CLI.
   std::string report() const;
@@ -102,6 +107,11 @@ struct Plan {
 
 /// Plans the campaign. Throws std::invalid_argument naming the field for an invalid campaign.
 Plan plan_campaign(const Campaign& campaign, const PlanOptions& options = {});
+
+/// Simulates the error of the plan's training Gram matrix (predict_gram_error with sigma_train
+/// and shared_noise_train) into plan.gram_error, and its wall time into
+/// plan.summary.gram_error_ms. Throws Cancelled when the cancel flag is raised.
+void estimate_gram_error(Plan& plan, const GramErrorOptions& options = {});
 
 /// One point of the Gram progress curve: after the training measure step ending at end_s, the
 /// share of training entries measured and the Frobenius norm of the per-entry sigma of the

@@ -32,7 +32,14 @@ StageSolutions preparation_solutions(double theta_deg, double phi_deg);
 StageSolutions analysis_solutions(double theta_deg, double phi_deg);
 
 /// Worst fidelity over both solutions of both stages, checked by the Jones product.
-/// Synthesis is accepted only when this is >= 1 - 1e-12.
 double synthesis_fidelity(double theta_deg, double phi_deg);
+
+/// Largest change, over both solutions of both stages and over every partner state, of one
+/// photon's kernel factor |<partner|psi>|^2 when the stage's plates (Jones products of
+/// jones.h) stand in for the exact state psi(theta, phi): |s_realised - s_target| / 2 for the
+/// Stokes vectors. A kernel of P photons built from such stages differs from the ideal by at
+/// most the sum of the 2 P errors of its points (each factor lies in [0, 1]). Unlike the
+/// fidelity, whose shortfall 1 - F is the square of this, it resolves errors near 1e-12.
+double synthesis_kernel_error(double theta_deg, double phi_deg);
 
 }  // namespace gramline
