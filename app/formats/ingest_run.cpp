@@ -51,6 +51,7 @@ IngestRun ingest_counts(const Bundle& bundle, const CountsFile& counts, const Wo
   run.bundle_source = bundle.source;
   run.counts_source = counts.source;
   run.manifest_sha256 = bundle.manifest_sha256;
+  run.bundle_warning = check_counts_bundle(bundle, counts);
   run.check = check_counts(counts, bundle.steps.steps);
   if (!run.check.consistent())
     throw InputError(run.check.report() + counts.source + ": the counts do not fit the steps of " +
@@ -89,6 +90,7 @@ std::string IngestRun::report() const {
   std::ostringstream o;
   o.precision(4);
   o << "Bundle " << bundle_source << ", counts " << counts_source << "\n";
+  if (!bundle_warning.empty()) o << "warning: " << bundle_warning << "\n";
   if (earlier_steps > 0)
     o << earlier_steps << " steps carried from earlier bundles are ingested with these counts\n";
   if (!check.missing.empty()) {

@@ -26,11 +26,13 @@ struct IngestRun : MeasuredClassifier {
   Plan plan;              ///< the bundle's steps (after any earlier measured steps), as ingested
   int earlier_steps = 0;  ///< steps carried from earlier bundles (resumed bundle), first in plan
   CountsCheck check;      ///< of the new counts against the bundle's own steps
+  std::string bundle_warning;  ///< check_counts_bundle's warning (counts naming no bundle)
   IngestResult result;
   std::string report() const;
 };
 
-/// Ingests `counts` for `bundle`. Throws InputError listing every extra, duplicated and
+/// Ingests `counts` for `bundle`. Throws InputError naming both ids when the counts answer
+/// another bundle (check_counts_bundle); throws InputError listing every extra, duplicated and
 /// kind-mismatched row (file, line, column) when the counts do not fit the bundle's steps;
 /// missing steps are allowed (a partial night) and reported. `hooks` hears the fraction done.
 IngestRun ingest_counts(const Bundle& bundle, const CountsFile& counts,
