@@ -2,6 +2,8 @@
 
 #include <QAction>
 #include <QApplication>
+#include <QCheckBox>
+#include <QDateEdit>
 #include <QDialog>
 #include <QDialogButtonBox>
 #include <QDir>
@@ -59,14 +61,18 @@ formats::IngestRun load_and_ingest(const QString& bundle_path, const QString& co
   }
 }
 
-ResumeOutcome load_and_resume(const QString& bundle_path, const QString& counts_path) {
+ResumeOutcome load_and_resume(const QString& bundle_path, const QString& counts_path,
+                              const QString& first_night) {
   try {
     ResumeOutcome out;
     out.bundle_path = bundle_path;
     auto bundle = std::make_shared<const formats::Bundle>(formats::read_bundle(bundle_path));
     const formats::CountsFile counts =
         formats::read_counts_csv(counts_path, formats::counts_layout(bundle->campaign));
-    out.run = std::make_shared<const formats::ResumeRun>(formats::plan_resume(*bundle, counts));
+    formats::ResumeOptions options;
+    options.first_night = first_night.toStdString();
+    out.run = std::make_shared<const formats::ResumeRun>(
+        formats::plan_resume(*bundle, counts, {}, options));
     out.bundle = std::move(bundle);
     return out;
   } catch (const std::exception&) {
@@ -265,17 +271,51 @@ void HandOff::show_ingested() {
 
 void HandOff::resume() {
   QString bundle, counts;
-  if (!busy() &&
-      choose_bundle_and_counts(tr("Resume: Choose the Bundle the Rig Ran"),
-                               tr("Resume: Choose the Partial Counts File for %1"), bundle, counts))
-    resume_files(bundle, counts);
+  if (!busy() && choose_bundle_and_counts(tr("Resume: Choose the Bundle the Rig Ran"),
+                                          tr("Resume: Choose the Partial Counts File for %1"),
+                                          bundle, counts)) {
+    QString first_night;
+    if (ask_first_night(first_night)) resume_files(bundle, counts, first_night);
+  }
 }
 
-void HandOff::resume_files(const QString& bundle_path, const QString& counts_path) {
+bool HandOff::ask_first_night(QString& first_night) {
+  QDialog dialog(window_);
+  dialog.setObjectName(QStringLiteral("first_night_dialog"));
+  dialog.setWindowTitle(tr("Resume: First Night of the Rest"));
+  auto* layout = new QVBoxLayout(&dialog);
+  auto* text =
+      new QLabel(tr("When can the rig measure again? The rest is laid on the nights "
+                    "from that date, leaving out the campaign's nights to skip."));
+  text->setWordWrap(true);
+  layout->addWidget(text);
+  auto* form = new QFormLayout;
+  auto* after = new QCheckBox(tr("The day after the last night counted"));
+  after->setChecked(true);
+  auto* date = new QDateEdit(QDate::currentDate());
+  date->setCalendarPopup(true);
+  date->setDisplayFormat(QStringLiteral("yyyy-MM-dd"));
+  date->setAccessibleName(tr("First night of the rest"));
+  date->setEnabled(false);
+  connect(after, &QCheckBox::toggled, date, [date](bool on) { date->setEnabled(!on); });
+  form->addRow(after);
+  form->addRow(tr("First night"), date);
+  layout->addLayout(form);
+  auto* buttons = new QDialogButtonBox(QDialogButtonBox::Ok | QDialogButtonBox::Cancel);
+  connect(buttons, &QDialogButtonBox::accepted, &dialog, &QDialog::accept);
+  connect(buttons, &QDialogButtonBox::rejected, &dialog, &QDialog::reject);
+  layout->addWidget(buttons);
+  if (dialog.exec() != QDialog::Accepted) return false;
+  first_night = after->isChecked() ? QString() : date->date().toString(Qt::ISODate);
+  return true;
+}
+
+void HandOff::resume_files(const QString& bundle_path, const QString& counts_path,
+                           const QString& first_night) {
   if (busy()) return;
   set_busy(tr("Planning the rest after %1…").arg(QFileInfo(counts_path).fileName()));
-  resume_->run([bundle_path, counts_path](const WorkHooks&) {
-    return load_and_resume(bundle_path, counts_path);
+  resume_->run([bundle_path, counts_path, first_night](const WorkHooks&) {
+    return load_and_resume(bundle_path, counts_path, first_night);
   });
 }
 

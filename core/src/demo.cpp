@@ -60,15 +60,8 @@ Campaign make_demo_campaign(std::uint64_t seed) {
 
   c.rig = default_rig(2);
 
-  c.precision.budget = BudgetOptions{BudgetMethod::wilson, 0.01, 0.95, false};
+  set_usual_settings(c);
   c.nights.first_date = "2026-12-07";
-  c.nights.start_min = 20 * 60;
-  c.nights.end_min = 6 * 60;
-  c.nights.max_nights = 3;
-  c.schedule.reference_interval_min = 20.0;
-  c.schedule.dark_steps = true;
-  c.schedule.dark_dwell_s = 30.0;
-  c.schedule.park = true;
   return c;
 }
 

@@ -87,6 +87,17 @@ Rig resize_rig(const Rig& rig, int photons) {
   return out;
 }
 
+void set_usual_settings(Campaign& c) {
+  c.precision.budget = BudgetOptions{BudgetMethod::wilson, 0.01, 0.95, false};
+  c.nights.start_min = 20 * 60;
+  c.nights.end_min = 6 * 60;
+  c.nights.max_nights = 3;
+  c.schedule.reference_interval_min = 20.0;
+  c.schedule.dark_steps = true;
+  c.schedule.dark_dwell_s = 30.0;
+  c.schedule.park = true;
+}
+
 Campaign make_campaign_for_data(const DataSet& data, const NewCampaignOptions& options) {
   if (const std::string problem = validate(data); !problem.empty())
     throw std::invalid_argument("data: " + problem);
@@ -114,14 +125,7 @@ Campaign make_campaign_for_data(const DataSet& data, const NewCampaignOptions& o
   c.encoding = make_encoding(preset, photons, low, high, options.theta_span, options.phi_span);
   c.rig = options.rig ? *options.rig : default_rig(photons);
   if (options.rig && c.rig.check(photons) != "") c.rig = resize_rig(c.rig, photons);
-  c.precision.budget = BudgetOptions{BudgetMethod::wilson, 0.01, 0.95, false};
-  c.nights.start_min = 20 * 60;
-  c.nights.end_min = 6 * 60;
-  c.nights.max_nights = 3;
-  c.schedule.reference_interval_min = 20.0;
-  c.schedule.dark_steps = true;
-  c.schedule.dark_dwell_s = 30.0;
-  c.schedule.park = true;
+  set_usual_settings(c);
   if (const std::string problem = c.check_consistency(); !problem.empty())
     throw std::invalid_argument(problem);
   return c;

@@ -34,6 +34,11 @@ Rig default_rig(int photons);
 /// for a photon count outside 1 to 4.
 Rig resize_rig(const Rig& rig, int photons);
 
+/// The precision, nights and schedule settings the demo and new campaigns share: Wilson
+/// half-width 0.01 at 95 %, nights 20:00-06:00, at most 3, a reference every 20 min, dark steps
+/// of 30 s and a park step each night (the first date is left as it is).
+void set_usual_settings(Campaign& campaign);
+
 struct NewCampaignOptions {
   int photons = 0;                       ///< 0: the rig's photons when a rig is given, else 2
   std::optional<EncodingPreset> preset;  ///< absent: default_preset(D, P)
