@@ -139,6 +139,14 @@ EncodingMap encoding_for_photons(const EncodingMap& current, const DataSet& data
   const int d = data.feature_count();
   if (current.check(d).empty() && current.photon_count() == photons) return current;
   check_photons(photons);
+  if (d == 0) {
+    // No data yet: photons that read nothing, ready for the data to come.
+    EncodingMap empty;
+    empty.preset = current.preset;
+    empty.photons.assign(static_cast<size_t>(photons),
+                         PhotonEncoding{Eigen::VectorXd(), 0.0, Eigen::VectorXd(), 0.0});
+    return empty;
+  }
   Eigen::VectorXd low, high;
   feature_ranges(data.train, low, high);
   return make_encoding(default_preset(d, photons), photons, low, high, kNewThetaSpan, kNewPhiSpan);
