@@ -17,6 +17,7 @@
 #include "formats/bundle.h"
 #include "formats/rig_json.h"
 #include "gramline/new_campaign.h"
+#include "hand_off.h"
 #include "main_window.h"
 #include "margin_runner.h"
 #include "new_campaign_dialog.h"
