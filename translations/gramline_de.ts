@@ -4,7 +4,7 @@
 <context>
     <name>gramline::gui</name>
     <message>
-        <location filename="../app/gui/cautions.cpp" line="+17"/>
+        <location filename="../app/formats/cautions_text.cpp" line="+9"/>
         <source>Before you run a plan</source>
         <translation>Bevor Sie einen Plan ausführen</translation>
     </message>
@@ -14,7 +14,7 @@
         <translation>Gramline plant, wohin sich Wellenplatten drehen und wie lange Detektoren zählen. Es weiß nichts über Ihren Laser, Ihre Einhausung oder Ihr Gebäude. Ein Plan ist eine Liste von Motorpositionen und Zeiten, keine Erlaubnis, ihn auszuführen.</translation>
     </message>
     <message>
-        <location line="+3"/>
+        <location line="+6"/>
         <source>Laser safety</source>
         <translation>Lasersicherheit</translation>
     </message>
@@ -24,22 +24,22 @@
         <translation>Der Pumplaser, der die Photonenpaare erzeugt, ist meist weit stärker als die Paare selbst. Seine Klasse, sein Strahlengang und die nötige Schutzbrille richten sich nach Ihren örtlichen Laserschutzregeln, nicht nach diesem Programm.</translation>
     </message>
     <message>
-        <location line="+3"/>
+        <location line="+5"/>
         <source>Keep beam enclosures closed and interlocks working while motors turn; a rotating optic can send a stray reflection where none was before.</source>
         <translation>Halten Sie Strahleinhausungen geschlossen und Interlocks wirksam, solange Motoren drehen; eine drehende Optik kann einen Streureflex dorthin lenken, wo vorher keiner war.</translation>
     </message>
     <message>
-        <location line="+2"/>
+        <location line="+4"/>
         <source>Never defeat or bypass an interlock to let a plan run through.</source>
         <translation>Setzen Sie niemals ein Interlock außer Kraft und überbrücken Sie es nie, damit ein Plan durchläuft.</translation>
     </message>
     <message>
-        <location line="+1"/>
+        <location line="+2"/>
         <source>Ask your laser safety officer before changing the optical set-up to match a plan.</source>
         <translation>Fragen Sie Ihren Laserschutzbeauftragten, bevor Sie den optischen Aufbau an einen Plan anpassen.</translation>
     </message>
     <message>
-        <location line="+2"/>
+        <location line="+4"/>
         <source>Unattended overnight operation</source>
         <translation>Unbeaufsichtigter Betrieb über Nacht</translation>
     </message>
@@ -49,22 +49,22 @@
         <translation>Ein Nachtbetrieb ohne Person im Labor braucht die Genehmigung, die Ihre Einrichtung verlangt; viele Labore verlangen eine schriftliche Arbeitsanweisung und ein Schild an der Tür.</translation>
     </message>
     <message>
-        <location line="+2"/>
+        <location line="+4"/>
         <source>Check that the motors, controller and counting electronics stop safely on a power cut, a computer crash or an interlock trip, and that the laser shuts off with them.</source>
         <translation>Prüfen Sie, dass Motoren, Steuerung und Zählelektronik bei Stromausfall, Rechnerabsturz oder Auslösen eines Interlocks sicher anhalten und dass der Laser mit ihnen abschaltet.</translation>
     </message>
     <message>
-        <location line="+3"/>
+        <location line="+5"/>
         <source>Check the window end: the plan stops at the time you entered, but the laser does not stop by itself.</source>
         <translation>Prüfen Sie das Fensterende: Der Plan endet zur eingegebenen Zeit, der Laser aber schaltet sich nicht von selbst ab.</translation>
     </message>
     <message>
-        <location line="+2"/>
+        <location line="+3"/>
         <source>Leave contact details of the person responsible for the run where the night staff can see them.</source>
         <translation>Hinterlassen Sie die Kontaktdaten der für den Lauf verantwortlichen Person so, dass das Nachtpersonal sie sieht.</translation>
     </message>
     <message>
-        <location line="+2"/>
+        <location line="+5"/>
         <source>Local rules come first</source>
         <translation>Örtliche Regeln gehen vor</translation>
     </message>
@@ -74,7 +74,7 @@
         <translation>Wo diese Hinweise und Ihre örtlichen Regeln voneinander abweichen, folgen Sie Ihren örtlichen Regeln und Ihrem Laserschutzbeauftragten.</translation>
     </message>
     <message>
-        <location line="+8"/>
+        <location filename="../app/gui/cautions.cpp" line="+36"/>
         <source>Cautions</source>
         <translation>Sicherheitshinweise</translation>
     </message>
@@ -89,7 +89,7 @@
         <translation>Ich habe das gelesen</translation>
     </message>
     <message>
-        <location filename="../app/gui/gui_text.cpp" line="+15"/>
+        <location filename="../app/gui/gui_text.cpp" line="+18"/>
         <source>%1 s</source>
         <translation>%1 s</translation>
     </message>
@@ -104,7 +104,7 @@
         <translation>%1 h %2 min</translation>
     </message>
     <message>
-        <location line="+23"/>
+        <location line="+35"/>
         <source>measure</source>
         <translation>Messung</translation>
     </message>
@@ -225,8 +225,13 @@
     </message>
     <message>
         <location line="+2"/>
-        <source>two features on one photon, polar and azimuth</source>
-        <translation>zwei Merkmale auf einem Photon, Polar- und Azimutwinkel</translation>
+        <source>two features per photon, polar and azimuth</source>
+        <translation>zwei Merkmale je Photon, Polar- und Azimutwinkel</translation>
+    </message>
+    <message>
+        <location line="+2"/>
+        <source>features spread over the photons</source>
+        <translation>Merkmale über die Photonen verteilt</translation>
     </message>
     <message>
         <location line="+2"/>
@@ -234,7 +239,7 @@
         <translation>eigene Gewichte</translation>
     </message>
     <message>
-        <location filename="../app/gui/campaign_files.cpp" line="+27"/>
+        <location filename="../app/gui/campaign_files.cpp" line="+29"/>
         <source>Gramline campaign (*.json);;All files (*)</source>
         <translation>Gramline-Kampagne (*.json);;Alle Dateien (*)</translation>
     </message>
@@ -259,7 +264,7 @@
         <translation>%1: unerwarteter Fehler beim Einlesen</translation>
     </message>
     <message>
-        <location line="+20"/>
+        <location line="+24"/>
         <source>%1: unexpected error while planning the rest</source>
         <translation>%1: unerwarteter Fehler beim Planen des Rests</translation>
     </message>
@@ -290,7 +295,7 @@
         <translation>unbenannt</translation>
     </message>
     <message>
-        <location line="+15"/>
+        <location line="+21"/>
         <source>Cannot open campaign</source>
         <translation>Kampagne kann nicht geöffnet werden</translation>
     </message>
@@ -330,12 +335,12 @@
         <translation>Daten importieren</translation>
     </message>
     <message>
-        <location line="+11"/>
-        <source>The encoding was rebuilt for %1 features (one feature per photon).</source>
-        <translation>Die Kodierung wurde für %1 Merkmale neu aufgebaut (ein Merkmal pro Photon).</translation>
+        <location line="+8"/>
+        <source>The encoding was rebuilt for %1 features on the rig&apos;s %2 photon(s).</source>
+        <translation>Die Kodierung wurde für %1 Merkmale auf den %2 Photon(en) des Aufbaus neu erstellt.</translation>
     </message>
     <message>
-        <location line="+4"/>
+        <location line="+6"/>
         <source>Cannot import data</source>
         <translation>Daten können nicht importiert werden</translation>
     </message>
@@ -530,7 +535,7 @@
 <context>
     <name>gramline::gui::EncodingPage</name>
     <message>
-        <location filename="../app/gui/encoding_page.cpp" line="+24"/>
+        <location filename="../app/gui/encoding_page.cpp" line="+27"/>
         <source>Each photon&apos;s polarization state is set by the features: the polar angle θ and the azimuth φ on the Bloch sphere are affine in the features.</source>
         <translation>Der Polarisationszustand jedes Photons wird von den Merkmalen eingestellt: Polarwinkel θ und Azimut φ auf der Bloch-Kugel hängen affin von den Merkmalen ab.</translation>
     </message>
@@ -540,7 +545,7 @@
         <translation>Aus einer Vorlage erstellen</translation>
     </message>
     <message>
-        <location line="+7"/>
+        <location line="+8"/>
         <source>Encoding preset</source>
         <translation>Kodierungsvorlage</translation>
     </message>
@@ -620,12 +625,17 @@
         <translation>Aktuelle Abbildung (Grad pro Merkmalseinheit)</translation>
     </message>
     <message>
-        <location line="+5"/>
+        <location line="+3"/>
+        <source>Double-click a cell to edit it: weights are one number per feature, separated by semicolons; offsets are in degrees.</source>
+        <translation>Doppelklicken Sie eine Zelle, um sie zu bearbeiten: Gewichte sind eine Zahl je Merkmal, durch Semikolons getrennt; Versätze sind in Grad.</translation>
+    </message>
+    <message>
+        <location line="+13"/>
         <source>Encoding weights</source>
         <translation>Kodierungsgewichte</translation>
     </message>
     <message>
-        <location line="+17"/>
+        <location line="+24"/>
         <source>Photon</source>
         <translation>Photon</translation>
     </message>
@@ -650,7 +660,22 @@
         <translation>φ-Versatz</translation>
     </message>
     <message>
-        <location line="+21"/>
+        <location line="+42"/>
+        <source>%1: &apos;%2&apos; is not a list of finite numbers</source>
+        <translation>%1: „%2“ ist keine Liste endlicher Zahlen</translation>
+    </message>
+    <message>
+        <location line="+2"/>
+        <source>%1: %2 number(s) given, %3 expected (one per feature)</source>
+        <translation>%1: %2 Zahl(en) angegeben, %3 erwartet (eine je Merkmal)</translation>
+    </message>
+    <message>
+        <location line="+11"/>
+        <source>Edit %1</source>
+        <translation>%1 bearbeiten</translation>
+    </message>
+    <message>
+        <location line="+16"/>
         <source>No data</source>
         <translation>Keine Daten</translation>
     </message>
@@ -660,12 +685,12 @@
         <translation>Importieren oder laden Sie Daten, bevor Sie sie kodieren.</translation>
     </message>
     <message>
-        <location line="+10"/>
+        <location line="+13"/>
         <source>Apply encoding preset</source>
         <translation>Kodierungsvorlage anwenden</translation>
     </message>
     <message>
-        <location line="+2"/>
+        <location line="+5"/>
         <source>Preset does not fit</source>
         <translation>Vorlage passt nicht</translation>
     </message>
@@ -917,7 +942,7 @@
         <translation>%1 eingelesen: %2 von %3 Einträgen gemessen.</translation>
     </message>
     <message>
-        <location line="+10"/>
+        <location line="+9"/>
         <source>Resume: Choose the Bundle the Rig Ran</source>
         <translation>Fortsetzen: Bündel wählen, das der Aufbau ausgeführt hat</translation>
     </message>
@@ -986,6 +1011,32 @@
     </message>
     <message>
         <location line="+21"/>
+        <location line="+154"/>
+        <source>Resume: First Night of the Rest</source>
+        <translation>Fortsetzen: erste Nacht des Rests</translation>
+    </message>
+    <message>
+        <location line="+3"/>
+        <source>When can the rig measure again? The rest is laid on the nights from that date, leaving out the campaign&apos;s nights to skip.</source>
+        <translation>Wann kann der Aufbau wieder messen? Der Rest wird auf die Nächte ab diesem Datum gelegt, ohne die auszulassenden Nächte der Kampagne.</translation>
+    </message>
+    <message>
+        <location line="+5"/>
+        <source>The day after the last night counted</source>
+        <translation>Der Tag nach der letzten gezählten Nacht</translation>
+    </message>
+    <message>
+        <location line="+5"/>
+        <source>First night of the rest</source>
+        <translation>Erste Nacht des Rests</translation>
+    </message>
+    <message>
+        <location line="+4"/>
+        <source>First night</source>
+        <translation>Erste Nacht</translation>
+    </message>
+    <message>
+        <location line="+26"/>
         <source>Resume from Counts</source>
         <translation>Aus Zähldaten fortsetzen</translation>
     </message>
@@ -1239,7 +1290,7 @@
         <translation>&amp;Kampagnen-Editor anzeigen</translation>
     </message>
     <message>
-        <location line="+154"/>
+        <location line="+159"/>
         <source>Recomputing: the figures below belong to the campaign before your last edit.</source>
         <translation>Neuberechnung: Die Zahlen unten gehören zur Kampagne vor Ihrer letzten Änderung.</translation>
     </message>
@@ -1294,7 +1345,7 @@
         <translation>Margin-Prüfung: abgebrochen.</translation>
     </message>
     <message>
-        <location line="-132"/>
+        <location line="-137"/>
         <source>&amp;File</source>
         <translation>&amp;Datei</translation>
     </message>
@@ -1324,7 +1375,7 @@
         <translation>&amp;Neu</translation>
     </message>
     <message>
-        <location line="+5"/>
+        <location line="+10"/>
         <source>Open &amp;Demo</source>
         <translation>&amp;Demo öffnen</translation>
     </message>
@@ -1334,12 +1385,17 @@
         <translation>Ö&amp;ffnen…</translation>
     </message>
     <message>
-        <location line="-85"/>
+        <location line="-90"/>
         <source>Open &amp;Recent</source>
         <translation>&amp;Zuletzt geöffnet</translation>
     </message>
     <message>
-        <location line="+88"/>
+        <location line="+81"/>
+        <source>New Campaign from &amp;CSV…</source>
+        <translation>Neue Kampagne aus &amp;CSV…</translation>
+    </message>
+    <message>
+        <location line="+12"/>
         <source>&amp;Save</source>
         <translation>&amp;Speichern</translation>
     </message>
@@ -2121,9 +2177,83 @@ Bündel: %2</translation>
     </message>
 </context>
 <context>
+    <name>gramline::gui::NewCampaignDialog</name>
+    <message>
+        <location filename="../app/gui/new_campaign_dialog.cpp" line="+25"/>
+        <source>New Campaign from CSV</source>
+        <translation>Neue Kampagne aus CSV</translation>
+    </message>
+    <message>
+        <location line="+3"/>
+        <source>A campaign for your own data: the encoding puts any number of features on 1 to 4 photons, and the rig has four motors and one detector per photon, or comes from a rig file.</source>
+        <translation>Eine Kampagne für Ihre eigenen Daten: Die Kodierung legt beliebig viele Merkmale auf 1 bis 4 Photonen, und der Aufbau hat vier Motoren und einen Detektor je Photon oder kommt aus einer Aufbaudatei.</translation>
+    </message>
+    <message>
+        <location line="+11"/>
+        <source>none: a rig for the photons</source>
+        <translation>keine: ein Aufbau für die Photonen</translation>
+    </message>
+    <message>
+        <location line="+1"/>
+        <source>Browse…</source>
+        <translation>Durchsuchen…</translation>
+    </message>
+    <message>
+        <location line="+11"/>
+        <source>Data CSV</source>
+        <translation>Daten-CSV</translation>
+    </message>
+    <message>
+        <location line="+1"/>
+        <source>CSV files (*.csv);;All files (*)</source>
+        <translation>CSV-Dateien (*.csv);;Alle Dateien (*)</translation>
+    </message>
+    <message>
+        <location line="+1"/>
+        <source>Rig file</source>
+        <translation>Aufbaudatei</translation>
+    </message>
+    <message>
+        <location line="+1"/>
+        <source>Rig files (*.rig.json *.json);;All files (*)</source>
+        <translation>Aufbaudateien (*.rig.json *.json);;Alle Dateien (*)</translation>
+    </message>
+    <message>
+        <location line="+4"/>
+        <source>the rig file&apos;s, else 2</source>
+        <translation>die der Aufbaudatei, sonst 2</translation>
+    </message>
+    <message>
+        <location line="+1"/>
+        <location line="+1"/>
+        <source>Photons</source>
+        <translation>Photonen</translation>
+    </message>
+    <message>
+        <location line="+3"/>
+        <source>Encoding preset</source>
+        <translation>Kodierungsvorlage</translation>
+    </message>
+    <message>
+        <location line="+1"/>
+        <source>automatic (by features and photons)</source>
+        <translation>automatisch (nach Merkmalen und Photonen)</translation>
+    </message>
+    <message>
+        <location line="+4"/>
+        <source>Encoding</source>
+        <translation>Kodierung</translation>
+    </message>
+    <message>
+        <location line="+27"/>
+        <source>Choose the data CSV.</source>
+        <translation>Wählen Sie die Daten-CSV.</translation>
+    </message>
+</context>
+<context>
     <name>gramline::gui::NightsPage</name>
     <message>
-        <location filename="../app/gui/nights_page.cpp" line="+18"/>
+        <location filename="../app/gui/nights_page.cpp" line="+24"/>
         <source>When the lab is yours</source>
         <translation>Wann das Labor Ihnen gehört</translation>
     </message>
@@ -2164,9 +2294,45 @@ Bündel: %2</translation>
         <translation>Höchstzahl der Nächte, die die Kampagne dauern darf</translation>
     </message>
     <message>
-        <location line="+12"/>
-        <source>Each night&apos;s window lasts %1; a window whose close is not after its opening ends the next morning.</source>
-        <translation>Das Fenster jeder Nacht dauert %1; ein Fenster, dessen Ende nicht nach seinem Beginn liegt, endet am nächsten Morgen.</translation>
+        <location line="+9"/>
+        <source>Skip %1</source>
+        <translation>%1 auslassen</translation>
+    </message>
+    <message>
+        <location line="+4"/>
+        <source>Skip weekday</source>
+        <translation>Wochentag auslassen</translation>
+    </message>
+    <message>
+        <location line="+9"/>
+        <source>Weekdays to skip</source>
+        <translation>Auszulassende Wochentage</translation>
+    </message>
+    <message>
+        <location line="+3"/>
+        <source>e.g. 2026-12-24, 2026-12-25</source>
+        <translation>z. B. 2026-12-24, 2026-12-25</translation>
+    </message>
+    <message>
+        <location line="+1"/>
+        <location line="+1"/>
+        <source>Dates to skip</source>
+        <translation>Auszulassende Daten</translation>
+    </message>
+    <message>
+        <location line="+13"/>
+        <source>nights.skip_dates: &apos;%1&apos; is not a date YYYY-MM-DD</source>
+        <translation>nights.skip_dates: „%1“ ist kein Datum JJJJ-MM-TT</translation>
+    </message>
+    <message>
+        <location line="+8"/>
+        <source>Change dates to skip</source>
+        <translation>Auszulassende Daten ändern</translation>
+    </message>
+    <message>
+        <location line="+22"/>
+        <source>Each night&apos;s window lasts %1 of local wall-clock time; a window whose close is not after its opening ends the next morning. Every night opens at the same clock time, also across a daylight-saving change.</source>
+        <translation>Das Fenster jeder Nacht dauert %1 örtlicher Uhrzeit; ein Fenster, dessen Ende nicht nach seinem Beginn liegt, endet am nächsten Morgen. Jede Nacht beginnt zur selben Uhrzeit, auch über eine Zeitumstellung hinweg.</translation>
     </message>
 </context>
 <context>
@@ -2435,7 +2601,59 @@ Bündel: %2</translation>
 <context>
     <name>gramline::gui::RigPage</name>
     <message>
-        <location filename="../app/gui/rig_page.cpp" line="+23"/>
+        <location filename="../app/gui/rig_page.cpp" line="+31"/>
+        <location line="+3"/>
+        <source>Photons</source>
+        <translation>Photonen</translation>
+    </message>
+    <message>
+        <location line="+1"/>
+        <source>Photons of the rig (numbered from 0, letters A to D in the motor names); adding one adds its four motors and its detector</source>
+        <translation>Photonen des Aufbaus (ab 0 gezählt, Buchstaben A bis D in den Motornamen); ein neues Photon bringt seine vier Motoren und seinen Detektor mit</translation>
+    </message>
+    <message>
+        <location line="+8"/>
+        <source>Save Rig…</source>
+        <translation>Aufbau speichern…</translation>
+    </message>
+    <message>
+        <location line="+2"/>
+        <source>Save the motors, controller, source and detectors as a rig file</source>
+        <translation>Motoren, Steuerung, Quelle und Detektoren als Aufbaudatei speichern</translation>
+    </message>
+    <message>
+        <location line="+1"/>
+        <source>Load Rig…</source>
+        <translation>Aufbau laden…</translation>
+    </message>
+    <message>
+        <location line="+2"/>
+        <source>Replace the rig by a rig file; the encoding follows its photons</source>
+        <translation>Den Aufbau durch eine Aufbaudatei ersetzen; die Kodierung folgt ihren Photonen</translation>
+    </message>
+    <message>
+        <location line="+6"/>
+        <source>Save Rig</source>
+        <translation>Aufbau speichern</translation>
+    </message>
+    <message>
+        <location line="+1"/>
+        <location line="+11"/>
+        <source>Rig files (*.rig.json *.json);;All files (*)</source>
+        <translation>Aufbaudateien (*.rig.json *.json);;Alle Dateien (*)</translation>
+    </message>
+    <message>
+        <location line="-5"/>
+        <source>Cannot save the rig</source>
+        <translation>Der Aufbau kann nicht gespeichert werden</translation>
+    </message>
+    <message>
+        <location line="+5"/>
+        <source>Load Rig</source>
+        <translation>Aufbau laden</translation>
+    </message>
+    <message>
+        <location line="+5"/>
         <source>Motorized waveplates</source>
         <translation>Motorisierte Wellenplatten</translation>
     </message>
@@ -2576,9 +2794,19 @@ Bündel: %2</translation>
         <translation>Detektor %1 bearbeiten</translation>
     </message>
     <message>
-        <location line="+16"/>
-        <source>Photon %1</source>
-        <translation>Photon %1</translation>
+        <location line="+13"/>
+        <source>Load rig %1</source>
+        <translation>Aufbau %1 laden</translation>
+    </message>
+    <message>
+        <location line="+7"/>
+        <source>Cannot load the rig</source>
+        <translation>Der Aufbau kann nicht geladen werden</translation>
+    </message>
+    <message>
+        <location line="+12"/>
+        <source>Photon %1 (%2)</source>
+        <translation>Photon %1 (%2)</translation>
     </message>
 </context>
 <context>
@@ -3055,12 +3283,12 @@ Bündel: %2</translation>
         <translation>Fortschritt während</translation>
     </message>
     <message>
-        <location line="+28"/>
+        <location line="+27"/>
         <source>night %1 (%2)</source>
         <translation>Nacht %1 (%2)</translation>
     </message>
     <message>
-        <location line="+27"/>
+        <location line="+28"/>
         <source>Where each night&apos;s window goes (hours)</source>
         <translation>Wofür das Fenster jeder Nacht verwendet wird (Stunden)</translation>
     </message>

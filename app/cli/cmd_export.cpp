@@ -6,6 +6,7 @@
 #include "cli/commands.h"
 #include "cli/progress_line.h"
 #include "formats/bundle.h"
+#include "formats/cautions_text.h"
 #include "formats/input_error.h"
 #include "gramline/plan.h"
 
@@ -35,7 +36,11 @@ int run_export(const ExportRequest& request) {
   const formats::BundleWritten written = formats::write_bundle(campaign, plan, out, bundle);
   std::cout << "wrote the bundle " << request.out_path << " (" << written.entries.size()
             << " files, " << written.zip_bytes << " bytes; manifest SHA-256 "
-            << written.manifest_sha256 << ")\n";
+            << written.manifest_sha256 << ")\n"
+            << "bundle id " << written.bundle_id
+            << ": the rig's counts file names it in its first line '# bundle: " << written.bundle_id
+            << "'\n\n"
+            << formats::cautions_terminal_notice();
   return 0;
 }
 

@@ -27,6 +27,8 @@ int run_ingest(const IngestRequest& request) {
     ProgressLine progress("ingesting", 0.0);
     run = formats::ingest_counts(bundle, counts, progress.hooks());
   }
+  if (!run.bundle_warning.empty())
+    std::cerr << "gramline-cli ingest: warning: " << run.bundle_warning << "\n";
   std::cout << run.report();
   formats::write_ingest_files(run, out, overwrite);
   std::cout << "wrote";

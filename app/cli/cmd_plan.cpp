@@ -10,6 +10,7 @@
 #include "formats/input_error.h"
 #include "formats/plan_files.h"
 #include "gramline/demo.h"
+#include "gramline/new_campaign.h"
 #include "gramline/plan.h"
 
 namespace gramline::cli {
@@ -28,11 +29,21 @@ Campaign load_campaign_for_command(const std::string& campaign_path,
   Campaign campaign = formats::load_campaign(QString::fromStdString(campaign_path));
   if (data_path) {
     DataSet data = formats::read_data_csv(QString::fromStdString(*data_path));
-    const std::string refusal = campaign.encoding.check(data.feature_count());
-    if (!refusal.empty()) {
-      throw InputError(*data_path + ": " + std::to_string(data.feature_count()) +
-                       " feature columns, but the encoding of " + campaign_path +
-                       " does not accept them (" + refusal + ")");
+    if (!campaign.encoding.check(data.feature_count()).empty()) {
+      // Another number of features: keep the rig and its photons, spread the features over them
+      // (docs/conventions.md, "Encoding presets").
+      const std::string problem = validate(data);
+      if (!problem.empty()) throw InputError(*data_path + ": " + problem);
+      const int old_features = campaign.encoding.feature_count();
+      try {
+        campaign.encoding = encoding_for_features(campaign.encoding, data);
+      } catch (const std::invalid_argument& e) {
+        throw InputError(*data_path + ": " + e.what());
+      }
+      std::cerr << "gramline-cli: " << *data_path << " has " << data.feature_count()
+                << " feature(s), the encoding of " << campaign_path << " read " << old_features
+                << "; the features are spread over its " << campaign.encoding.photon_count()
+                << " photon(s) with the '" << to_string(campaign.encoding.preset) << "' preset\n";
     }
     campaign.data = std::move(data);
   }

@@ -5,6 +5,7 @@
 #include "cli/commands.h"
 #include "cli/progress_line.h"
 #include "formats/bundle.h"
+#include "formats/cautions_text.h"
 #include "formats/counts_csv.h"
 #include "formats/resume_run.h"
 
@@ -22,14 +23,19 @@ int run_resume(const ResumeRequest& request) {
   formats::ResumeRun run;
   {
     ProgressLine progress("planning the rest", kPlanProgressDelay_s);
-    run = formats::plan_resume(bundle, counts, progress.hooks());
+    formats::ResumeOptions options;
+    options.first_night = request.first_night.value_or("");
+    run = formats::plan_resume(bundle, counts, progress.hooks(), options);
   }
+  if (!run.bundle_warning.empty())
+    std::cerr << "gramline-cli resume: warning: " << run.bundle_warning << "\n";
   std::cout << run.report();
   const formats::BundleWritten written =
       formats::write_resumed_bundle(run, bundle, parent_path, out, overwrite);
   std::cout << "wrote the bundle " << request.out_path << " (" << written.entries.size()
             << " files; parent " << bundle.manifest_sha256.substr(0, 12) << "...; manifest SHA-256 "
-            << written.manifest_sha256 << ")\n";
+            << written.manifest_sha256 << "; bundle id " << written.bundle_id << ")\n\n"
+            << formats::cautions_terminal_notice();
   return 0;
 }
 

@@ -21,8 +21,7 @@ int run_simulate(const SimulateRequest& request) {
   options.seed = request.seed.value_or(bundle.manifest.seed);
   options.fade_per_hour = request.fade_per_hour;
   if (request.stop_after_hours) options.stop_after_s = *request.stop_after_hours * 3600.0;
-  const formats::SimulatedNight night =
-      formats::simulate_night(bundle, QFileInfo(bundle_path).fileName().toStdString(), options);
+  const formats::SimulatedNight night = formats::simulate_night(bundle, options);
   std::cout << night.report();
   formats::write_simulated_counts(night, out, overwrite);
   std::cout << "wrote the counts file " << request.out_path << " (" << night.records.size()

@@ -17,6 +17,15 @@ struct DemoRequest {
   bool force = false;                 ///< replace an existing out_path
 };
 
+struct NewRequest {
+  std::string data_path;
+  std::string out_path;
+  std::optional<int> photons;         ///< 1 to 4; absent: the rig file's, else 2
+  std::optional<std::string> preset;  ///< linear, polar-azimuth or spread; absent: by D and P
+  std::optional<std::string> rig_path;
+  bool force = false;
+};
+
 struct PlanRequest {
   std::string campaign_path;
   std::optional<std::string> data_path;
@@ -56,6 +65,7 @@ struct ResumeRequest {
   std::string counts_path;
   std::string out_path;
   bool force = false;
+  std::optional<std::string> first_night;  ///< YYYY-MM-DD; absent: the day after the last night
 };
 
 struct SimulateRequest {
@@ -69,6 +79,10 @@ struct SimulateRequest {
 
 int run_demo(const DemoRequest& request);
 int run_plan(const PlanRequest& request);
+/// A campaign for a data CSV (cmd_new.cpp).
+int run_new(const NewRequest& request);
+/// The preset an --encoding word names; throws formats::InputError for an unknown word.
+EncodingPreset preset_from_word(const std::string& word);
 /// The margin check (cmd_check.cpp).
 int run_check(const CheckRequest& request);
 /// Hand-off to the rig and back (cmd_export.cpp, cmd_ingest.cpp, cmd_resume.cpp).

@@ -34,7 +34,9 @@ const OptionEntry kOptions[] = {
     {"data", "CSV",
      "  --data CSV   replace the campaign's points: a header row, numeric feature columns, a\n"
      "               'label' column with two classes (-1/+1, or two names: the first one met is\n"
-     "               +1) and an optional 'set' column (train or test; default train)\n"},
+     "               +1) and an optional 'set' column (train or test; default train); with\n"
+     "               another number of features the rig and its photons stay and the\n"
+     "               features are spread over them\n"},
     {"seed", "N", "  --seed N     seed of the random choices (default: the campaign's seed)\n"},
     {"trials", "N", "  --trials N   simulated repetitions of the margin check\n"},
     {"fade-per-hour", "F",
@@ -48,6 +50,17 @@ const OptionEntry kOptions[] = {
     {"out", "PATH",
      "  --out        output file (demo, check, export, resume, simulate) or directory (plan,\n"
      "               ingest)\n"},
+    {"photons", "P",
+     "  --photons P  photons of the new campaign, 1 to 4 (default: the rig file's, else 2)\n"},
+    {"encoding", "PRESET",
+     "  --encoding PRESET\n"
+     "               linear (one feature per photon), polar-azimuth (two per photon) or\n"
+     "               spread (any number over the photons); default by features and photons\n"},
+    {"rig", "RIG", "  --rig RIG    a rig file to build the campaign on\n"},
+    {"first-night", "YYYY-MM-DD",
+     "  --first-night YYYY-MM-DD\n"
+     "               date of the resumed bundle's first night (default: the day after the\n"
+     "               last night counted)\n"},
     {"force", "",
      "  --force      replace existing output files (otherwise they are left untouched)\n"},
 };
@@ -79,6 +92,12 @@ const std::vector<CommandEntry>& commands() {
        "eight motors) to FILE.\n",
        {"out", "seed", "force"},
        "the campaign file to write"},
+      {"new",
+       "new --data CSV --out CAMPAIGN [--photons P] [--encoding PRESET] [--rig RIG] [--force]",
+       "Write a campaign for your own data: an encoding for any number of features on 1 to 4\n"
+       "photons and a rig of four motors and one detector per photon (or the rig file).\n",
+       {"data", "out", "photons", "encoding", "rig", "force"},
+       "the campaign file to write"},
       {"plan",
        "plan CAMPAIGN [--data CSV] [--out DIR] [--seed N] [--force]",
        "Plan the campaign: settings, their order, pairs and dwell times, nights. Prints a\n"
@@ -106,10 +125,10 @@ const std::vector<CommandEntry>& commands() {
        {"out", "force"},
        "the folder for the results (created if needed)"},
       {"resume",
-       "resume BUNDLE COUNTS --out FILE.zip [--force]",
+       "resume BUNDLE COUNTS --out FILE.zip [--first-night YYYY-MM-DD] [--force]",
        "Keep what the counts file measured and plan the rest from where the motors stopped;\n"
        "the new bundle names its parent.\n",
-       {"out", "force"},
+       {"out", "first-night", "force"},
        "the new bundle (a zip file) to write"},
       {"simulate",
        "simulate BUNDLE --out COUNTS [--seed N] [--fade-per-hour F] [--stop-after-hours H]\n"
@@ -365,6 +384,23 @@ int dispatch(const QStringList& argv) {
     request.force = line.flag("force");
     return gramline::cli::run_demo(request);
   }
+  if (name == "new") {
+    line.positional(0, "");
+    gramline::cli::NewRequest request;
+    request.data_path = line.required("data", "CSV");
+    request.out_path = line.required("out", "CAMPAIGN");
+    if (auto photons = line.value("photons")) {
+      request.photons = whole_number<int>(name, "--photons", *photons, 1);
+      if (*request.photons > 4)
+        throw InputError("gramline-cli new: option --photons: " + *photons +
+                         " photons; 1 to 4 are supported");
+    }
+    request.preset = line.value("encoding");
+    if (request.preset) gramline::cli::preset_from_word(*request.preset);
+    request.rig_path = line.value("rig");
+    request.force = line.flag("force");
+    return gramline::cli::run_new(request);
+  }
   if (name == "plan") {
     gramline::cli::PlanRequest request;
     request.campaign_path = line.positional(1, "the campaign file")[0];
@@ -415,7 +451,9 @@ int dispatch(const QStringList& argv) {
   if (name == "ingest") {
     return gramline::cli::run_ingest({inputs[0], inputs[1], line.required("out", "DIR"), force});
   }
-  return gramline::cli::run_resume({inputs[0], inputs[1], line.required("out", "FILE.zip"), force});
+  gramline::cli::ResumeRequest resume{inputs[0], inputs[1], line.required("out", "FILE.zip"), force,
+                                      line.value("first-night")};
+  return gramline::cli::run_resume(resume);
 }
 
 }  // namespace

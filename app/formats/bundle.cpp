@@ -12,12 +12,14 @@
 #include <QJsonArray>
 #include <QJsonDocument>
 #include <QJsonObject>
+#include <QRandomGenerator>
 #include <algorithm>
 #include <cmath>
 #include <set>
 #include <stdexcept>
 
 #include "formats/campaign_json.h"
+#include "formats/cautions_text.h"
 #include "formats/data_csv.h"
 #include "formats/input_error.h"
 #include "formats/json_field.h"
@@ -43,7 +45,18 @@ std::string sha256_hex(std::string_view bytes) {
   return digest.toHex().toStdString();
 }
 
-std::map<std::string, std::string> bundle_entries(const Campaign& campaign, const Plan& plan) {
+std::string new_bundle_id() {
+  static const char kHex[] = "0123456789abcdef";
+  std::string id;
+  for (int word = 0; word < 4; ++word) {
+    const quint32 bits = QRandomGenerator::system()->generate();
+    for (int nibble = 7; nibble >= 0; --nibble) id += kHex[(bits >> (4 * nibble)) & 0xF];
+  }
+  return id;
+}
+
+std::map<std::string, std::string> bundle_entries(const Campaign& campaign, const Plan& plan,
+                                                  const ResumeSummary* resume) {
   std::map<std::string, std::string> e;
   e[kCampaignEntry] = format_campaign(campaign);
   e[kDataEntry] = format_data_csv(campaign.data);
@@ -51,7 +64,8 @@ std::map<std::string, std::string> bundle_entries(const Campaign& campaign, cons
   e[kStepsCsvEntry] = format_steps_csv(campaign.rig, plan.steps);
   e[kSummaryJsonEntry] = format_summary_json(campaign, plan);
   e[kKernelEntry] = format_kernel_csv(plan.kernel_train);
-  e[kSummaryHtmlEntry] = format_summary_html(campaign, plan);
+  e[kSummaryHtmlEntry] = format_summary_html(campaign, plan, resume);
+  e[kCautionsEntry] = cautions_plain_text();
   return e;
 }
 
@@ -71,15 +85,17 @@ std::string format_manifest(const std::map<std::string, std::string>& entries, s
                          {"manifest_sha256", q(options.parent->manifest_sha256)}};
   }
   // The seed is text: a 64-bit seed does not fit a JSON number exactly.
-  const QJsonObject o{{"format", kBundleFormat},
-                      {"version", kBundleVersion},
-                      {"tool", "gramline"},
-                      {"tool_version", GRAMLINE_VERSION},
-                      {"created_utc", q(utc_text(created))},
-                      {"conventions", q(steps_conventions_text())},
-                      {"seed", q(std::to_string(seed))},
-                      {"parent", parent},
-                      {"files", files}};
+  const QJsonObject o{
+      {"format", kBundleFormat},
+      {"version", kBundleVersion},
+      {"bundle_id", q(options.bundle_id.empty() ? new_bundle_id() : options.bundle_id)},
+      {"tool", "gramline"},
+      {"tool_version", GRAMLINE_VERSION},
+      {"created_utc", q(utc_text(created))},
+      {"conventions", q(steps_conventions_text())},
+      {"seed", q(std::to_string(seed))},
+      {"parent", parent},
+      {"files", files}};
   const QByteArray text = QJsonDocument(o).toJson(QJsonDocument::Indented);
   return std::string(text.constData(), static_cast<size_t>(text.size()));
 }
@@ -115,7 +131,8 @@ BundleWritten write_bundle(const Campaign& campaign, const Plan& plan, const QSt
                            const BundleWriteOptions& options) {
   // Refuse before any work, so a refused export costs nothing.
   refuse_existing(path, options.overwrite);
-  std::map<std::string, std::string> entries = bundle_entries(campaign, plan);
+  std::map<std::string, std::string> entries =
+      bundle_entries(campaign, plan, options.resume ? &*options.resume : nullptr);
   for (const auto& [name, bytes] : options.extra_entries) {
     if (!is_safe_entry_name(name) || name == kManifestEntry)
       throw std::invalid_argument("write_bundle: unusable entry name " + name);
@@ -123,11 +140,13 @@ BundleWritten write_bundle(const Campaign& campaign, const Plan& plan, const QSt
   }
   BundleWriteOptions o = options;
   if (!o.created_utc.isValid()) o.created_utc = QDateTime::currentDateTimeUtc();
+  if (o.bundle_id.empty()) o.bundle_id = new_bundle_id();
   const std::string manifest = format_manifest(entries, campaign.seed, o);
   entries[kManifestEntry] = manifest;
   const std::string zip = zip_entries(entries, o.created_utc);
   save_atomically(path, zip, options.overwrite);
   BundleWritten w;
+  w.bundle_id = o.bundle_id;
   w.manifest_sha256 = sha256_hex(manifest);
   for (const auto& [name, bytes] : entries) w.entries.push_back(name);
   w.zip_bytes = static_cast<std::int64_t>(zip.size());
@@ -232,6 +251,14 @@ BundleManifest parse_manifest(const std::string& bytes, const std::string& file)
     root["version"].fail("version " + std::to_string(version) +
                          " is newer than this Gramline reads (" + std::to_string(kBundleVersion) +
                          ")");
+  if (root.has("bundle_id")) {
+    m.bundle_id = root["bundle_id"].text();
+    const bool hex =
+        m.bundle_id.size() == 32 && std::all_of(m.bundle_id.begin(), m.bundle_id.end(), [](char c) {
+          return (c >= '0' && c <= '9') || (c >= 'a' && c <= 'f');
+        });
+    if (!hex) root["bundle_id"].fail("'" + m.bundle_id.substr(0, 40) + "' is not 32 hex digits");
+  }
   m.tool_version = root["tool_version"].text();
   m.created_utc = root["created_utc"].text();
   m.conventions = root["conventions"].text();
@@ -363,6 +390,24 @@ Bundle read_bundle(const QString& path, const BundleReadLimits& limits) {
     throw InputError(path_text(path) + ": larger than the bundle limit of " +
                      std::to_string(limits.total_bytes) + " bytes");
   return parse_bundle(read_whole_file(path), path_text(path), limits);
+}
+
+std::string check_counts_bundle(const Bundle& bundle, const CountsFile& counts) {
+  const std::string& ours = bundle.manifest.bundle_id;
+  if (counts.bundle_id.empty()) {
+    return counts.source + ": the file names no bundle (no first line '# bundle: <id>'); it is " +
+           "read as counts of " + bundle.source +
+           (ours.empty() ? std::string() : " (bundle " + ours + ")");
+  }
+  if (ours.empty()) {
+    return bundle.source + ": the bundle carries no bundle_id (written by an older Gramline); " +
+           "the counts file's '# bundle: " + counts.bundle_id + "' cannot be checked";
+  }
+  if (counts.bundle_id != ours)
+    throw InputError(counts.source + ": line 1: the counts answer bundle " + counts.bundle_id +
+                     ", but " + bundle.source + " is bundle " + ours +
+                     "; counts of another bundle are refused");
+  return {};
 }
 
 Plan plan_from_bundle(const Bundle& bundle) {

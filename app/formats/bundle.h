@@ -3,13 +3,15 @@
 // need, with a manifest that fixes the SHA-256 of every other file so tampering is noticed.
 //
 // Entries (flat, no folders):
-//   manifest.json   {"format": "gramline-bundle", "version": 1, "tool_version", "created_utc",
-//                    "conventions", "seed", "parent": null | {"file", "manifest_sha256"},
+//   manifest.json   {"format": "gramline-bundle", "version": 1, "bundle_id", "tool_version",
+//                    "created_utc", "conventions", "seed",
+//                    "parent": null | {"file", "manifest_sha256"},
 //                    "files": [{"name", "bytes", "sha256"}, ...]}
 //   campaign.json   the campaign as planned (points inline, seed applied)
 //   data.csv        its points in the data CSV format
 //   steps.json, steps.csv, summary.json, kernel.csv   as `plan --out` (docs/plan-files.md)
 //   summary.html    printable summary with the timeline, Gram error maps and cautions
+//   CAUTIONS.txt    the cautions in plain text, for whoever runs the rig
 //   resumed bundles also: measured_steps.json and measured_counts.csv (what earlier bundles
 //   measured, counts renumbered onto those steps) and resume.json (where the motors stopped)
 #include <QDateTime>
@@ -24,6 +26,7 @@
 #include "formats/atomic_file.h"
 #include "formats/counts_csv.h"
 #include "formats/plan_files.h"
+#include "formats/report_html.h"
 #include "gramline/campaign.h"
 #include "gramline/plan.h"
 
@@ -42,6 +45,7 @@ inline constexpr const char* kSummaryHtmlEntry = "summary.html";
 inline constexpr const char* kMeasuredStepsEntry = "measured_steps.json";
 inline constexpr const char* kMeasuredCountsEntry = "measured_counts.csv";
 inline constexpr const char* kResumeEntry = "resume.json";
+inline constexpr const char* kCautionsEntry = "CAUTIONS.txt";
 
 /// Largest uncompressed entry a bundle reader accepts (declared and actually read).
 inline constexpr std::int64_t kBundleEntryLimitBytes = std::int64_t{512} << 20;
@@ -62,16 +66,26 @@ struct BundleWriteOptions {
   std::map<std::string, std::string> extra_entries;
   /// Creation time written in the manifest; invalid: now.
   QDateTime created_utc;
+  /// The bundle's identity (32 lowercase hex digits); empty: new_bundle_id().
+  std::string bundle_id;
+  /// A resumed bundle: what was measured before, for summary.html (docs/plan-files.md).
+  std::optional<ResumeSummary> resume;
 };
 
+/// 32 random lowercase hexadecimal digits (128 bits from the system's random source).
+std::string new_bundle_id();
+
 struct BundleWritten {
+  std::string bundle_id;
   std::string manifest_sha256;
   std::vector<std::string> entries;  ///< every entry, manifest included
   std::int64_t zip_bytes = 0;
 };
 
-/// The entries of a bundle for a planned campaign (manifest excluded).
-std::map<std::string, std::string> bundle_entries(const Campaign& campaign, const Plan& plan);
+/// The entries of a bundle for a planned campaign (manifest excluded). `resume` describes a
+/// resumed bundle's history for summary.html.
+std::map<std::string, std::string> bundle_entries(const Campaign& campaign, const Plan& plan,
+                                                  const ResumeSummary* resume = nullptr);
 
 /// manifest.json text for `entries` (which must not include the manifest).
 std::string format_manifest(const std::map<std::string, std::string>& entries, std::uint64_t seed,
@@ -112,6 +126,7 @@ struct ManifestFile {
 };
 
 struct BundleManifest {
+  std::string bundle_id;  ///< empty for bundles written before bundles carried one
   std::string tool_version;
   std::string created_utc;
   std::string conventions;
@@ -144,6 +159,11 @@ struct Bundle {
 Bundle parse_bundle(const std::string& zip_bytes, const std::string& source,
                     const BundleReadLimits& limits = {});
 Bundle read_bundle(const QString& path, const BundleReadLimits& limits = {});
+
+/// Whether `counts` answer `bundle`: throws InputError naming both ids when the counts file
+/// names another bundle. Returns a warning when the counts file names no bundle (a file written
+/// before counts files named their bundle; it is read), else an empty string.
+std::string check_counts_bundle(const Bundle& bundle, const CountsFile& counts);
 
 /// gramline::plan_from_steps (plan.h) of the bundle's campaign and steps.json.
 Plan plan_from_bundle(const Bundle& bundle);

@@ -5,6 +5,7 @@
 #include <QJsonDocument>
 #include <cstdio>
 #include <limits>
+#include <set>
 
 #include "formats/json_field.h"
 #include "formats/rig_json.h"
@@ -57,23 +58,6 @@ QJsonObject encoding_to_json(const EncodingMap& encoding) {
   return QJsonObject{{"preset", q(to_string(encoding.preset))}, {"photons", photons}};
 }
 
-QJsonObject rig_to_json(const Rig& rig) {
-  QJsonArray motors;
-  for (const Motor& m : rig.motors) motors.append(motor_to_json(m));
-  QJsonArray detectors;
-  for (const Detector& d : rig.detectors) {
-    detectors.append(
-        QJsonObject{{"efficiency", d.efficiency}, {"dark_rate_per_s", d.dark_rate_per_s}});
-  }
-  return QJsonObject{{"motors", motors},
-                     {"controller", controller_to_json(rig.controller)},
-                     {"source", QJsonObject{{"pair_rate_per_s", rig.source.pair_rate_per_s},
-                                            {"visibility", rig.source.visibility}}},
-                     {"detectors", detectors},
-                     {"coincidence_window_s", rig.coincidence_window_s},
-                     {"scheme", q(to_string(rig.scheme))}};
-}
-
 DataSet data_from_json(const JsonField& f) {
   DataSet data;
   for (const JsonField& n : f["feature_names"].items()) data.feature_names.push_back(n.text());
@@ -121,9 +105,9 @@ Eigen::VectorXd vector_from(const JsonField& f) {
 
 EncodingMap encoding_from_json(const JsonField& f) {
   EncodingMap encoding;
-  encoding.preset =
-      f["preset"].choice({EncodingPreset::one_feature_per_photon_linear,
-                          EncodingPreset::two_features_polar_azimuth, EncodingPreset::custom});
+  encoding.preset = f["preset"].choice({EncodingPreset::one_feature_per_photon_linear,
+                                        EncodingPreset::two_features_polar_azimuth,
+                                        EncodingPreset::spread, EncodingPreset::custom});
   for (const JsonField& p : f["photons"].items()) {
     PhotonEncoding e;
     e.theta_weights_deg = vector_from(p["theta_weights_deg_per_unit"]);
@@ -135,21 +119,6 @@ EncodingMap encoding_from_json(const JsonField& f) {
   return encoding;
 }
 
-Rig rig_from_json(const JsonField& f) {
-  Rig rig;
-  for (const JsonField& m : f["motors"].items()) rig.motors.push_back(motor_from_json(m));
-  rig.controller = controller_from_json(f["controller"]);
-  const JsonField s = f["source"];
-  rig.source.pair_rate_per_s = s["pair_rate_per_s"].number();
-  rig.source.visibility = s["visibility"].number();
-  for (const JsonField& d : f["detectors"].items()) {
-    rig.detectors.push_back(Detector{d["efficiency"].number(), d["dark_rate_per_s"].number()});
-  }
-  rig.coincidence_window_s = f["coincidence_window_s"].number();
-  rig.scheme = f["scheme"].choice({DetectionScheme::pass_only, DetectionScheme::both_ports});
-  return rig;
-}
-
 std::string clock_of(const JsonField& f) {
   const std::string text = f.text();
   int minutes = 0;
@@ -158,6 +127,18 @@ std::string clock_of(const JsonField& f) {
 }
 
 }  // namespace
+
+std::string weekday_name(int iso_day) {
+  static const char* const kNames[] = {"Monday", "Tuesday",  "Wednesday", "Thursday",
+                                       "Friday", "Saturday", "Sunday"};
+  return iso_day >= 1 && iso_day <= 7 ? kNames[iso_day - 1] : "";
+}
+
+int weekday_number(const std::string& name) {
+  for (int d = 1; d <= 7; ++d)
+    if (weekday_name(d) == name) return d;
+  return 0;
+}
 
 std::string clock_text(int minutes) {
   char buffer[16];
@@ -198,10 +179,22 @@ QJsonObject campaign_to_json(const Campaign& c) {
                                {"worst_case", b.worst_case},
                                {"fixed_pairs", c.precision.fixed_pairs},
                                {"allocation", q(to_string(c.precision.allocation))}};
-  o["nights"] = QJsonObject{{"first_date", q(c.nights.first_date)},
-                            {"start", q(clock_text(c.nights.start_min))},
-                            {"end", q(clock_text(c.nights.end_min))},
-                            {"max_nights", c.nights.max_nights}};
+  QJsonObject nights{{"first_date", q(c.nights.first_date)},
+                     {"start", q(clock_text(c.nights.start_min))},
+                     {"end", q(clock_text(c.nights.end_min))},
+                     {"max_nights", c.nights.max_nights}};
+  // The calendar keys are optional; a campaign without skips keeps the version-1 layout.
+  if (!c.nights.skip_dates.empty()) {
+    QJsonArray dates;
+    for (const std::string& d : c.nights.skip_dates) dates.append(q(d));
+    nights["skip_dates"] = dates;
+  }
+  if (!c.nights.skip_weekdays.empty()) {
+    QJsonArray days;
+    for (int d : c.nights.skip_weekdays) days.append(q(weekday_name(d)));
+    nights["skip_weekdays"] = days;
+  }
+  o["nights"] = nights;
   const ScheduleSettings& s = c.schedule;
   o["schedule"] = QJsonObject{{"reference_interval_min", s.reference_interval_min},
                               {"reference_pairs", s.reference_pairs},
@@ -286,6 +279,25 @@ Campaign campaign_from_json(const QJsonObject& object, const std::string& file) 
   parse_clock(clock_of(n["start"]), c.nights.start_min);
   parse_clock(clock_of(n["end"]), c.nights.end_min);
   c.nights.max_nights = static_cast<int>(n["max_nights"].integer(1, 100000));
+  if (n.has("skip_dates")) {
+    for (const JsonField& d : n["skip_dates"].items()) {
+      long day = 0;
+      const std::string text = d.text();
+      if (!parse_civil_date(text, day)) d.fail("'" + text + "' is not a date YYYY-MM-DD");
+      c.nights.skip_dates.push_back(text);
+    }
+  }
+  if (n.has("skip_weekdays")) {
+    for (const JsonField& d : n["skip_weekdays"].items()) {
+      const std::string text = d.text();
+      const int day = weekday_number(text);
+      if (day == 0) d.fail("'" + text + "' is not a weekday (Monday ... Sunday)");
+      c.nights.skip_weekdays.push_back(day);
+    }
+    if (c.nights.skip_weekdays.size() >= 7 &&
+        std::set<int>(c.nights.skip_weekdays.begin(), c.nights.skip_weekdays.end()).size() == 7)
+      n["skip_weekdays"].fail("every weekday is skipped; no night is left");
+  }
 
   if (root.has("schedule")) {
     const JsonField s = root["schedule"];

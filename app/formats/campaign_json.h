@@ -33,6 +33,11 @@ Campaign load_campaign(const QString& path);
 /// Saves atomically (QSaveFile). Throws InputError when the file cannot be written.
 void save_campaign(const Campaign& campaign, const QString& path);
 
+/// English name of an ISO weekday (1 = "Monday" ... 7 = "Sunday"), as the campaign file writes
+/// it; empty outside 1..7. weekday_number is the inverse (0 for an unknown name).
+std::string weekday_name(int iso_day);
+int weekday_number(const std::string& name);
+
 /// "HH:MM" for minutes after midnight, and back (false unless 00:00..23:59).
 std::string clock_text(int minutes);
 bool parse_clock(const std::string& text, int& minutes);

@@ -227,6 +227,7 @@ CountsFile parse_counts_csv(const std::string& text, const std::string& source,
     throw InputError(source + ": the campaign's detection layout is not usable for counts");
   CountsFile out;
   out.source = source;
+  out.bundle_id = counts_bundle_line(text);
   Parser parser(source, layout);
   bool have_header = false;
   int line = 0;
@@ -259,6 +260,16 @@ CountsFile parse_counts_csv(const std::string& text, const std::string& source,
   if (!have_header) throw InputError(source + ": no header row (the file is empty)");
   out.has_singles_columns = parser.has_singles();
   return out;
+}
+
+std::string counts_bundle_line(std::string_view text) {
+  if (text.size() >= 3 && text.substr(0, 3) == "\xEF\xBB\xBF") text.remove_prefix(3);
+  std::string_view first = text.substr(0, text.find('\n'));
+  if (!first.empty() && first.back() == '\r') first.remove_suffix(1);
+  first = trim(first);
+  constexpr std::string_view kPrefix = "# bundle:";
+  if (first.substr(0, kPrefix.size()) != kPrefix) return {};
+  return std::string(trim(first.substr(kPrefix.size())));
 }
 
 CountsFile read_counts_csv(const QString& path, const CountsLayout& layout) {
@@ -332,10 +343,10 @@ std::string simulated_counts_text(const std::string& simulated_note) {
 
 std::string format_counts_csv(const std::vector<StepRecord>& records,
                               const std::vector<Step>& steps, const CountsLayout& layout,
-                              const std::string& simulated_note) {
+                              const std::string& bundle_id, const std::string& simulated_note) {
   const bool singles = std::any_of(records.begin(), records.end(),
                                    [](const StepRecord& r) { return !r.singles_per_s.empty(); });
-  std::string out;
+  std::string out = bundle_id.empty() ? std::string() : "# bundle: " + bundle_id + "\n";
   if (!simulated_note.empty()) out += std::string(kSimulatedMark) + " " + simulated_note + "\n";
   out += "step,kind,start_s,end_s";
   for (int k = 0; k < layout.channels; ++k) out += ",ch" + std::to_string(k);

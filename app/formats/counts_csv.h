@@ -5,6 +5,7 @@
 // channel and, optionally, the singles rate of every photon's pass-port detector.
 #include <QString>
 #include <string>
+#include <string_view>
 #include <vector>
 
 #include "gramline/campaign.h"
@@ -34,7 +35,8 @@ struct CountsRow {
 inline constexpr const char* kSimulatedMark = "# simulated:";
 
 struct CountsFile {
-  std::string source;  ///< file name used in messages
+  std::string source;     ///< file name used in messages
+  std::string bundle_id;  ///< from a first line "# bundle: <id>"; empty when the file has none
   std::vector<CountsRow> rows;
   bool has_singles_columns = false;
   /// Simulated counts: what follows kSimulatedMark, trimmed (never empty for a marked file).
@@ -76,9 +78,15 @@ struct CountsCheck {
 CountsCheck check_counts(const CountsFile& counts, const std::vector<Step>& steps);
 
 /// Counts CSV text for `records` (writer of the format; used by tests and simulations). With a
-/// `simulated_note`, the kSimulatedMark line comes first, before the header.
+/// `bundle_id` the first line is "# bundle: <bundle_id>"; with a `simulated_note`, the
+/// kSimulatedMark line follows it, before the header.
 std::string format_counts_csv(const std::vector<StepRecord>& records,
                               const std::vector<Step>& steps, const CountsLayout& layout,
+                              const std::string& bundle_id = {},
                               const std::string& simulated_note = {});
+
+/// The bundle a counts file answers, from its first line "# bundle: <id>" (surrounding spaces
+/// ignored); empty when the first line is not of that form.
+std::string counts_bundle_line(std::string_view text);
 
 }  // namespace gramline::formats

@@ -53,6 +53,7 @@ IngestRun ingest_counts(const Bundle& bundle, const CountsFile& counts, const Wo
   run.manifest_sha256 = bundle.manifest_sha256;
   run.simulated_note = counts.simulated_note;
   run.earlier_simulated_note = bundle.measured_simulated_note;
+  run.bundle_warning = check_counts_bundle(bundle, counts);
   run.check = check_counts(counts, bundle.steps.steps);
   if (!run.check.consistent())
     throw InputError(run.check.report() + counts.source + ": the counts do not fit the steps of " +
@@ -93,6 +94,7 @@ std::string IngestRun::report() const {
   o << "Bundle " << bundle_source << ", counts " << counts_source << "\n";
   if (!simulated_note.empty())
     o << "These are " << simulated_counts_text(simulated_note) << ", not a rig's\n";
+  if (!bundle_warning.empty()) o << "warning: " << bundle_warning << "\n";
   if (earlier_steps > 0)
     o << earlier_steps << " steps carried from earlier bundles are ingested with these counts"
       << (earlier_simulated_note.empty()

@@ -30,11 +30,13 @@ struct IngestRun : MeasuredClassifier {
   /// that of the counts carried from earlier bundles.
   std::string simulated_note;
   std::string earlier_simulated_note;
+  std::string bundle_warning;  ///< check_counts_bundle's warning (counts naming no bundle)
   IngestResult result;
   std::string report() const;
 };
 
-/// Ingests `counts` for `bundle`. Throws InputError listing every extra, duplicated and
+/// Ingests `counts` for `bundle`. Throws InputError naming both ids when the counts answer
+/// another bundle (check_counts_bundle); throws InputError listing every extra, duplicated and
 /// kind-mismatched row (file, line, column) when the counts do not fit the bundle's steps;
 /// missing steps are allowed (a partial night) and reported. `hooks` hears the fraction done.
 IngestRun ingest_counts(const Bundle& bundle, const CountsFile& counts,

@@ -6,6 +6,8 @@
 #include <map>
 #include <sstream>
 
+#include "formats/cautions_text.h"
+
 namespace gramline::formats {
 namespace {
 
@@ -79,19 +81,14 @@ std::string html_escape(const std::string& text) {
 }
 
 std::string safety_cautions_text() {
-  return "Laser safety. The photon-pair source is pumped by a laser. Whoever runs this plan "
-         "follows the laser safety rules of the site where the rig stands, and the local laser "
-         "safety officer's instructions take precedence over anything in this summary. Wear the "
-         "eyewear specified for the pump wavelength and power whenever beams are exposed.\n\n"
-         "Interlocks. This plan moves motors and counts photons; it neither checks nor replaces "
-         "the laboratory's interlocks, shutters or warning lights. Never bypass an interlock to "
-         "let a plan run.\n\n"
-         "Unattended operation. The plan runs for hours over one or more nights. Running a laser "
-         "without anyone present is allowed only where the local rules and the laser safety "
-         "officer explicitly permit it, with the enclosure closed and the agreed monitoring in "
-         "place. If in doubt, do not leave the rig running alone.\n\n"
-         "Equipment. Check motor travel limits and cabling before the first move; the motion "
-         "model assumes the limits entered in the campaign are right.";
+  // The one text of the cautions (cautions_text.cpp), a paragraph per line.
+  std::string out;
+  for (const CautionSection& section : caution_sections()) {
+    if (!out.empty()) out += "\n\n";
+    out += section.heading;
+    for (const char* p : section.paragraphs) out += std::string("\n\n") + p;
+  }
+  return out;
 }
 
 std::string heatmap_svg(const Eigen::MatrixXd& values, const std::string& title, int max_cells) {
@@ -219,7 +216,8 @@ std::string timeline_svg(const Plan& plan, double night_length_s) {
   return o.str();
 }
 
-std::string format_summary_html(const Campaign& campaign, const Plan& plan) {
+std::string format_summary_html(const Campaign& campaign, const Plan& plan,
+                                const ResumeSummary* resume) {
   const PlanSummary& s = plan.summary;
   std::ostringstream o;
   o << "<!DOCTYPE html>\n<html lang=\"en\"><head><meta charset=\"utf-8\">\n<title>"
@@ -235,6 +233,15 @@ std::string format_summary_html(const Campaign& campaign, const Plan& plan) {
     << " test points on " << campaign.encoding.photon_count() << " photon(s); detection "
     << to_string(campaign.rig.scheme) << ". First night " << html_escape(campaign.nights.first_date)
     << ".</p>\n";
+  if (resume) {
+    o << "<h2>Resumed campaign</h2>\n<p>This bundle resumes " << html_escape(resume->parent_file)
+      << ": " << resume->measured_entries << " kernel entries were measured in "
+      << resume->measured_steps << " counted steps over " << resume->nights_used
+      << " night(s); this plan measures the " << resume->remaining_entries
+      << " entries that remain. Gram error of the whole training matrix, measured and planned "
+         "entries together (Frobenius sigma): "
+      << general(resume->gram_sigma_frobenius_whole) << ".</p>\n";
+  }
   o << "<h2>Summary</h2>\n<table>\n";
   auto row = [&](const std::string& name, const std::string& value) {
     o << "<tr><th>" << html_escape(name) << "</th><td class=\"n\">" << html_escape(value)

@@ -1,6 +1,10 @@
 #include "formats/rig_json.h"
 
 #include <QJsonArray>
+#include <QJsonDocument>
+#include <algorithm>
+
+#include "formats/text_io.h"
 
 namespace gramline::formats {
 
@@ -61,5 +65,71 @@ Controller controller_from_json(const JsonField& c) {
   out.overhead_s = c["overhead_s"].number();
   return out;
 }
+
+QJsonObject rig_to_json(const Rig& rig) {
+  QJsonArray motors;
+  for (const Motor& m : rig.motors) motors.append(motor_to_json(m));
+  QJsonArray detectors;
+  for (const Detector& d : rig.detectors) {
+    detectors.append(
+        QJsonObject{{"efficiency", d.efficiency}, {"dark_rate_per_s", d.dark_rate_per_s}});
+  }
+  return QJsonObject{{"motors", motors},
+                     {"controller", controller_to_json(rig.controller)},
+                     {"source", QJsonObject{{"pair_rate_per_s", rig.source.pair_rate_per_s},
+                                            {"visibility", rig.source.visibility}}},
+                     {"detectors", detectors},
+                     {"coincidence_window_s", rig.coincidence_window_s},
+                     {"scheme", QString::fromStdString(to_string(rig.scheme))}};
+}
+
+Rig rig_from_json(const JsonField& f) {
+  Rig rig;
+  for (const JsonField& m : f["motors"].items()) rig.motors.push_back(motor_from_json(m));
+  rig.controller = controller_from_json(f["controller"]);
+  const JsonField s = f["source"];
+  rig.source.pair_rate_per_s = s["pair_rate_per_s"].number();
+  rig.source.visibility = s["visibility"].number();
+  for (const JsonField& d : f["detectors"].items()) {
+    rig.detectors.push_back(Detector{d["efficiency"].number(), d["dark_rate_per_s"].number()});
+  }
+  rig.coincidence_window_s = f["coincidence_window_s"].number();
+  rig.scheme = f["scheme"].choice({DetectionScheme::pass_only, DetectionScheme::both_ports});
+  return rig;
+}
+
+int rig_photons(const Rig& rig) {
+  int photons = static_cast<int>(rig.detectors.size());
+  for (const Motor& m : rig.motors) photons = std::max(photons, m.photon + 1);
+  return photons;
+}
+
+std::string format_rig(const Rig& rig) {
+  QJsonObject o = rig_to_json(rig);
+  o["format"] = kRigFormat;
+  o["version"] = kRigVersion;
+  const QByteArray bytes = QJsonDocument(o).toJson(QJsonDocument::Indented);
+  return std::string(bytes.constData(), static_cast<size_t>(bytes.size()));
+}
+
+Rig parse_rig(const std::string& bytes, const std::string& file) {
+  const JsonField root = parse_json_document(bytes, file);
+  const std::string format = root["format"].text();
+  if (format != kRigFormat)
+    root["format"].fail("'" + format + "' is not a rig file (expected '" + kRigFormat + "')");
+  const long long version = root["version"].integer(1, 1000000);
+  if (version > kRigVersion)
+    root["version"].fail("version " + std::to_string(version) +
+                         " is newer than this Gramline reads (" + std::to_string(kRigVersion) +
+                         ")");
+  Rig rig = rig_from_json(root);
+  if (const std::string problem = rig.check(rig_photons(rig)); !problem.empty())
+    throw InputError(file + ": " + problem);
+  return rig;
+}
+
+Rig load_rig(const QString& path) { return parse_rig(read_whole_file(path), path_text(path)); }
+
+void save_rig(const Rig& rig, const QString& path) { write_whole_file(path, format_rig(rig)); }
 
 }  // namespace gramline::formats

@@ -9,8 +9,7 @@
 
 namespace gramline::formats {
 
-SimulatedNight simulate_night(const Bundle& bundle, const std::string& bundle_file_name,
-                              const CountSimulationOptions& options) {
+SimulatedNight simulate_night(const Bundle& bundle, const CountSimulationOptions& options) {
   SimulatedNight night;
   night.options = options;
   try {
@@ -20,8 +19,7 @@ SimulatedNight simulate_night(const Bundle& bundle, const std::string& bundle_fi
   }
   for (const Step& s : bundle.steps.steps)
     night.steps_to_count += (s.kind == StepKind::measure || s.kind == StepKind::reference) ? 1 : 0;
-  night.bundle_line =
-      "# bundle file: " + bundle_file_name + ", manifest SHA-256 " + bundle.manifest_sha256;
+  night.bundle_line = "# bundle: " + bundle.manifest.bundle_id;
   std::ostringstream note;
   note << "drawn from the rig model by gramline " << GRAMLINE_VERSION << ", seed " << options.seed
        << ", fade_per_hour " << exact_number_text(options.fade_per_hour) << ", stop_after_hours "
@@ -29,9 +27,9 @@ SimulatedNight simulate_night(const Bundle& bundle, const std::string& bundle_fi
                                        : std::string("none"))
        << "; not measured on a rig";
   night.simulated_note = note.str();
-  night.counts_text = night.bundle_line + "\n" +
-                      format_counts_csv(night.records, bundle.steps.steps,
-                                        counts_layout(bundle.campaign), night.simulated_note);
+  night.counts_text =
+      format_counts_csv(night.records, bundle.steps.steps, counts_layout(bundle.campaign),
+                        bundle.manifest.bundle_id, night.simulated_note);
   return night;
 }
 

@@ -25,10 +25,9 @@ struct SimulatedNight {
 };
 
 /// Simulates the counts of `bundle`'s own steps, on its own clock (a resumed bundle's earlier
-/// steps are not counted again). `bundle_file_name` is the bundle's file name without folder.
+/// steps are not counted again); the counts name the bundle by its bundle_id.
 /// Throws InputError naming the option for options the simulator refuses.
-SimulatedNight simulate_night(const Bundle& bundle, const std::string& bundle_file_name,
-                              const CountSimulationOptions& options);
+SimulatedNight simulate_night(const Bundle& bundle, const CountSimulationOptions& options);
 
 /// Writes the counts file atomically; refuses an existing `path` unless overwriting is allowed.
 void write_simulated_counts(const SimulatedNight& night, const QString& path, Overwrite overwrite);

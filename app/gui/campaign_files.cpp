@@ -15,6 +15,8 @@
 #include "formats/data_csv.h"
 #include "formats/plan_files.h"
 #include "gramline/demo.h"
+#include "gramline/new_campaign.h"
+#include "new_campaign_dialog.h"
 #include "plan_runner.h"
 #include "recent_files.h"
 #include "session_autosave.h"
@@ -64,6 +66,12 @@ void CampaignFiles::new_campaign() {
   c.notes.clear();
   c.data = DataSet{};
   document_->replace(c, QString(), false);
+}
+
+void CampaignFiles::new_campaign_from_csv() {
+  NewCampaignDialog dialog(window_);
+  if (dialog.exec() != QDialog::Accepted) return;
+  if (const std::optional<Campaign> c = dialog.build()) document_->replace(*c, QString(), true);
 }
 
 void CampaignFiles::load_demo() { document_->replace(make_demo_campaign(), QString(), false); }
@@ -132,16 +140,15 @@ void CampaignFiles::import_data() {
     const bool encoding_fits = document_->campaign().encoding.check(features).empty();
     document_->edit(tr("Import data"), [data, encoding_fits](Campaign& c) {
       c.data = data;
-      if (!encoding_fits) {
-        // The old map reads another number of features: start from the first preset.
-        Eigen::VectorXd low, high;
-        feature_ranges(c.data.train, low, high);
-        c.encoding = make_preset(EncodingPreset::one_feature_per_photon_linear, low, high);
-      }
+      // The old map reads another number of features: the rig and its photons stay and the
+      // features are spread over them (docs/conventions.md, "Encoding presets").
+      if (!encoding_fits) c.encoding = encoding_for_features(c.encoding, c.data);
     });
     if (!encoding_fits) {
       window_->statusBar()->showMessage(
-          tr("The encoding was rebuilt for %1 features (one feature per photon).").arg(features),
+          tr("The encoding was rebuilt for %1 features on the rig's %2 photon(s).")
+              .arg(features)
+              .arg(document_->campaign().encoding.photon_count()),
           8000);
     }
   } catch (const std::exception& e) {

@@ -28,6 +28,8 @@ class CampaignFiles : public QObject {
   bool confirm_discard();
   /// A usable two-photon rig and the usual settings, without data.
   void new_campaign();
+  /// File ▸ New Campaign from CSV…: the dialog, then the campaign it makes (unsaved).
+  void new_campaign_from_csv();
   /// Replaces the campaign with the bundled demo.
   void load_demo();
   /// Opens a campaign file; false (after telling the user) when it cannot be read.

@@ -46,6 +46,10 @@ class EncodingPage : public EditorPage {
   /// Shows the encoding-scale scan of the latest margin check.
   void set_scale_scan(const std::vector<ScalePoint>& scan, double advised);
   void clear_scale_scan();
+  /// Sets one cell of the map (column 1 theta weights, 2 theta offset, 3 phi weights, 4 phi
+  /// offset; weights separated by ';') as an undoable edit. Refuses, naming the field, text
+  /// that is not finite numbers or not one weight per feature.
+  bool edit_weight(int photon, int column, const QString& text);
 
  private:
   void apply_preset();
@@ -62,6 +66,7 @@ class EncodingPage : public EditorPage {
   QPushButton* use_advice_;
   double advised_scale_ = 1.0;
   QTableWidget* weights_;
+  QLabel* weights_error_;
 };
 
 /// The motors, the controller, the source and the detectors.
@@ -71,6 +76,9 @@ class RigPage : public EditorPage {
  public:
   explicit RigPage(CampaignDocument* document, QWidget* parent = nullptr);
   MotorsModel* motors_model() const { return motors_; }
+  /// Replaces the rig by a rig file (one undoable edit; the encoding follows its photons).
+  /// Shows the reason and returns false when the file is refused.
+  bool load_rig_file(const QString& path);
 
  private:
   void refresh_detectors();

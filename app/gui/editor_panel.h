@@ -26,6 +26,8 @@ class EditorPanel : public QWidget {
 
   QTabWidget* pages() const { return pages_; }
   MotorsModel* motors_model() const;
+  EncodingPage* encoding_page() const { return encoding_; }
+  RigPage* rig_page() const { return rig_; }
   /// Reads every control back from the document's campaign.
   void refresh();
   /// Shows the encoding-scale scan of the latest margin check.

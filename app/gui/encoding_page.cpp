@@ -5,14 +5,17 @@
 #include <QHBoxLayout>
 #include <QHeaderView>
 #include <QLabel>
+#include <QLocale>
 #include <QMessageBox>
 #include <QPushButton>
 #include <QTableWidget>
 #include <QVBoxLayout>
 #include <cmath>
+#include <vector>
 
 #include "campaign_document.h"
 #include "editor_pages.h"
+#include "gramline/new_campaign.h"
 #include "gui_text.h"
 
 namespace gramline::gui {
@@ -34,6 +37,7 @@ EncodingPage::EncodingPage(CampaignDocument* campaign_document, QWidget* parent)
                    static_cast<int>(EncodingPreset::one_feature_per_photon_linear));
   preset_->addItem(preset_text(EncodingPreset::two_features_polar_azimuth),
                    static_cast<int>(EncodingPreset::two_features_polar_azimuth));
+  preset_->addItem(preset_text(EncodingPreset::spread), static_cast<int>(EncodingPreset::spread));
   preset_->setAccessibleName(tr("Encoding preset"));
   form->addRow(tr("Preset"), preset_);
   const auto span = [form](const QString& label, double lo, double hi, QDoubleSpinBox*& low,
@@ -94,17 +98,35 @@ EncodingPage::EncodingPage(CampaignDocument* campaign_document, QWidget* parent)
 
   auto* weights_box = new QGroupBox(tr("Current map (degrees per feature unit)"));
   auto* wl = new QVBoxLayout(weights_box);
+  auto* weights_hint = new QLabel(
+      tr("Double-click a cell to edit it: weights are one number per feature, separated by "
+         "semicolons; offsets are in degrees."));
+  weights_hint->setWordWrap(true);
+  weights_hint->setForegroundRole(QPalette::PlaceholderText);
+  wl->addWidget(weights_hint);
   weights_ = new QTableWidget;
-  weights_->setEditTriggers(QAbstractItemView::NoEditTriggers);
+  weights_->setObjectName(QStringLiteral("encoding/weights"));
+  weights_->setEditTriggers(QAbstractItemView::DoubleClicked | QAbstractItemView::EditKeyPressed |
+                            QAbstractItemView::AnyKeyPressed);
+  connect(weights_, &QTableWidget::itemChanged, this, [this](QTableWidgetItem* item) {
+    edit_weight(item->row(), item->column(), item->text());
+  });
   weights_->verticalHeader()->setVisible(false);
   weights_->setAccessibleName(tr("Encoding weights"));
   weights_->horizontalHeader()->setStretchLastSection(true);
   wl->addWidget(weights_);
+  weights_error_ = new QLabel;
+  weights_error_->setObjectName(QStringLiteral("encoding/weights_error"));
+  weights_error_->setWordWrap(true);
+  weights_error_->setStyleSheet(QStringLiteral("color: #b00020"));
+  weights_error_->setVisible(false);
+  wl->addWidget(weights_error_);
   layout->addWidget(weights_box, 1);
   on_refresh([this] { refresh_encoding_table(); });
 }
 
 void EncodingPage::refresh_encoding_table() {
+  const QSignalBlocker block_table(weights_);
   const EncodingMap& e = document()->campaign().encoding;
   {
     const QSignalBlocker block(preset_);
@@ -118,18 +140,68 @@ void EncodingPage::refresh_encoding_table() {
   weights_->setRowCount(e.photon_count());
   const auto vec = [](const Eigen::VectorXd& v) {
     QStringList parts;
-    for (Eigen::Index i = 0; i < v.size(); ++i) parts << number_text(v(i), 2);
-    return parts.join(QStringLiteral(", "));
+    for (Eigen::Index i = 0; i < v.size(); ++i) parts << QLocale().toString(v(i), 'g', 8);
+    return parts.join(QStringLiteral("; "));
   };
   for (int p = 0; p < e.photon_count(); ++p) {
     const PhotonEncoding& pe = e.photons[static_cast<std::size_t>(p)];
-    weights_->setItem(p, 0, new QTableWidgetItem(QString::number(p + 1)));
+    // Photons count from 0, as in the files and messages (docs/conventions.md).
+    auto* photon = new QTableWidgetItem(QString::number(p));
+    photon->setFlags(photon->flags() & ~Qt::ItemIsEditable);
+    weights_->setItem(p, 0, photon);
     weights_->setItem(p, 1, new QTableWidgetItem(vec(pe.theta_weights_deg)));
-    weights_->setItem(p, 2, new QTableWidgetItem(number_text(pe.theta_offset_deg, 2)));
+    weights_->setItem(p, 2, new QTableWidgetItem(QLocale().toString(pe.theta_offset_deg, 'g', 8)));
     weights_->setItem(p, 3, new QTableWidgetItem(vec(pe.phi_weights_deg)));
-    weights_->setItem(p, 4, new QTableWidgetItem(number_text(pe.phi_offset_deg, 2)));
+    weights_->setItem(p, 4, new QTableWidgetItem(QLocale().toString(pe.phi_offset_deg, 'g', 8)));
   }
   weights_->resizeColumnsToContents();
+}
+
+bool EncodingPage::edit_weight(int photon, int column, const QString& text) {
+  const Campaign& c = document()->campaign();
+  const int d = c.data.feature_count();
+  static const char* const kFields[] = {"", "theta_weights_deg_per_unit", "theta_offset_deg",
+                                        "phi_weights_deg_per_unit", "phi_offset_deg"};
+  if (photon < 0 || photon >= c.encoding.photon_count() || column < 1 || column > 4) return false;
+  const QString field =
+      QStringLiteral("encoding.photons[%1].%2").arg(photon).arg(QLatin1String(kFields[column]));
+  std::vector<double> values;
+  const QStringList parts = text.split(QLatin1Char(';'), Qt::SkipEmptyParts);
+  bool ok = !parts.isEmpty();
+  for (const QString& part : parts) {
+    bool one = false;
+    const double v = QLocale().toDouble(part.trimmed(), &one);
+    ok = ok && one && std::isfinite(v);
+    values.push_back(v);
+  }
+  const bool weights = column == 1 || column == 3;
+  const int expected = weights ? d : 1;
+  QString problem;
+  if (!ok) {
+    problem = tr("%1: '%2' is not a list of finite numbers").arg(field, text);
+  } else if (static_cast<int>(values.size()) != expected) {
+    problem = tr("%1: %2 number(s) given, %3 expected (one per feature)")
+                  .arg(field)
+                  .arg(values.size())
+                  .arg(expected);
+  }
+  weights_error_->setText(problem);
+  weights_error_->setVisible(!problem.isEmpty());
+  if (!problem.isEmpty()) {
+    refresh_encoding_table();
+    return false;
+  }
+  document()->edit(tr("Edit %1").arg(field), [photon, column, values](Campaign& k) {
+    PhotonEncoding& e = k.encoding.photons[static_cast<std::size_t>(photon)];
+    Eigen::VectorXd v(static_cast<Eigen::Index>(values.size()));
+    for (std::size_t i = 0; i < values.size(); ++i) v(static_cast<Eigen::Index>(i)) = values[i];
+    if (column == 1) e.theta_weights_deg = v;
+    if (column == 2) e.theta_offset_deg = values[0];
+    if (column == 3) e.phi_weights_deg = v;
+    if (column == 4) e.phi_offset_deg = values[0];
+    k.encoding.preset = EncodingPreset::custom;
+  });
+  return true;
 }
 
 void EncodingPage::apply_preset() {
@@ -142,10 +214,16 @@ void EncodingPage::apply_preset() {
   try {
     Eigen::VectorXd low, high;
     feature_ranges(c.data.train, low, high);
+    // A preset that fixes the photon count takes it; spread keeps the rig's photons.
+    int photons = preset_photons(preset, c.data.feature_count());
+    if (photons == 0) photons = c.encoding.photon_count();
     const EncodingMap map =
-        make_preset(preset, low, high, {theta_low_->value(), theta_high_->value()},
-                    {phi_low_->value(), phi_high_->value()});
-    document()->edit(tr("Apply encoding preset"), [map](Campaign& k) { k.encoding = map; });
+        make_encoding(preset, photons, low, high, {theta_low_->value(), theta_high_->value()},
+                      {phi_low_->value(), phi_high_->value()});
+    document()->edit(tr("Apply encoding preset"), [map, photons](Campaign& k) {
+      k.encoding = map;
+      if (k.rig.check(photons) != "") k.rig = resize_rig(k.rig, photons);
+    });
   } catch (const std::exception& e) {
     QMessageBox::warning(this, tr("Preset does not fit"), QString::fromStdString(e.what()));
   }

@@ -3,6 +3,9 @@
 #include <QCoreApplication>
 #include <QLocale>
 #include <cmath>
+#include <cstdint>
+#include <exception>
+#include <string>
 
 namespace gramline::gui {
 
@@ -22,10 +25,22 @@ QString duration_text(double seconds) {
 }
 
 QDateTime step_clock(const NightWindow& nights, double start_s) {
-  QDate date = QDate::fromString(QString::fromStdString(nights.first_date), Qt::ISODate);
+  // The clock starts with the first night, which a skipped first date moves on.
+  std::string first = nights.first_date;
+  try {
+    first = nights.night_date(1);
+  } catch (const std::exception&) {
+  }
+  QDate date = QDate::fromString(QString::fromStdString(first), Qt::ISODate);
   if (!date.isValid()) date = QDate(2000, 1, 1);
-  const QDateTime start = date.startOfDay().addSecs(static_cast<qint64>(nights.start_min) * 60);
-  return start.addMSecs(static_cast<qint64>(std::llround(start_s * 1000.0)));
+  // Wall-clock time (docs/plan-files.md, "Nights on the calendar"): whole days move the date,
+  // the rest is read on the clock from the window's start, whatever daylight saving does.
+  const std::int64_t ms =
+      std::llround(start_s * 1000.0) + static_cast<std::int64_t>(nights.start_min) * 60000;
+  const std::int64_t day_ms = 86400000;
+  const std::int64_t days = ms >= 0 ? ms / day_ms : -((-ms + day_ms - 1) / day_ms);
+  const QTime clock = QTime(0, 0).addMSecs(static_cast<int>(ms - days * day_ms));
+  return QDateTime(date.addDays(days), clock);
 }
 
 QString clock_text(const NightWindow& nights, double start_s) {
@@ -112,7 +127,9 @@ QString preset_text(EncodingPreset preset) {
     case EncodingPreset::one_feature_per_photon_linear:
       return tr("one feature per photon, linear polarization");
     case EncodingPreset::two_features_polar_azimuth:
-      return tr("two features on one photon, polar and azimuth");
+      return tr("two features per photon, polar and azimuth");
+    case EncodingPreset::spread:
+      return tr("features spread over the photons");
     case EncodingPreset::custom:
       return tr("custom weights");
   }

@@ -34,8 +34,10 @@ struct ResumeOutcome {
   std::shared_ptr<const formats::ResumeRun> run;
   QString bundle_path;
 };
-/// read_bundle, read_counts_csv and plan_resume; throws like load_and_ingest.
-ResumeOutcome load_and_resume(const QString& bundle_path, const QString& counts_path);
+/// read_bundle, read_counts_csv and plan_resume from `first_night` (YYYY-MM-DD; empty: the day
+/// after the last night counted); throws like load_and_ingest.
+ResumeOutcome load_and_resume(const QString& bundle_path, const QString& counts_path,
+                              const QString& first_night = QString());
 
 /// A file-name-safe version of a campaign name, for default file names.
 QString file_stem(const QString& name);
@@ -67,7 +69,11 @@ class HandOff : public QObject {
   /// File ▸ Resume from Counts…: choose a bundle and a partial counts file, re-plan the rest in
   /// the background, show its summary and offer to save the new bundle.
   void resume();
-  void resume_files(const QString& bundle_path, const QString& counts_path);
+  void resume_files(const QString& bundle_path, const QString& counts_path,
+                    const QString& first_night = QString());
+  /// Asks for the first night of the rest: false when the user cancels; `first_night` empty
+  /// for "the day after the last night counted".
+  bool ask_first_night(QString& first_night);
   /// Writes the new bundle of the last resume to `path` (cautions already acknowledged).
   bool save_resumed_to(const QString& path);
   std::shared_ptr<const formats::ResumeRun> last_resume() const { return resumed_.run; }

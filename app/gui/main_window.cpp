@@ -141,6 +141,11 @@ void MainWindow::build_actions() {
     files_->new_campaign();
     editor_->pages()->setCurrentIndex(0);
   });
+  action(file, tr("New Campaign from &CSV…"), QKeySequence(Qt::CTRL | Qt::SHIFT | Qt::Key_N),
+         [this] {
+           if (!files_->confirm_discard()) return;
+           files_->new_campaign_from_csv();
+         });
   QAction* demo_a = action(file, tr("Open &Demo"), QKeySequence(), [this] {
     if (files_->confirm_discard()) files_->load_demo();
   });

@@ -1,16 +1,23 @@
 #include <QComboBox>
 #include <QDoubleSpinBox>
+#include <QFileDialog>
+#include <QFileInfo>
 #include <QFormLayout>
 #include <QGroupBox>
+#include <QHBoxLayout>
 #include <QHeaderView>
 #include <QLabel>
 #include <QLocale>
+#include <QMessageBox>
+#include <QPushButton>
 #include <QTableView>
 #include <QTableWidget>
 #include <QVBoxLayout>
 
 #include "campaign_document.h"
 #include "editor_pages.h"
+#include "formats/rig_json.h"
+#include "gramline/new_campaign.h"
 #include "gui_text.h"
 #include "rig_tables.h"
 
@@ -19,6 +26,47 @@ namespace gramline::gui {
 RigPage::RigPage(CampaignDocument* campaign_document, QWidget* parent)
     : EditorPage(campaign_document, parent) {
   auto* layout = new QVBoxLayout(this);
+
+  // Photons: each with its four motors and its detector; the encoding follows.
+  auto* photons_box = new QGroupBox(tr("Photons"));
+  auto* pf = new_form(photons_box);
+  integer(
+      pf, "rig/photons", tr("Photons"),
+      tr("Photons of the rig (numbered from 0, letters A to D in the motor names); adding one "
+         "adds its four motors and its detector"),
+      1, 4, [](const Campaign& c) { return c.encoding.photon_count(); },
+      [](Campaign& c, int v) {
+        c.rig = resize_rig(c.rig, v);
+        c.encoding = encoding_for_photons(c.encoding, c.data, v);
+      });
+  auto* rig_buttons = new QHBoxLayout;
+  auto* save_rig = new QPushButton(tr("Save Rig…"));
+  save_rig->setObjectName(QStringLiteral("rig/save"));
+  save_rig->setToolTip(tr("Save the motors, controller, source and detectors as a rig file"));
+  auto* load_rig = new QPushButton(tr("Load Rig…"));
+  load_rig->setObjectName(QStringLiteral("rig/load"));
+  load_rig->setToolTip(tr("Replace the rig by a rig file; the encoding follows its photons"));
+  rig_buttons->addWidget(save_rig);
+  rig_buttons->addWidget(load_rig);
+  rig_buttons->addStretch(1);
+  pf->addRow(rig_buttons);
+  connect(save_rig, &QPushButton::clicked, this, [this] {
+    QString path = QFileDialog::getSaveFileName(this, tr("Save Rig"), QString(),
+                                                tr("Rig files (*.rig.json *.json);;All files (*)"));
+    if (path.isEmpty()) return;
+    if (QFileInfo(path).suffix().isEmpty()) path += QStringLiteral(".rig.json");
+    try {
+      formats::save_rig(document()->campaign().rig, path);
+    } catch (const std::exception& e) {
+      QMessageBox::warning(this, tr("Cannot save the rig"), QString::fromStdString(e.what()));
+    }
+  });
+  connect(load_rig, &QPushButton::clicked, this, [this] {
+    const QString path = QFileDialog::getOpenFileName(
+        this, tr("Load Rig"), QString(), tr("Rig files (*.rig.json *.json);;All files (*)"));
+    if (!path.isEmpty()) load_rig_file(path);
+  });
+  layout->addWidget(photons_box);
 
   auto* motors_box = new QGroupBox(tr("Motorized waveplates"));
   auto* ml = new QVBoxLayout(motors_box);
@@ -101,13 +149,29 @@ RigPage::RigPage(CampaignDocument* campaign_document, QWidget* parent)
       refresh_detectors();
       return;
     }
-    document()->edit(tr("Edit detector %1").arg(row + 1), [row, col, v](Campaign& c) {
+    document()->edit(tr("Edit detector %1").arg(row), [row, col, v](Campaign& c) {
       Detector& d = c.rig.detectors[static_cast<std::size_t>(row)];
       (col == 0 ? d.efficiency : d.dark_rate_per_s) = v;
     });
   });
   on_refresh([this] { refresh_detectors(); });
   layout->addWidget(src_box);
+}
+
+bool RigPage::load_rig_file(const QString& path) {
+  try {
+    const Rig rig = formats::load_rig(path);
+    const int photons = formats::rig_photons(rig);
+    document()->edit(tr("Load rig %1").arg(QFileInfo(path).fileName()),
+                     [rig, photons](Campaign& c) {
+                       c.rig = rig;
+                       c.encoding = encoding_for_photons(c.encoding, c.data, photons);
+                     });
+    return true;
+  } catch (const std::exception& e) {
+    QMessageBox::warning(this, tr("Cannot load the rig"), QString::fromStdString(e.what()));
+    return false;
+  }
 }
 
 void RigPage::refresh_detectors() {
@@ -117,7 +181,7 @@ void RigPage::refresh_detectors() {
   QStringList rows;
   for (std::size_t i = 0; i < dets.size(); ++i) {
     const int r = static_cast<int>(i);
-    rows << tr("Photon %1").arg(r + 1);
+    rows << tr("Photon %1 (%2)").arg(r).arg(QChar(photon_letter(r)));
     detectors_->setItem(r, 0, new QTableWidgetItem(number_text(dets[i].efficiency, 3)));
     detectors_->setItem(r, 1, new QTableWidgetItem(number_text(dets[i].dark_rate_per_s, 0)));
   }

@@ -123,7 +123,7 @@ QVariant MotorsModel::data(const QModelIndex& index, int role) const {
       case kName:
         return QString::fromStdString(m.name);
       case kPhoton:
-        return m.photon + 1;
+        return m.photon;  // 0-based, as in the files and messages (docs/conventions.md)
       case kStage:
         return static_cast<int>(m.stage);
       case kPlate:
@@ -149,7 +149,7 @@ QVariant MotorsModel::data(const QModelIndex& index, int role) const {
     case kName:
       return QString::fromStdString(m.name);
     case kPhoton:
-      return m.photon + 1;
+      return m.photon;
     case kStage:
       return stage_text(m.stage);
     case kPlate:
@@ -181,7 +181,7 @@ bool MotorsModel::setData(const QModelIndex& index, const QVariant& value, int r
       m.name = value.toString().trimmed().toStdString();
       break;
     case kPhoton:
-      m.photon = value.toInt() - 1;
+      m.photon = value.toInt();
       break;
     case kStage:
       m.stage = static_cast<Stage>(value.toInt());
@@ -292,7 +292,7 @@ QWidget* MotorDelegate::createEditor(QWidget* parent, const QStyleOptionViewItem
       return combo({backlash_text(Backlash::shortest), backlash_text(Backlash::from_below)});
     case MotorsModel::kPhoton: {
       auto* box = new QSpinBox(parent);
-      box->setRange(1, 4);
+      box->setRange(0, 3);
       box->setFrame(false);
       return box;
     }

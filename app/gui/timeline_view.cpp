@@ -105,12 +105,12 @@ void TimelineView::set_plan(std::shared_ptr<const Plan> plan, const Campaign& ca
     night_->clear();
     const int nights = plan_ ? plan_->summary.nights : 0;
     for (int n = 1; n <= nights; ++n)
-      night_->addItem(
-          tr("night %1 (%2)")
-              .arg(n)
-              .arg(QLocale().toString(step_clock(campaign.nights, (n - 1) * 86400.0).date(),
-                                      QLocale::ShortFormat)),
-          n);
+      night_->addItem(tr("night %1 (%2)")
+                          .arg(n)
+                          .arg(QLocale().toString(
+                              step_clock(campaign.nights, campaign.nights.night_start_s(n)).date(),
+                              QLocale::ShortFormat)),
+                      n);
     night_->setCurrentIndex(std::min(keep, night_->count() - 1));
   }
   drawn_ = false;
@@ -203,7 +203,7 @@ void TimelineView::draw_progress() {
     chart->setTitle(tr("Night %1: share of the training Gram matrix measured, and its predicted "
                        "error")
                         .arg(night));
-    const double night_start_s = (night - 1) * 86400.0;
+    const double night_start_s = campaign_.nights.night_start_s(night);
     const double night_end_s = night_start_s + campaign_.nights.length_s();
     auto* share = new QLineSeries;
     share->setName(tr("entries measured (%, left)"));

@@ -1,6 +1,10 @@
 #include "gramline/campaign.h"
 
+#include <chrono>
+#include <cstdio>
+#include <set>
 #include <sstream>
+#include <stdexcept>
 
 #include "gramline/enum_names.h"
 
@@ -10,6 +14,69 @@ double NightWindow::length_s() const {
   int minutes = end_min - start_min;
   if (minutes <= 0) minutes += 24 * 60;
   return minutes * 60.0;
+}
+
+bool parse_civil_date(const std::string& text, long& days) {
+  if (text.size() != 10 || text[4] != '-' || text[7] != '-') return false;
+  for (size_t i : {0u, 1u, 2u, 3u, 5u, 6u, 8u, 9u})
+    if (text[i] < '0' || text[i] > '9') return false;
+  const int y = std::stoi(text.substr(0, 4));
+  const unsigned m = static_cast<unsigned>(std::stoi(text.substr(5, 2)));
+  const unsigned d = static_cast<unsigned>(std::stoi(text.substr(8, 2)));
+  const std::chrono::year_month_day date{std::chrono::year{y}, std::chrono::month{m},
+                                         std::chrono::day{d}};
+  if (!date.ok()) return false;
+  days = std::chrono::sys_days(date).time_since_epoch().count();
+  return true;
+}
+
+std::string civil_date_text(long days) {
+  const std::chrono::year_month_day date{std::chrono::sys_days(std::chrono::days(days))};
+  char buffer[16];
+  std::snprintf(buffer, sizeof buffer, "%04d-%02u-%02u", static_cast<int>(date.year()),
+                static_cast<unsigned>(date.month()), static_cast<unsigned>(date.day()));
+  return buffer;
+}
+
+int iso_weekday(long days) {
+  return static_cast<int>(
+      std::chrono::weekday(std::chrono::sys_days(std::chrono::days(days))).iso_encoding());
+}
+
+namespace {
+// Day number (parse_civil_date) of night `night`: the night-th date on or after first_date
+// that is neither a skipped date nor on a skipped weekday.
+long night_day(const NightWindow& w, int night) {
+  long first = 0;
+  if (!parse_civil_date(w.first_date, first))
+    throw std::invalid_argument("nights.first_date: '" + w.first_date +
+                                "' is not a date YYYY-MM-DD");
+  std::set<long> skipped;
+  for (const std::string& d : w.skip_dates) {
+    long day = 0;
+    if (!parse_civil_date(d, day))
+      throw std::invalid_argument("nights.skip_dates: '" + d + "' is not a date YYYY-MM-DD");
+    skipped.insert(day);
+  }
+  const std::set<int> weekdays(w.skip_weekdays.begin(), w.skip_weekdays.end());
+  for (int d : weekdays)
+    if (d < 1 || d > 7) throw std::invalid_argument("nights.skip_weekdays: not a weekday");
+  if (weekdays.size() >= 7)
+    throw std::invalid_argument("nights.skip_weekdays: every weekday is skipped");
+  int found = 0;
+  for (long day = first;; ++day) {
+    if (skipped.count(day) || weekdays.count(iso_weekday(day))) continue;
+    if (++found >= night) return day;
+  }
+}
+}  // namespace
+
+int NightWindow::day_offset(int night) const {
+  return static_cast<int>(night_day(*this, night) - night_day(*this, 1));
+}
+
+std::string NightWindow::night_date(int night) const {
+  return civil_date_text(night_day(*this, night));
 }
 
 std::string Campaign::check_consistency() const {
@@ -23,6 +90,11 @@ std::string Campaign::check_consistency() const {
   if (nights.start_min < 0 || nights.start_min >= 24 * 60) return "nights.start: not a clock time";
   if (nights.end_min < 0 || nights.end_min >= 24 * 60) return "nights.end: not a clock time";
   if (nights.max_nights < 1) return "nights.max_nights: must be at least 1";
+  try {
+    nights.day_offset(1);
+  } catch (const std::invalid_argument& e) {
+    return e.what();
+  }
   if (!(schedule.reference_interval_min >= 0))
     return "schedule.reference_interval_min: must be >= 0";
   if (!(schedule.dark_dwell_s >= 0)) return "schedule.dark_dwell_s: must be >= 0";

@@ -3,6 +3,8 @@
 #include <cmath>
 #include <random>
 
+#include "gramline/new_campaign.h"
+
 namespace gramline {
 
 namespace {
@@ -13,18 +15,6 @@ double unit(std::mt19937_64& rng) { return static_cast<double>(rng() >> 11) * 0x
 // The invented scenario: two kinds of samples on either side of a parabola in the unit square.
 double boundary(double x0) { return 0.22 + 1.3 * (x0 - 0.5) * (x0 - 0.5); }
 
-Motor mount(const std::string& name, int photon, Stage stage, Plate plate) {
-  Motor m;
-  m.name = name;
-  m.photon = photon;
-  m.stage = stage;
-  m.plate = plate;
-  m.speed_deg_per_s = 15.0;
-  m.accel_deg_per_s2 = 30.0;
-  m.backlash = Backlash::shortest;
-  m.initial_deg = 0.0;
-  return m;
-}
 }  // namespace
 
 Campaign make_demo_campaign(std::uint64_t seed) {
@@ -68,31 +58,10 @@ Campaign make_demo_campaign(std::uint64_t seed) {
   c.encoding =
       make_preset(EncodingPreset::one_feature_per_photon_linear, lo, hi, AngleSpan{10.0, 170.0});
 
-  Rig& r = c.rig;
-  const char* arm[] = {"A", "B"};
-  for (int p = 0; p < 2; ++p) {
-    const std::string a = arm[p];
-    r.motors.push_back(mount(a + "-prep-HWP", p, Stage::prep, Plate::HWP));
-    r.motors.push_back(mount(a + "-prep-QWP", p, Stage::prep, Plate::QWP));
-    r.motors.push_back(mount(a + "-ana-QWP", p, Stage::analysis, Plate::QWP));
-    r.motors.push_back(mount(a + "-ana-HWP", p, Stage::analysis, Plate::HWP));
-  }
-  r.controller = Controller{MoveMode::simultaneous, 0.5, 0.1};
-  r.source.pair_rate_per_s = 100000.0;
-  r.source.visibility = 0.97;
-  r.detectors = {Detector{0.15, 200.0}, Detector{0.15, 200.0}};
-  r.coincidence_window_s = 2e-9;
-  r.scheme = DetectionScheme::both_ports;
+  c.rig = default_rig(2);
 
-  c.precision.budget = BudgetOptions{BudgetMethod::wilson, 0.01, 0.95, false};
+  set_usual_settings(c);
   c.nights.first_date = "2026-12-07";
-  c.nights.start_min = 20 * 60;
-  c.nights.end_min = 6 * 60;
-  c.nights.max_nights = 3;
-  c.schedule.reference_interval_min = 20.0;
-  c.schedule.dark_steps = true;
-  c.schedule.dark_dwell_s = 30.0;
-  c.schedule.park = true;
   return c;
 }
 

@@ -13,7 +13,7 @@ MoveModel::MoveModel(const ScheduleInput& input) : input_(&input) {
   if (!input.rig) throw std::invalid_argument("schedule: no rig");
   const Rig& rig = *input.rig;
   photons_ = input.points.empty() ? 0 : static_cast<int>(input.points.front().prep.size());
-  if (photons_ > 3) throw std::invalid_argument("schedule: at most 3 photons are supported");
+  if (photons_ > 4) throw std::invalid_argument("schedule: at most 4 photons are supported");
   simultaneous_ = rig.controller.moves == MoveMode::simultaneous;
   settle_s_ = rig.controller.settle_s;
   overhead_s_ = rig.controller.overhead_s;
@@ -173,7 +173,7 @@ double choose_solutions(const MoveModel& model, const std::vector<Code>& order,
                         std::vector<std::uint8_t>* solutions_out) {
   const int P = model.photons();
   const int G = model.groups();
-  if (G > 6) throw std::invalid_argument("schedule: too many groups for the solution search");
+  if (G > 8) throw std::invalid_argument("schedule: too many groups for the solution search");
   const int side_states = 1 << P;
   const int K = 1 << G;
   const std::size_t n = order.size();
@@ -187,7 +187,7 @@ double choose_solutions(const MoveModel& model, const std::vector<Code>& order,
   // side_tab[side][u * side_states + w]: joined side motor time between side states.
   std::vector<double> side_tab[2] = {std::vector<double>(side_states * side_states),
                                      std::vector<double>(side_states * side_states)};
-  double group_tab[6][2][2];
+  double group_tab[8][2][2];  // up to 4 photons: 8 groups, 256 states in a byte
 
   // Step 0: from the start positions.
   for (int g = 0; g < G; ++g) {

@@ -13,8 +13,6 @@ namespace {
 
 using namespace sched;
 
-constexpr double kDaySeconds = 86400.0;
-
 struct Layout {
   std::vector<Step> steps;
   int nights = 0;
@@ -46,7 +44,9 @@ class TimelineBuilder {
     bool night_has_measure = false;
     std::vector<Step> pending;
 
-    auto night_end = [&] { return (night - 1) * kDaySeconds + window_s; };
+    // Nights sit on the calendar (skipped dates and weekdays left out, docs/plan-files.md).
+    double night_start_s = in_.nights.night_start_s(night);
+    auto night_end = [&] { return night_start_s + window_s; };
     auto push = [&](Step s) {
       s.start_s = t;
       s.night = night;
@@ -67,7 +67,8 @@ class TimelineBuilder {
       }
     };
     auto open_night = [&](int next_prep) {
-      t = (night - 1) * kDaySeconds;
+      night_start_s = in_.nights.night_start_s(night);
+      t = night_start_s;
       night_has_measure = false;
       if (set.dark_steps) push(dark_step(pos));
       if (ref_every_s > 0.0) {

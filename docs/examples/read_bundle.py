@@ -121,6 +121,8 @@ class Bundle:
         self.scheme = campaign["rig"]["scheme"]
         self.photons = 1 + max(m.photon for m in self.motors)
         self.manifest = json.loads(self.entries[MANIFEST].decode("utf-8"))
+        # Bundles written before bundle ids existed have none.
+        self.bundle_id = self.manifest.get("bundle_id", "")
 
     def _verify(self):
         if MANIFEST not in self.entries:
@@ -168,8 +170,8 @@ def expected_counts(bundle, step):
 def write_counts(bundle, out, count_step=expected_counts, note=None):
     """Writes a counts file (docs/counts-format.md): the bundle named on the first line, an
     optional simulated mark, the header, then one row per measure and reference step."""
-    out.write("# bundle file: %s, manifest SHA-256 %s\n"
-              % (bundle.path.replace("\\", "/").split("/")[-1], bundle.manifest_sha256))
+    if bundle.bundle_id:
+        out.write("# bundle: %s\n" % bundle.bundle_id)
     if note:
         out.write("# simulated: %s\n" % note)
     header = ["step", "kind", "start_s", "end_s"]

@@ -272,11 +272,15 @@ TEST_F(PlannedDemo, BadDataCsvExitsTwoNamingTheLine) {
   EXPECT_NE(run.err.find("column 1"), std::string::npos) << run.err;
 }
 
-TEST_F(PlannedDemo, FeatureCountTheEncodingRefusesExitsTwo) {
+// docs/conventions.md, "Encoding presets": another feature count keeps the rig and its photons
+// and spreads the features over them, saying so on standard error.
+TEST_F(PlannedDemo, AnotherFeatureCountIsSpreadOverTheRigsPhotons) {
   ASSERT_EQ(demo_.status, 0) << demo_.err;
   const CliRun run = run_cli({"plan", campaign_path_, "--data", data_file("three_features.csv")});
-  EXPECT_EQ(run.status, 2);
+  EXPECT_EQ(run.status, 0) << run.err;
   EXPECT_NE(run.err.find("three_features.csv"), std::string::npos) << run.err;
+  EXPECT_NE(run.err.find("2 photon(s)"), std::string::npos) << run.err;
+  EXPECT_NE(run.err.find("'spread' preset"), std::string::npos) << run.err;
 }
 
 TEST(Cli, BadCampaignFileExitsTwoNamingTheField) {

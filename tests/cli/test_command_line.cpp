@@ -74,14 +74,16 @@ TEST(CommandLine, OptionsMayComeFirstAndTakeTheirValueAfterAnEqualsSign) {
 TEST(CommandLine, HelpOfOneCommandShowsThatCommandOnly) {
   const CliRun overview = run_cli({"help"});
   ASSERT_EQ(overview.status, 0);
-  for (const char* usage : {"demo --out FILE", "plan CAMPAIGN", "check CAMPAIGN", "export CAMPAIGN",
-                            "ingest BUNDLE COUNTS", "resume BUNDLE COUNTS"}) {
+  for (const char* usage : {"demo --out FILE", "new --data CSV", "plan CAMPAIGN", "check CAMPAIGN",
+                            "export CAMPAIGN", "ingest BUNDLE COUNTS", "resume BUNDLE COUNTS"}) {
     EXPECT_NE(overview.out.find(usage), std::string::npos) << usage;
   }
   const CliRun resume = run_cli({"help", "resume"});
   ASSERT_EQ(resume.status, 0) << resume.err;
-  EXPECT_NE(resume.out.find("gramline-cli resume BUNDLE COUNTS --out FILE.zip [--force]"),
-            std::string::npos)
+  EXPECT_NE(
+      resume.out.find("gramline-cli resume BUNDLE COUNTS --out FILE.zip [--first-night YYYY-MM-DD] "
+                      "[--force]"),
+      std::string::npos)
       << resume.out;
   EXPECT_NE(resume.out.find("--force"), std::string::npos);
   for (const char* other : {"plan CAMPAIGN", "ingest BUNDLE", "--data", "--trials", "--seed"}) {

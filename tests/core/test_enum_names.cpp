@@ -59,6 +59,7 @@ TEST(EnumNames, EveryEngineEnumKeepsItsFileText) {
   expect_names<EncodingPreset>(
       {{EncodingPreset::one_feature_per_photon_linear, "one-feature-per-photon-linear"},
        {EncodingPreset::two_features_polar_azimuth, "two-features-polar-azimuth"},
+       {EncodingPreset::spread, "spread"},
        {EncodingPreset::custom, "custom"}});
 }
 

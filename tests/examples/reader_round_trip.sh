@@ -39,7 +39,7 @@ grep -q "verified" list.txt
 PYTHONPATH="$examples" python3 "$here/check_motor_units.py" night.zip
 
 python3 "$examples/read_bundle.py" night.zip --dry-run-counts counts.csv >/dev/null
-head -1 counts.csv | grep -q "^# bundle file: night.zip, manifest SHA-256 [0-9a-f]\{64\}$"
+head -1 counts.csv | grep -q "^# bundle: [0-9a-f]\{32\}$"
 sed -n 2p counts.csv | grep -q "^# simulated: "
 "$cli" ingest night.zip counts.csv --out ingested >ingest.txt
 grep -q "simulated counts" ingest.txt

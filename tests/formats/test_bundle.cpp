@@ -17,6 +17,7 @@
 #include <QJsonArray>
 #include <QJsonDocument>
 #include <QJsonObject>
+#include <QRegularExpression>
 #include <QTemporaryDir>
 #include <algorithm>
 #include <map>
@@ -96,11 +97,15 @@ TEST(Sha256, MatchesTheFipsExample) {
 
 TEST_F(DemoBundle, ManifestListsEveryOtherFileWithItsSizeAndSha256) {
   for (const char* name : {"manifest.json", "campaign.json", "data.csv", "steps.json", "steps.csv",
-                           "summary.json", "kernel.csv", "summary.html"})
+                           "summary.json", "kernel.csv", "summary.html", "CAUTIONS.txt"})
     EXPECT_TRUE(entries_.count(name)) << name;
   const QJsonObject m =
       QJsonDocument::fromJson(QByteArray::fromStdString(entries_["manifest.json"])).object();
   EXPECT_EQ(m["format"].toString(), "gramline-bundle");
+  // docs/plan-files.md, "Bundles": 32 lowercase hexadecimal digits.
+  const QString id = m["bundle_id"].toString();
+  EXPECT_EQ(id.size(), 32);
+  EXPECT_TRUE(QRegularExpression("^[0-9a-f]{32}$").match(id).hasMatch()) << id.toStdString();
   EXPECT_EQ(m["tool_version"].toString(), GRAMLINE_VERSION);
   EXPECT_TRUE(m["parent"].isNull());
   EXPECT_FALSE(m["conventions"].toString().isEmpty());
@@ -294,7 +299,7 @@ TEST_F(DemoBundle, PrintableSummaryCarriesFiguresPlotsAndCautions) {
   EXPECT_EQ(svgs, 3u);  // timeline, training map, test map
   EXPECT_NE(html.find("laser safety officer"), std::string::npos);
   EXPECT_NE(html.find("nterlock"), std::string::npos);
-  EXPECT_NE(html.find("without anyone present"), std::string::npos);
+  EXPECT_NE(html.find("without a person in the lab"), std::string::npos);
 }
 
 }  // namespace

@@ -48,7 +48,8 @@ int main(int argc, char** argv) {
         c = static_cast<double>(std::binomial_distribution<long>(static_cast<long>(c), share)(rng));
     }
     const std::string text = gramline::formats::format_counts_csv(
-        records, bundle.steps.steps, gramline::formats::counts_layout(bundle.campaign));
+        records, bundle.steps.steps, gramline::formats::counts_layout(bundle.campaign),
+        bundle.manifest.bundle_id);
     QFile out(args[1]);
     if (!out.open(QIODevice::WriteOnly) ||
         out.write(text.data(), static_cast<qint64>(text.size())) !=

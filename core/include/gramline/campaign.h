@@ -2,6 +2,7 @@
 // A campaign: everything needed to plan a measurement run. Plain value type.
 #include <cstdint>
 #include <string>
+#include <vector>
 
 #include "gramline/budget.h"
 #include "gramline/dataset.h"
@@ -19,15 +20,34 @@ struct PrecisionTarget {
   Allocation allocation = Allocation::uniform;
 };
 
-/// Nightly observing window. Times are local clock times "HH:MM"; a window whose end is not
-/// after its start ends on the next day.
+/// Nightly observing window. Times are local wall-clock times "HH:MM"; a window whose end is
+/// not after its start ends on the next day. Nights are laid on the calendar from first_date,
+/// leaving out the skipped dates and weekdays (docs/plan-files.md, "Nights on the calendar").
 struct NightWindow {
   std::string first_date = "2026-12-01";  ///< date of the first night, YYYY-MM-DD
   int start_min = 20 * 60;                ///< start, minutes after midnight
   int end_min = 6 * 60;                   ///< end, minutes after midnight
   int max_nights = 7;
-  double length_s() const;  ///< window length in seconds
+  std::vector<std::string> skip_dates;  ///< dates without a night, YYYY-MM-DD
+  std::vector<int> skip_weekdays;       ///< weekdays without a night, 1 = Monday ... 7 = Sunday
+  double length_s() const;              ///< window length in seconds
+  /// Days from the first night's date to the date night `night` (1 for the first) begins on.
+  /// The first night is on first_date, or on the next date not skipped; night k of a calendar
+  /// without skips begins k - 1 days after it. Throws std::invalid_argument for a date
+  /// that is not YYYY-MM-DD or when every weekday is skipped.
+  int day_offset(int night) const;
+  /// Start of night `night` on the steps' clock: day_offset(night) x 86400 s.
+  double night_start_s(int night) const { return day_offset(night) * 86400.0; }
+  /// Date of night `night`, YYYY-MM-DD.
+  std::string night_date(int night) const;
 };
+
+/// Days since 1970-01-01 of a date "YYYY-MM-DD"; false when the text is not a valid date.
+bool parse_civil_date(const std::string& text, long& days);
+/// "YYYY-MM-DD" of a day number of parse_civil_date.
+std::string civil_date_text(long days);
+/// ISO weekday (1 = Monday ... 7 = Sunday) of a day number of parse_civil_date.
+int iso_weekday(long days);
 
 struct ScheduleSettings {
   double reference_interval_min = 20.0;  ///< a reference step at least this often; 0: none
