@@ -11,7 +11,6 @@
 
 #include <QDir>
 #include <QFile>
-#include <QProcess>
 #include <QProcessEnvironment>
 #include <QTemporaryDir>
 #include <map>
@@ -49,27 +48,15 @@ void write_text(const QString& path, const std::string& text) {
   f.write(text.data(), static_cast<qint64>(text.size()));
 }
 
-/// gramline-cli on a "disk" with `free_bytes` bytes left; `timeout_ms` bounds a run that must
-/// not hang.
+/// gramline-cli on a "disk" with `free_bytes` bytes left (none taken away when negative);
+/// `timeout_ms` bounds a run that must not hang.
 CliRun run_cli_with(const QStringList& arguments, long long free_bytes, int timeout_ms = 300000) {
-  QProcess process;
   QProcessEnvironment env = QProcessEnvironment::systemEnvironment();
   if (free_bytes >= 0) {
     env.insert("LD_PRELOAD", GRAMLINE_DISK_FULL_SHIM);
     env.insert("GRAMLINE_TEST_DISK_BYTES", QString::number(free_bytes));
   }
-  process.setProcessEnvironment(env);
-  process.start(QString(GRAMLINE_CLI_PATH), arguments);
-  CliRun run;
-  if (!process.waitForFinished(timeout_ms)) {
-    process.kill();
-    process.waitForFinished();
-    return run;
-  }
-  run.status = process.exitStatus() == QProcess::NormalExit ? process.exitCode() : -2;
-  run.out = process.readAllStandardOutput().toStdString();
-  run.err = process.readAllStandardError().toStdString();
-  return run;
+  return cli_test::run_cli_in(arguments, env, timeout_ms);
 }
 
 /// Every file in `dir` with its bytes (hidden ones included: a temporary would show).

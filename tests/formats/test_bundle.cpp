@@ -25,6 +25,7 @@
 #include "formats/atomic_file.h"
 #include "formats/bundle.h"
 #include "formats/input_error.h"
+#include "formats/limits.h"
 #include "formats/report_html.h"
 #include "gramline/demo.h"
 #include "gramline/plan.h"
@@ -295,6 +296,40 @@ TEST_F(DemoBundle, PrintableSummaryCarriesFiguresPlotsAndCautions) {
   EXPECT_NE(html.find("laser safety officer"), std::string::npos);
   EXPECT_NE(html.find("nterlock"), std::string::npos);
   EXPECT_NE(html.find("without anyone present"), std::string::npos);
+}
+
+// Limits (docs/limits.md).
+
+TEST(BundleLimits, EntriesTheFormatDoesNotDefineAreRefusedBeforeInflating) {
+  // 8 MiB of zeros under an unknown name: refused by name, whatever its size.
+  const std::string zip =
+      raw_zip({{"manifest.json", "{}"}, {"padding.bin", std::string(8 << 20, '\0')}});
+  const std::string e = error_of(zip);
+  EXPECT_NE(e.find("padding.bin"), std::string::npos) << e;
+  EXPECT_NE(e.find("not an entry the bundle format defines"), std::string::npos) << e;
+}
+
+TEST(BundleLimits, AKnownEntryLargerThanItsLimitIsRefusedByItsDeclaredSize) {
+  const std::int64_t limit = formats::bundle_entry_limit("summary.json");
+  ASSERT_EQ(limit, formats::limits::kSmallJsonBytes);
+  const std::string zip =
+      raw_zip({{"manifest.json", "{}"},
+               {"summary.json", std::string(static_cast<size_t>(limit + 1), ' ')}});
+  const std::string e = error_of(zip);
+  EXPECT_NE(e.find("summary.json"), std::string::npos) << e;
+  EXPECT_NE(e.find("declares"), std::string::npos) << e;
+  EXPECT_NE(e.find(std::to_string(limit)), std::string::npos) << e;
+}
+
+TEST(BundleLimits, TheDeclaredTotalIsBounded) {
+  formats::BundleReadLimits small;
+  small.total_bytes = 1000;
+  const std::string zip =
+      raw_zip({{"manifest.json", std::string(600, ' ')}, {"campaign.json", std::string(600, ' ')}});
+  const std::string e = error_of(zip, small);
+  EXPECT_NE(e.find("together"), std::string::npos) << e;
+  EXPECT_EQ(formats::bundle_entry_limit("notes.txt"), -1);
+  EXPECT_GT(formats::bundle_entry_limit("steps.json"), 0);
 }
 
 }  // namespace

@@ -1,12 +1,8 @@
-// Data safety of the file layer (docs/limits.md): strict JSON, bounded counts and bundles,
-// error lists cut short, sets of files saved and checked as one.
+// Data safety of the file layer (docs/limits.md): strict JSON, bounded counts (bundle limits:
+// test_bundle.cpp), error lists cut short, sets of files saved and checked as one.
 #include <gtest/gtest.h>
-#include <quazip/quazip.h>
-#include <quazip/quazipfile.h>
-#include <quazip/quazipnewinfo.h>
 #include <unistd.h>
 
-#include <QBuffer>
 #include <QDir>
 #include <QFile>
 #include <QTemporaryDir>
@@ -14,10 +10,8 @@
 #include <string>
 #include <vector>
 
-#include "formats/bundle.h"
 #include "formats/campaign_json.h"
 #include "formats/counts_csv.h"
-#include "formats/file_set.h"
 #include "formats/input_error.h"
 #include "formats/json_field.h"
 #include "formats/limits.h"
@@ -144,58 +138,6 @@ TEST(CountsLimits, MoreRowsThanTheLargestCampaignHasStepsAreRefused) {
   const std::string e =
       error_of([&] { formats::parse_counts_csv(text, "night.csv", two_photons()); });
   EXPECT_NE(e.find(std::to_string(limits::kCountsRows)), std::string::npos) << e;
-}
-
-// --- Bundles --------------------------------------------------------------------------------
-
-std::string raw_zip(const std::map<std::string, std::string>& entries) {
-  QBuffer buffer;
-  QuaZip zip(&buffer);
-  EXPECT_TRUE(zip.open(QuaZip::mdCreate));
-  for (const auto& [name, bytes] : entries) {
-    QuaZipFile f(&zip);
-    EXPECT_TRUE(f.open(QIODevice::WriteOnly, QuaZipNewInfo(QString::fromStdString(name))));
-    f.write(bytes.data(), static_cast<qint64>(bytes.size()));
-    f.close();
-  }
-  zip.close();
-  return buffer.data().toStdString();
-}
-
-std::string bundle_error(const std::string& zip, const formats::BundleReadLimits& l = {}) {
-  return error_of([&] { formats::parse_bundle(zip, "b.zip", l); });
-}
-
-TEST(BundleLimits, EntriesTheFormatDoesNotDefineAreRefusedBeforeInflating) {
-  // 8 MiB of zeros under an unknown name: refused by name, whatever its size.
-  const std::string zip =
-      raw_zip({{"manifest.json", "{}"}, {"padding.bin", std::string(8 << 20, '\0')}});
-  const std::string e = bundle_error(zip);
-  EXPECT_NE(e.find("padding.bin"), std::string::npos) << e;
-  EXPECT_NE(e.find("not an entry the bundle format defines"), std::string::npos) << e;
-}
-
-TEST(BundleLimits, AKnownEntryLargerThanItsLimitIsRefusedByItsDeclaredSize) {
-  const std::int64_t limit = formats::bundle_entry_limit("summary.json");
-  ASSERT_EQ(limit, limits::kSmallJsonBytes);
-  const std::string zip =
-      raw_zip({{"manifest.json", "{}"},
-               {"summary.json", std::string(static_cast<size_t>(limit + 1), ' ')}});
-  const std::string e = bundle_error(zip);
-  EXPECT_NE(e.find("summary.json"), std::string::npos) << e;
-  EXPECT_NE(e.find("declares"), std::string::npos) << e;
-  EXPECT_NE(e.find(std::to_string(limit)), std::string::npos) << e;
-}
-
-TEST(BundleLimits, TheDeclaredTotalIsBounded) {
-  formats::BundleReadLimits small;
-  small.total_bytes = 1000;
-  const std::string zip =
-      raw_zip({{"manifest.json", std::string(600, ' ')}, {"campaign.json", std::string(600, ' ')}});
-  const std::string e = bundle_error(zip, small);
-  EXPECT_NE(e.find("together"), std::string::npos) << e;
-  EXPECT_EQ(formats::bundle_entry_limit("notes.txt"), -1);
-  EXPECT_GT(formats::bundle_entry_limit("steps.json"), 0);
 }
 
 // --- Limits derive from the largest campaign --------------------------------------------------
