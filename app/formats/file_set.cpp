@@ -1,5 +1,8 @@
 #include "formats/file_set.h"
 
+#include <pthread.h>
+#include <signal.h>
+
 #include <QCryptographicHash>
 #include <QDir>
 #include <QFileInfo>
@@ -29,8 +32,20 @@ void save_file_set(const QString& dir, const std::vector<SetFile>& files, Overwr
     pending.back()->write(f.bytes);
     pending.back()->finish();
   }
-  // Every file is complete on the disk: only now are the old ones replaced.
-  for (auto& p : pending) p->move_into_place();
+  // Every file is complete on the disk: only now are the old ones replaced. Ctrl-C, SIGTERM and
+  // SIGHUP wait until every rename is done, so that they cannot split the set; a rename that
+  // fails still leaves each file whole, and the set's index tells the mix apart.
+  sigset_t stop_signals, previous;
+  sigemptyset(&stop_signals);
+  for (int s : {SIGINT, SIGTERM, SIGHUP}) sigaddset(&stop_signals, s);
+  pthread_sigmask(SIG_BLOCK, &stop_signals, &previous);
+  try {
+    for (auto& p : pending) p->move_into_place();
+  } catch (...) {
+    pthread_sigmask(SIG_SETMASK, &previous, nullptr);
+    throw;
+  }
+  pthread_sigmask(SIG_SETMASK, &previous, nullptr);
 }
 
 std::string content_set_id(const std::vector<std::string>& parts) {
