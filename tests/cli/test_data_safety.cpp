@@ -24,6 +24,7 @@
 #include "formats/limits.h"
 #include "formats/plan_files.h"
 #include "handoff_fixtures.h"
+#include "text_files.h"
 
 namespace {
 
@@ -36,16 +37,10 @@ const std::string kNoSpace = "No space left on device";
 
 QString data_file(const char* name) { return QString(GRAMLINE_TEST_DATA) + "/" + name; }
 
-std::string read_text(const QString& path) {
-  QFile f(path);
-  if (!f.open(QIODevice::ReadOnly)) return {};
-  return f.readAll().toStdString();
-}
+using test_files::read_text;
 
 void write_text(const QString& path, const std::string& text) {
-  QFile f(path);
-  ASSERT_TRUE(f.open(QIODevice::WriteOnly));
-  f.write(text.data(), static_cast<qint64>(text.size()));
+  ASSERT_TRUE(test_files::write_text(path, text)) << path.toStdString();
 }
 
 /// gramline-cli on a "disk" with `free_bytes` bytes left (none taken away when negative);

@@ -18,6 +18,7 @@
 #include "formats/plan_files.h"
 #include "gramline/demo.h"
 #include "gramline/plan.h"
+#include "text_files.h"
 
 namespace {
 
@@ -35,16 +36,10 @@ std::string error_of(F&& f) {
   return "(accepted)";
 }
 
-std::string read_text(const QString& path) {
-  QFile f(path);
-  if (!f.open(QIODevice::ReadOnly)) return {};
-  return f.readAll().toStdString();
-}
+using test_files::read_text;
 
 void write_text(const QString& path, const std::string& text) {
-  QFile f(path);
-  ASSERT_TRUE(f.open(QIODevice::WriteOnly));
-  f.write(text.data(), static_cast<qint64>(text.size()));
+  ASSERT_TRUE(test_files::write_text(path, text)) << path.toStdString();
 }
 
 // --- JSON -----------------------------------------------------------------------------------
