@@ -24,7 +24,6 @@
 #include "formats/limits.h"
 #include "formats/plan_files.h"
 #include "handoff_fixtures.h"
-#include "text_files.h"
 
 namespace {
 
@@ -37,10 +36,10 @@ const std::string kNoSpace = "No space left on device";
 
 QString data_file(const char* name) { return QString(GRAMLINE_TEST_DATA) + "/" + name; }
 
-using test_files::read_text;
+using cli_test::read_text;
 
 void write_text(const QString& path, const std::string& text) {
-  ASSERT_TRUE(test_files::write_text(path, text)) << path.toStdString();
+  ASSERT_TRUE(cli_test::write_text(path, text)) << path.toStdString();
 }
 
 /// gramline-cli on a "disk" with `free_bytes` bytes left (none taken away when negative);
