@@ -7,6 +7,7 @@
 #include "cli/progress_line.h"
 #include "formats/bundle.h"
 #include "formats/counts_csv.h"
+#include "formats/file_set.h"
 #include "formats/ingest_run.h"
 
 namespace gramline::cli {
@@ -16,6 +17,7 @@ int run_ingest(const IngestRequest& request) {
   const formats::Overwrite overwrite =
       request.force ? formats::Overwrite::allow : formats::Overwrite::refuse;
   // Refuse before the work, as every command that writes does.
+  formats::refuse_unusable_output_folder(out);
   for (const std::string& name : formats::ingest_file_names()) {
     formats::refuse_existing(QDir(out).filePath(QString::fromStdString(name)), overwrite);
   }

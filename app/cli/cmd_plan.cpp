@@ -7,6 +7,7 @@
 #include "formats/atomic_file.h"
 #include "formats/campaign_json.h"
 #include "formats/data_csv.h"
+#include "formats/file_set.h"
 #include "formats/input_error.h"
 #include "formats/plan_files.h"
 #include "gramline/demo.h"
@@ -16,13 +17,6 @@
 namespace gramline::cli {
 
 using formats::InputError;
-
-namespace {
-
-/// The files `plan --out DIR` writes.
-const char* const kPlanFiles[] = {"steps.json", "steps.csv", "summary.json", "kernel.csv"};
-
-}  // namespace
 
 Campaign load_campaign_for_command(const std::string& campaign_path,
                                    const std::optional<std::string>& data_path) {
@@ -69,10 +63,13 @@ int run_demo(const DemoRequest& request) {
 
 int run_plan(const PlanRequest& request) {
   // Refuse before planning: a plan that would be refused should not cost the planning time.
-  if (request.out_dir && !request.force) {
-    const QDir dir(QString::fromStdString(*request.out_dir));
-    for (const char* name : kPlanFiles) {
-      formats::refuse_existing(dir.filePath(name), formats::Overwrite::refuse);
+  const formats::Overwrite overwrite =
+      request.force ? formats::Overwrite::allow : formats::Overwrite::refuse;
+  if (request.out_dir) {
+    const QString out = QString::fromStdString(*request.out_dir);
+    formats::refuse_unusable_output_folder(out);
+    for (const std::string& name : formats::plan_file_names()) {
+      formats::refuse_existing(QDir(out).filePath(QString::fromStdString(name)), overwrite);
     }
   }
   Campaign campaign = load_campaign_for_command(request.campaign_path, request.data_path);
@@ -91,7 +88,7 @@ int run_plan(const PlanRequest& request) {
   std::cout << plan.report();
   if (!plan.report().empty() && plan.report().back() != '\n') std::cout << "\n";
   if (request.out_dir) {
-    formats::write_plan_files(campaign, plan, QString::fromStdString(*request.out_dir));
+    formats::write_plan_files(campaign, plan, QString::fromStdString(*request.out_dir), overwrite);
     std::cout << "wrote steps.json, steps.csv, summary.json and kernel.csv to " << *request.out_dir
               << "\n";
   }

@@ -16,11 +16,14 @@
 #include <vector>
 
 #include "cli/commands.h"
+#include "formats/file_set.h"
 #include "formats/input_error.h"
+#include "formats/limits.h"
 
 namespace {
 
 using gramline::formats::InputError;
+using gramline::formats::SystemError;
 
 /// One option of a command: its name without dashes, the value it takes (empty for a flag) and
 /// its lines in the help text.
@@ -230,6 +233,18 @@ T whole_number(const std::string& command, const std::string& option, const std:
   return value;
 }
 
+/// whole_number no larger than `high`, the limit named in the message (docs/limits.md).
+template <class T>
+T bounded_number(const std::string& command, const std::string& option, const std::string& text,
+                 T low, T high) {
+  const T value = whole_number<T>(command, option, text, low);
+  if (value > high) {
+    throw InputError("gramline-cli " + command + ": option " + option + ": " + text +
+                     " is more than the limit of " + std::to_string(high) + " (docs/limits.md)");
+  }
+  return value;
+}
+
 /// The words after a command, read against that command's options.
 class CommandLine {
  public:
@@ -416,7 +431,8 @@ int dispatch(const QStringList& argv) {
     request.data_path = line.value("data");
     request.out_path = line.value("out");
     if (auto trials = line.value("trials")) {
-      request.trials = whole_number<int>(name, "--trials", *trials, 1);
+      request.trials = bounded_number<int>(name, "--trials", *trials, 1,
+                                           static_cast<int>(gramline::formats::limits::kTrials));
     }
     request.seed = line.seed();
     request.force = line.flag("force");
@@ -459,6 +475,8 @@ int dispatch(const QStringList& argv) {
 }  // namespace
 
 int main(int argc, char** argv) {
+  // A save cut short by Ctrl-C or a kill leaves no temporary file behind.
+  gramline::formats::remove_temporaries_on_signals();
   try {
     QStringList words;
     // File names pass through as UTF-8, as the formats read them.
@@ -467,8 +485,12 @@ int main(int argc, char** argv) {
   } catch (const InputError& e) {
     std::cerr << e.what() << "\n";
     return 2;
+  } catch (const SystemError& e) {
+    std::cerr << "gramline-cli: " << e.what() << "\n";
+    return 1;
   } catch (const std::exception& e) {
-    std::cerr << "gramline-cli: internal failure: " << e.what() << "\n";
+    std::cerr << "gramline-cli: internal failure: "
+              << gramline::formats::printable_message(e.what()) << "\n";
     return 1;
   } catch (...) {
     std::cerr << "gramline-cli: internal failure\n";

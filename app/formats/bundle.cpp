@@ -134,7 +134,7 @@ BundleWritten write_bundle(const Campaign& campaign, const Plan& plan, const QSt
   std::map<std::string, std::string> entries =
       bundle_entries(campaign, plan, options.resume ? &*options.resume : nullptr);
   for (const auto& [name, bytes] : options.extra_entries) {
-    if (!is_safe_entry_name(name) || name == kManifestEntry)
+    if (!is_safe_entry_name(name) || name == kManifestEntry || bundle_entry_limit(name) < 0)
       throw std::invalid_argument("write_bundle: unusable entry name " + name);
     entries[name] = bytes;
   }
@@ -170,6 +170,24 @@ bool is_safe_entry_name(std::string_view name) {
   return true;
 }
 
+std::int64_t bundle_entry_limit(std::string_view name) {
+  using namespace limits;
+  static const std::map<std::string_view, std::int64_t> known = {
+      {kManifestEntry, kSmallJsonBytes},
+      {kCampaignEntry, kCampaignBytes},
+      {kDataEntry, kDataCsvBytes},
+      {kStepsJsonEntry, kStepsJsonBytes},
+      {kStepsCsvEntry, kStepsCsvBytes},
+      {kSummaryJsonEntry, kSmallJsonBytes},
+      {kKernelEntry, kKernelCsvBytes},
+      {kSummaryHtmlEntry, kSummaryHtmlBytes},
+      {kMeasuredStepsEntry, kStepsJsonBytes},
+      {kMeasuredCountsEntry, kCountsBytes},
+      {kResumeEntry, kSmallJsonBytes}};
+  const auto it = known.find(name);
+  return it == known.end() ? -1 : it->second;
+}
+
 std::map<std::string, std::string> unzip_entries(const std::string& zip_bytes,
                                                  const std::string& source,
                                                  const BundleReadLimits& limits) {
@@ -179,8 +197,13 @@ std::map<std::string, std::string> unzip_entries(const std::string& zip_bytes,
   if (!zip.open(QuaZip::mdUnzip))
     throw InputError(source + ": not a readable zip archive (QuaZip error " +
                      std::to_string(zip.getZipError()) + ")");
-  std::map<std::string, std::string> out;
-  std::int64_t total = 0;
+  if (zip.getEntriesCount() > limits.entries)
+    throw InputError(source + ": " + std::to_string(zip.getEntriesCount()) +
+                     " entries, more than the " + std::to_string(limits.entries) +
+                     " a bundle may hold");
+  // First the directory alone: names and declared sizes are judged before anything inflates.
+  std::map<std::string, std::int64_t> limit_of;
+  std::int64_t declared_total = 0;
   int count = 0;
   for (bool more = zip.goToFirstFile(); more; more = zip.goToNextFile()) {
     if (++count > limits.entries)
@@ -192,15 +215,36 @@ std::map<std::string, std::string> unzip_entries(const std::string& zip_bytes,
     const std::string where = source + ": entry '" + name + "'";
     if (!is_safe_entry_name(name))
       throw InputError(where + ": refused, the name would escape the folder it is unpacked into");
-    if (out.count(name)) throw InputError(where + ": appears twice");
-    if (info.uncompressedSize > static_cast<quint64>(limits.entry_bytes))
+    std::int64_t limit = bundle_entry_limit(name);
+    if (limit < 0) throw InputError(where + ": not an entry the bundle format defines; refused");
+    if (limits.entry_bytes > 0) limit = std::min(limit, limits.entry_bytes);
+    if (!limit_of.emplace(name, limit).second) throw InputError(where + ": appears twice");
+    if (info.uncompressedSize > static_cast<quint64>(limit))
       throw InputError(where + ": declares " + std::to_string(info.uncompressedSize) +
-                       " bytes, more than the limit of " + std::to_string(limits.entry_bytes));
+                       " bytes, more than the limit of " + std::to_string(limit) +
+                       " for this entry (docs/limits.md)");
+    declared_total += static_cast<std::int64_t>(info.uncompressedSize);
+    if (declared_total > limits.total_bytes)
+      throw InputError(source + ": the entries declare more than the limit of " +
+                       std::to_string(limits.total_bytes) + " bytes together (docs/limits.md)");
+  }
+  if (zip.getZipError() != 0)
+    throw InputError(source + ": damaged zip directory (QuaZip error " +
+                     std::to_string(zip.getZipError()) + ")");
+  std::map<std::string, std::string> out;
+  std::int64_t total = 0;
+  for (bool more = zip.goToFirstFile(); more; more = zip.goToNextFile()) {
+    QuaZipFileInfo64 info;
+    if (!zip.getCurrentFileInfo(&info)) throw InputError(source + ": unreadable entry header");
+    const std::string name = info.name.toStdString();
+    const std::string where = source + ": entry '" + name + "'";
+    const std::int64_t limit = limit_of.at(name);
     QuaZipFile file(&zip);
     if (!file.open(QIODevice::ReadOnly))
       throw InputError(where + ": cannot be read (QuaZip error " +
                        std::to_string(file.getZipError()) + ")");
     std::string bytes;
+    bytes.reserve(static_cast<size_t>(info.uncompressedSize));
     char chunk[65536];
     while (true) {
       const qint64 got = file.read(chunk, sizeof chunk);
@@ -210,14 +254,15 @@ std::map<std::string, std::string> unzip_entries(const std::string& zip_bytes,
       }
       if (got == 0) break;
       bytes.append(chunk, static_cast<size_t>(got));
-      if (static_cast<std::int64_t>(bytes.size()) > limits.entry_bytes) {
+      // The declared size may lie: the inflated bytes are held to the limits too.
+      if (static_cast<std::int64_t>(bytes.size()) > limit) {
         file.close();
-        throw InputError(where + ": larger than the limit of " +
-                         std::to_string(limits.entry_bytes) + " bytes");
+        throw InputError(where + ": larger than the limit of " + std::to_string(limit) +
+                         " bytes for this entry");
       }
       if (total + static_cast<std::int64_t>(bytes.size()) > limits.total_bytes) {
         file.close();
-        throw InputError(source + ": the entries together exceed " +
+        throw InputError(source + ": the entries together exceed the limit of " +
                          std::to_string(limits.total_bytes) + " bytes");
       }
     }
@@ -385,11 +430,7 @@ Bundle parse_bundle(const std::string& zip_bytes, const std::string& source,
 }
 
 Bundle read_bundle(const QString& path, const BundleReadLimits& limits) {
-  const QFileInfo info(path);
-  if (info.exists() && info.size() > limits.total_bytes)
-    throw InputError(path_text(path) + ": larger than the bundle limit of " +
-                     std::to_string(limits.total_bytes) + " bytes");
-  return parse_bundle(read_whole_file(path), path_text(path), limits);
+  return parse_bundle(read_whole_file(path, limits.file_bytes), path_text(path), limits);
 }
 
 std::string check_counts_bundle(const Bundle& bundle, const CountsFile& counts) {

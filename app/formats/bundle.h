@@ -25,6 +25,7 @@
 
 #include "formats/atomic_file.h"
 #include "formats/counts_csv.h"
+#include "formats/limits.h"
 #include "formats/plan_files.h"
 #include "formats/report_html.h"
 #include "gramline/campaign.h"
@@ -47,8 +48,9 @@ inline constexpr const char* kMeasuredCountsEntry = "measured_counts.csv";
 inline constexpr const char* kResumeEntry = "resume.json";
 inline constexpr const char* kCautionsEntry = "CAUTIONS.txt";
 
-/// Largest uncompressed entry a bundle reader accepts (declared and actually read).
-inline constexpr std::int64_t kBundleEntryLimitBytes = std::int64_t{512} << 20;
+/// Largest uncompressed size of the entry `name` (formats/limits.h, docs/limits.md), or -1 when
+/// the bundle format does not define an entry of that name.
+std::int64_t bundle_entry_limit(std::string_view name);
 
 /// Lowercase hexadecimal SHA-256 (QCryptographicHash).
 std::string sha256_hex(std::string_view bytes);
@@ -100,11 +102,13 @@ std::string zip_entries(const std::map<std::string, std::string>& entries, const
 BundleWritten write_bundle(const Campaign& campaign, const Plan& plan, const QString& path,
                            const BundleWriteOptions& options = {});
 
-/// Limits of the bundle reader.
+/// Limits of the bundle reader; the defaults derive from the largest supported campaign.
 struct BundleReadLimits {
-  std::int64_t entry_bytes = kBundleEntryLimitBytes;  ///< per entry, uncompressed
-  std::int64_t total_bytes = 2 * kBundleEntryLimitBytes;
-  int entries = 256;
+  /// Per entry, uncompressed, on top of each entry's own limit (bundle_entry_limit); 0: none.
+  std::int64_t entry_bytes = 0;
+  std::int64_t total_bytes = limits::kBundleTotalBytes;  ///< all entries, uncompressed
+  std::int64_t file_bytes = limits::kBundleFileBytes;    ///< the zip file itself
+  int entries = limits::kBundleEntries;
 };
 
 /// True for a relative entry name that stays inside the folder it would be unpacked into: not
@@ -113,8 +117,10 @@ struct BundleReadLimits {
 bool is_safe_entry_name(std::string_view name);
 
 /// Every entry of a zip archive held in memory. Throws InputError naming `source` (and the
-/// entry) for: a file that is not a zip archive, an unsafe entry name, a repeated name, an
-/// entry larger than the limit (declared or read), a damaged entry (CRC), too many entries.
+/// entry) for: a file that is not a zip archive, an unsafe entry name, a name the bundle format
+/// does not define, a repeated name, an entry larger than its limit or entries together larger
+/// than the total (the declared sizes are checked before anything is inflated, the inflated
+/// bytes as they come), a damaged entry (CRC), too many entries.
 std::map<std::string, std::string> unzip_entries(const std::string& zip_bytes,
                                                  const std::string& source,
                                                  const BundleReadLimits& limits = {});

@@ -8,6 +8,7 @@
 #include <set>
 
 #include "formats/json_field.h"
+#include "formats/limits.h"
 #include "formats/rig_json.h"
 #include "formats/text_io.h"
 
@@ -60,7 +61,12 @@ QJsonObject encoding_to_json(const EncodingMap& encoding) {
 
 DataSet data_from_json(const JsonField& f) {
   DataSet data;
-  for (const JsonField& n : f["feature_names"].items()) data.feature_names.push_back(n.text());
+  // The largest supported campaign bounds what is read (docs/limits.md).
+  const std::vector<JsonField> names = f["feature_names"].items();
+  if (static_cast<std::int64_t>(names.size()) > limits::kFeatures)
+    f["feature_names"].fail(std::to_string(names.size()) + " features, more than the limit of " +
+                            std::to_string(limits::kFeatures) + " (docs/limits.md)");
+  for (const JsonField& n : names) data.feature_names.push_back(n.text());
   data.positive_name = f["positive_name"].text();
   data.negative_name = f["negative_name"].text();
   const long d = static_cast<long>(data.feature_names.size());
@@ -79,6 +85,10 @@ DataSet data_from_json(const JsonField& f) {
         p["set"].fail("'" + s + "' is neither 'train' nor 'test'");
       }
     }
+    const std::int64_t limit = set == 0 ? limits::kTrainPoints : limits::kTestPoints;
+    if (static_cast<std::int64_t>(rows[set].size()) >= limit)
+      p.fail("more than the limit of " + std::to_string(limit) +
+             (set == 0 ? " training" : " test") + " points (docs/limits.md)");
     rows[set].push_back(x);
     labels[set].push_back(label);
   }
@@ -319,7 +329,7 @@ Campaign campaign_from_json(const QJsonObject& object, const std::string& file) 
     t.flip_threshold = k["flip_threshold"].number();
     t.margin_ratio_threshold = k["margin_ratio_threshold"].number();
     t.keep_unit_diagonal = k["keep_unit_diagonal"].boolean();
-    t.trials = static_cast<int>(k["trials"].integer(1, std::numeric_limits<int>::max()));
+    t.trials = static_cast<int>(k["trials"].integer(1, limits::kTrials));
   }
   return c;
 }
@@ -336,7 +346,7 @@ std::string format_campaign(const Campaign& campaign) {
 }
 
 Campaign load_campaign(const QString& path) {
-  return parse_campaign(read_whole_file(path), path_text(path));
+  return parse_campaign(read_whole_file(path, limits::kCampaignBytes), path_text(path));
 }
 
 void save_campaign(const Campaign& campaign, const QString& path) {

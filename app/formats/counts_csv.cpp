@@ -2,11 +2,13 @@
 
 #include <algorithm>
 #include <cmath>
+#include <cstdint>
 #include <map>
 #include <optional>
 #include <sstream>
 
 #include "formats/input_error.h"
+#include "formats/limits.h"
 #include "formats/text_io.h"
 
 namespace gramline::formats {
@@ -149,6 +151,12 @@ class Parser {
       fail_at(line, columns_.end,
               "end before start: the counting interval must end after it starts (start_s " +
                   std::string(field(columns_.start)) + ")");
+    const double interval_s = r.record.end_s - r.record.start_s;
+    if (interval_s < limits::kShortestInterval_s)
+      fail_at(line, columns_.end,
+              "a counting interval of " + exact_number_text(interval_s) +
+                  " s is shorter than the limit of " +
+                  exact_number_text(limits::kShortestInterval_s) + " s (docs/limits.md)");
     for (int column : columns_.channel) {
       double n = 0.0;
       const std::string_view t = field(column);
@@ -157,6 +165,11 @@ class Parser {
       if (n < 0) fail_at(line, column, "negative count " + quoted(t));
       if (n != std::floor(n) || n > kCountLimit)
         fail_at(line, column, quoted(t) + " is not a whole count");
+      if (n > limits::kFastestRate_per_s * interval_s)
+        fail_at(line, column,
+                quoted(t) + " counts in " + exact_number_text(interval_s) +
+                    " s exceed the fastest rate a detector can give (" +
+                    exact_number_text(limits::kFastestRate_per_s) + " per s; docs/limits.md)");
       r.record.channel_counts.push_back(n);
     }
     if (has_singles_) {
@@ -174,6 +187,10 @@ class Parser {
           if (!parse_number(t, s) || !std::isfinite(s))
             fail_at(line, column, quoted(t) + " is not a number");
           if (s < 0) fail_at(line, column, "negative singles rate " + quoted(t));
+          if (s > limits::kFastestRate_per_s)
+            fail_at(line, column,
+                    "singles rate " + quoted(t) + " is above the limit of " +
+                        exact_number_text(limits::kFastestRate_per_s) + " per s (docs/limits.md)");
           r.record.singles_per_s.push_back(s);
         }
       }
@@ -188,6 +205,11 @@ class Parser {
     double x = 0.0;
     if (!parse_number(t, x) || !std::isfinite(x))
       fail_at(line, column, quoted(t) + " is not a time in seconds");
+    if (std::fabs(x) > limits::kCampaignSeconds)
+      fail_at(line, column,
+              quoted(t) + " lies outside the campaign: times are within " +
+                  exact_number_text(limits::kCampaignSeconds) +
+                  " s of the first night's start (docs/limits.md)");
     return x;
   }
 
@@ -255,6 +277,9 @@ CountsFile parse_counts_csv(const std::string& text, const std::string& source,
       have_header = true;
       continue;
     }
+    if (static_cast<std::int64_t>(out.rows.size()) >= limits::kCountsRows)
+      throw InputError(source + ": line " + std::to_string(line) + ": more than the limit of " +
+                       std::to_string(limits::kCountsRows) + " rows (docs/limits.md)");
     out.rows.push_back(parser.row(l, line));
   }
   if (!have_header) throw InputError(source + ": no header row (the file is empty)");
@@ -273,7 +298,7 @@ std::string counts_bundle_line(std::string_view text) {
 }
 
 CountsFile read_counts_csv(const QString& path, const CountsLayout& layout) {
-  return parse_counts_csv(read_whole_file(path), path_text(path), layout);
+  return parse_counts_csv(read_whole_file(path, limits::kCountsBytes), path_text(path), layout);
 }
 
 CountsCheck check_counts(const CountsFile& counts, const std::vector<Step>& steps) {
@@ -323,8 +348,18 @@ CountsCheck check_counts(const CountsFile& counts, const std::vector<Step>& step
 
 std::string CountsCheck::report() const {
   std::ostringstream o;
-  for (const auto* list : {&extra, &duplicated, &kind_mismatch})
-    for (const Problem& p : *list) o << p.message << "\n";
+  // The first problems in full, then only how many more (docs/limits.md).
+  size_t listed = 0, total = 0;
+  for (const auto* list : {&extra, &duplicated, &kind_mismatch}) {
+    for (const Problem& p : *list) {
+      ++total;
+      if (listed < static_cast<size_t>(limits::kListedErrors)) {
+        o << p.message << "\n";
+        ++listed;
+      }
+    }
+  }
+  if (total > listed) o << "... and " << (total - listed) << " more problem row(s)\n";
   o << extra.size() << " extra, " << duplicated.size() << " duplicated, " << kind_mismatch.size()
     << " kind-mismatched row(s); " << missing.size() << " step(s) to count have no row";
   if (!missing.empty()) {

@@ -3,12 +3,14 @@
 #include <algorithm>
 #include <cctype>
 #include <cmath>
+#include <cstdint>
 #include <map>
 #include <optional>
 #include <stdexcept>
 #include <vector>
 
 #include "formats/input_error.h"
+#include "formats/limits.h"
 #include "formats/text_io.h"
 
 namespace gramline::formats {
@@ -163,6 +165,17 @@ DataSet parse_data_csv(const std::string& text, const std::string& source_name) 
   if (!label_column) source.fail(header.line, "the header has no 'label' column");
   if (feature_columns.empty()) source.fail(header.line, "the header has no feature columns");
   if (records.size() == 1) source.fail(header.line, "no data rows after the header");
+  // The largest supported campaign bounds what is read (docs/limits.md).
+  if (feature_columns.size() > static_cast<size_t>(limits::kFeatures))
+    source.fail(header.line, std::to_string(feature_columns.size()) +
+                                 " feature columns, more than the limit of " +
+                                 std::to_string(limits::kFeatures) + " (docs/limits.md)");
+  if (records.size() - 1 > static_cast<size_t>(limits::kPoints))
+    source.fail(records[static_cast<size_t>(limits::kPoints) + 1].line,
+                std::to_string(records.size() - 1) + " data rows, more than the limit of " +
+                    std::to_string(limits::kPoints) + " points (" +
+                    std::to_string(limits::kTrainPoints) + " training and " +
+                    std::to_string(limits::kTestPoints) + " test; docs/limits.md)");
 
   const size_t width = header.fields.size();
   std::vector<std::string> classes;  // canonical class names, in the order met
@@ -228,6 +241,15 @@ DataSet parse_data_csv(const std::string& text, const std::string& source_name) 
   }
 
   const int last_line = records.back().line;
+  const auto test_rows_seen =
+      std::count_if(rows.begin(), rows.end(), [](const Row& r) { return r.test; });
+  const auto train_rows_seen = static_cast<std::int64_t>(rows.size()) - test_rows_seen;
+  if (train_rows_seen > limits::kTrainPoints || test_rows_seen > limits::kTestPoints)
+    source.fail(last_line, std::to_string(train_rows_seen) + " training and " +
+                               std::to_string(test_rows_seen) +
+                               " test points, more than the limits of " +
+                               std::to_string(limits::kTrainPoints) + " and " +
+                               std::to_string(limits::kTestPoints) + " (docs/limits.md)");
   const std::string label_where = column_text(*label_column, header.fields[*label_column]);
   bool train_has[2] = {false, false};
   for (const Row& row : rows) {
@@ -292,7 +314,7 @@ DataSet parse_data_csv(const std::string& text, const std::string& source_name) 
 }
 
 DataSet read_data_csv(const QString& path) {
-  return parse_data_csv(read_whole_file(path), path_text(path));
+  return parse_data_csv(read_whole_file(path, limits::kDataCsvBytes), path_text(path));
 }
 
 std::string format_data_csv(const DataSet& data) {

@@ -10,6 +10,7 @@
 #include <sstream>
 #include <stdexcept>
 
+#include "formats/file_set.h"
 #include "formats/input_error.h"
 #include "formats/text_io.h"
 
@@ -112,7 +113,8 @@ std::string IngestRun::report() const {
   return o.str();
 }
 
-std::string format_ingest_json(const IngestRun& run) {
+std::string format_ingest_json(const IngestRun& run, const std::string& set_id,
+                               const std::map<std::string, std::string>& set_files) {
   const IngestResult& r = run.result;
   QJsonArray outliers;
   for (const Outlier& x : r.outliers) {
@@ -152,27 +154,33 @@ std::string format_ingest_json(const IngestRun& run) {
                       {"ideal_test_accuracy", number_or_null(run.ideal_test_accuracy)},
                       {"psd_repaired", run.psd_repaired}};
   }
-  const QJsonObject o{{"format", "gramline-ingest"},
-                      {"version", 1},
-                      {"bundle", q(run.bundle_source)},
-                      {"bundle_manifest_sha256", q(run.manifest_sha256)},
-                      {"counts", q(run.counts_source)},
-                      {"simulated", !run.simulated_note.empty()},
-                      {"simulated_note", q(run.simulated_note)},
-                      {"earlier_simulated", !run.earlier_simulated_note.empty()},
-                      {"earlier_steps", run.earlier_steps},
-                      {"measured_entries", r.measured_entries},
-                      {"expected_entries", r.expected_entries},
-                      {"unmeasured_train_entries", run.unmeasured_train},
-                      {"unmeasured_test_entries", run.unmeasured_test},
-                      {"missing_steps", missing},
-                      {"z_mean", number_or_null(r.z_mean)},
-                      {"z_std", number_or_null(r.z_std)},
-                      {"outliers", outliers},
-                      {"drift", drift},
-                      {"drift_flagged", drifted},
-                      {"svm", svm},
-                      {"svm_skipped_reason", q(run.svm_skipped_reason)}};
+  QJsonObject o{{"format", "gramline-ingest"},
+                {"version", 1},
+                {"bundle", q(run.bundle_source)},
+                {"bundle_manifest_sha256", q(run.manifest_sha256)},
+                {"counts", q(run.counts_source)},
+                {"simulated", !run.simulated_note.empty()},
+                {"simulated_note", q(run.simulated_note)},
+                {"earlier_simulated", !run.earlier_simulated_note.empty()},
+                {"earlier_steps", run.earlier_steps},
+                {"measured_entries", r.measured_entries},
+                {"expected_entries", r.expected_entries},
+                {"unmeasured_train_entries", run.unmeasured_train},
+                {"unmeasured_test_entries", run.unmeasured_test},
+                {"missing_steps", missing},
+                {"z_mean", number_or_null(r.z_mean)},
+                {"z_std", number_or_null(r.z_std)},
+                {"outliers", outliers},
+                {"drift", drift},
+                {"drift_flagged", drifted},
+                {"svm", svm},
+                {"svm_skipped_reason", q(run.svm_skipped_reason)}};
+  if (!set_id.empty()) {
+    QJsonObject files;
+    for (const auto& [name, bytes] : set_files) files[q(name)] = q(sha256_hex(bytes));
+    o[kSetIdKey] = q(set_id);
+    o[kSetFilesKey] = files;
+  }
   const QByteArray text = QJsonDocument(o).toJson(QJsonDocument::Indented);
   return std::string(text.constData(), static_cast<size_t>(text.size()));
 }
@@ -183,10 +191,9 @@ std::vector<std::string> ingest_file_names() {
 }
 
 void write_ingest_files(const IngestRun& run, const QString& dir, Overwrite overwrite) {
-  const QDir d(dir);
+  refuse_unusable_output_folder(dir);
   for (const std::string& name : ingest_file_names())
-    refuse_existing(d.filePath(q(name)), overwrite);
-  if (!QDir().mkpath(dir)) throw InputError(path_text(dir) + ": cannot create the folder");
+    refuse_existing(QDir(dir).filePath(q(name)), overwrite);
   const IngestResult& r = run.result;
   const Plan& p = run.plan;
   const int n = static_cast<int>(r.gram_measured.rows());
@@ -226,16 +233,21 @@ void write_ingest_files(const IngestRun& run, const QString& dir, Overwrite over
   for (long t = 0; t < test_sigma.rows(); ++t)
     for (int j = 0; j < n; ++j)
       if (!std::isfinite(r.test_measured(t, j))) test_sigma(t, j) = kNaN;
-  const std::vector<std::pair<const char*, std::string>> files = {
-      {"measured_kernel.csv", matrix_csv(r.gram_measured)},
-      {"measured_sigma.csv", matrix_csv(sigma)},
-      {"test_block.csv", matrix_csv(r.test_measured)},
-      {"test_sigma.csv", matrix_csv(test_sigma)},
-      {"zscores.csv", z},
-      {"drift.csv", drift},
-      {"ingest.json", format_ingest_json(run)}};
-  for (const auto& [name, bytes] : files)
-    save_atomically(d.filePath(name), bytes, Overwrite::allow);
+  std::map<std::string, std::string> csv = {{"measured_kernel.csv", matrix_csv(r.gram_measured)},
+                                            {"measured_sigma.csv", matrix_csv(sigma)},
+                                            {"test_block.csv", matrix_csv(r.test_measured)},
+                                            {"test_sigma.csv", matrix_csv(test_sigma)},
+                                            {"zscores.csv", z},
+                                            {"drift.csv", drift}};
+  // ingest.json is the set's index: it names the save and fixes the others' SHA-256.
+  std::vector<std::string> parts;
+  for (const auto& [name, bytes] : csv) parts.push_back(bytes);
+  const std::string id = content_set_id(parts);
+  std::string index = format_ingest_json(run, id, csv);
+  std::vector<SetFile> files;
+  for (const std::string& name : ingest_file_names())
+    files.push_back({name, name == "ingest.json" ? std::move(index) : std::move(csv[name])});
+  save_file_set(dir, files, overwrite);
 }
 
 }  // namespace gramline::formats

@@ -4,6 +4,7 @@
 // function for the command line and the app; the files it writes live here too.
 #include <Eigen/Core>
 #include <QString>
+#include <map>
 #include <string>
 #include <vector>
 
@@ -46,11 +47,14 @@ IngestRun ingest_counts(const Bundle& bundle, const CountsFile& counts,
 std::vector<std::string> ingest_file_names();
 
 /// Writes measured_kernel.csv, measured_sigma.csv, test_block.csv, test_sigma.csv, zscores.csv,
-/// drift.csv and ingest.json into `dir` (created if needed), each atomically. With
-/// Overwrite::refuse nothing is written when any of them exists.
+/// drift.csv and ingest.json into `dir` (created if needed) as one set (save_file_set,
+/// file_set.h): nothing changes unless all seven are complete. With Overwrite::refuse nothing is
+/// written when any of them exists.
 void write_ingest_files(const IngestRun& run, const QString& dir, Overwrite overwrite);
 
-/// ingest.json text.
-std::string format_ingest_json(const IngestRun& run);
+/// ingest.json text; with a `set_id`, also the save's id and the SHA-256 of each other file of
+/// the set (`set_files`: name -> bytes).
+std::string format_ingest_json(const IngestRun& run, const std::string& set_id = {},
+                               const std::map<std::string, std::string>& set_files = {});
 
 }  // namespace gramline::formats

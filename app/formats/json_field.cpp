@@ -3,6 +3,9 @@
 #include <QJsonDocument>
 #include <QJsonParseError>
 #include <cmath>
+#include <cstdlib>
+#include <set>
+#include <vector>
 
 namespace gramline::formats {
 
@@ -98,11 +101,142 @@ std::vector<double> JsonField::numbers(long length) const {
   return out;
 }
 
+namespace {
+
+/// What QJsonDocument lets through and a Gramline file must not hold: a key given twice in one
+/// object (QJsonDocument keeps the last silently) and a raw control character (a NUL, say)
+/// inside a string. One pass over text QJsonDocument has accepted as JSON.
+class StrictJsonScan {
+ public:
+  StrictJsonScan(const std::string& text, const std::string& file) : text_(text), file_(file) {}
+
+  void run() {
+    while (at_ < text_.size()) {
+      const char c = text_[at_];
+      if (c == '{' || c == '[') {
+        frames_.push_back({c == '{', {}, child_path(), 0, c == '{', {}});
+        ++at_;
+      } else if (c == '}' || c == ']') {
+        if (!frames_.empty()) frames_.pop_back();
+        ++at_;
+      } else if (c == ',') {
+        if (!frames_.empty()) {
+          Frame& f = frames_.back();
+          if (f.object) {
+            f.want_key = true;
+          } else {
+            ++f.index;
+          }
+        }
+        ++at_;
+      } else if (c == '"') {
+        const size_t start = at_;
+        const std::string value = string_token();
+        if (!frames_.empty() && frames_.back().object && frames_.back().want_key) {
+          Frame& f = frames_.back();
+          f.want_key = false;
+          f.key = value;
+          if (!f.keys.insert(value).second)
+            fail(start, child_path() +
+                            ": the key appears twice in one object (only one value "
+                            "may be given)");
+        }
+      } else {
+        ++at_;
+      }
+    }
+  }
+
+ private:
+  struct Frame {
+    bool object;
+    std::set<std::string> keys;
+    std::string path;
+    long index;
+    bool want_key;
+    std::string key;
+  };
+
+  std::string child_path() const {
+    if (frames_.empty()) return {};
+    const Frame& f = frames_.back();
+    if (f.object) return f.path.empty() ? f.key : f.path + "." + f.key;
+    return f.path + "[" + std::to_string(f.index) + "]";
+  }
+
+  [[noreturn]] void fail(size_t offset, const std::string& message) const {
+    int line = 1;
+    for (size_t i = 0; i < offset && i < text_.size(); ++i) line += text_[i] == '\n' ? 1 : 0;
+    throw InputError(file_ + ":" + std::to_string(line) + ": " + message);
+  }
+
+  /// The string starting at at_ (a quote), decoded enough to compare keys; at_ moves past it.
+  std::string string_token() {
+    std::string out;
+    const size_t start = at_;
+    ++at_;
+    while (at_ < text_.size()) {
+      const auto c = static_cast<unsigned char>(text_[at_]);
+      if (c == '"') {
+        ++at_;
+        return out;
+      }
+      if (c < 0x20) {
+        const bool is_key = !frames_.empty() && frames_.back().object && frames_.back().want_key;
+        const std::string where =
+            is_key ? (frames_.back().path.empty() ? std::string("(a key)")
+                                                  : frames_.back().path + ".(a key)")
+                   : child_path();
+        fail(start, (where.empty() ? std::string("(top level)") : where) +
+                        ": a raw control character (byte " + std::to_string(c) +
+                        ") inside a string; write it escaped, e.g. \\u0000");
+      }
+      if (c == '\\' && at_ + 1 < text_.size()) {
+        const char e = text_[at_ + 1];
+        if (e == 'u' && at_ + 5 < text_.size()) {
+          // "\u0061" and "a" name the same key.
+          const std::string hex = text_.substr(at_ + 2, 4);
+          const unsigned long code = std::strtoul(hex.c_str(), nullptr, 16);
+          if (code < 0x80) {
+            out += static_cast<char>(code);
+          } else if (code < 0x800) {
+            out += static_cast<char>(0xC0 | (code >> 6));
+            out += static_cast<char>(0x80 | (code & 0x3F));
+          } else if (code < 0xD800 || code > 0xDFFF) {
+            out += static_cast<char>(0xE0 | (code >> 12));
+            out += static_cast<char>(0x80 | ((code >> 6) & 0x3F));
+            out += static_cast<char>(0x80 | (code & 0x3F));
+          } else {
+            out += "\\u" + hex;  // half of a surrogate pair: compared as written
+          }
+          at_ += 6;
+          continue;
+        }
+        out += e;
+        at_ += 2;
+        continue;
+      }
+      out += static_cast<char>(c);
+      ++at_;
+    }
+    return out;
+  }
+
+  const std::string& text_;
+  const std::string& file_;
+  size_t at_ = 0;
+  std::vector<Frame> frames_;
+};
+
+}  // namespace
+
 JsonField parse_json_document(const std::string& bytes, const std::string& file) {
   QJsonParseError error{};
   const QByteArray data(bytes.data(), static_cast<qsizetype>(bytes.size()));
   const QJsonDocument document = QJsonDocument::fromJson(data, &error);
   if (error.error != QJsonParseError::NoError) {
+    // A raw control character or a repeated key gets its own message naming the key.
+    StrictJsonScan(bytes, file).run();
     int line = 1;
     int column = 1;
     for (qsizetype i = 0; i < error.offset && i < data.size(); ++i) {
@@ -119,6 +253,7 @@ JsonField parse_json_document(const std::string& bytes, const std::string& file)
   if (!document.isObject()) {
     throw InputError(file + ": (top level): expected an object");
   }
+  StrictJsonScan(bytes, file).run();
   return JsonField(document.object(), "", file);
 }
 

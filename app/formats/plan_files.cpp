@@ -7,8 +7,11 @@
 #include <limits>
 #include <map>
 
+#include "formats/bundle.h"
+#include "formats/file_set.h"
 #include "formats/input_error.h"
 #include "formats/json_field.h"
+#include "formats/limits.h"
 #include "formats/rig_json.h"
 #include "formats/text_io.h"
 #include "gramline/motor_units.h"
@@ -57,16 +60,19 @@ std::string steps_conventions_text() {
          "step measures no pair of points.";
 }
 
-std::string format_steps_json(const Rig& rig, const std::vector<Step>& steps) {
+std::string format_steps_json(const Rig& rig, const std::vector<Step>& steps,
+                              const std::string& set_id) {
   // The header goes through QJsonDocument; the steps are written one compact object per line
   // by hand, so half a million steps never exist as a JSON tree in memory at once.
   QJsonArray motors;
   for (const Motor& m : rig.motors) motors.append(motor_to_json(m));
-  std::string head = json_text(QJsonObject{{"format", kStepsFormat},
-                                           {"version", kStepsVersion},
-                                           {"conventions", q(steps_conventions_text())},
-                                           {"motors", motors},
-                                           {"controller", controller_to_json(rig.controller)}});
+  QJsonObject header{{"format", kStepsFormat},
+                     {"version", kStepsVersion},
+                     {"conventions", q(steps_conventions_text())},
+                     {"motors", motors},
+                     {"controller", controller_to_json(rig.controller)}};
+  if (!set_id.empty()) header[kSetIdKey] = q(set_id);
+  std::string head = json_text(header);
   // Drop the closing brace and newline of the header object to append "steps".
   head.erase(head.find_last_of('}'));
   while (!head.empty() && (head.back() == '\n' || head.back() == ' ')) head.pop_back();
@@ -130,7 +136,9 @@ std::string format_steps_csv(const Rig& rig, const std::vector<Step>& steps) {
   return out;
 }
 
-std::string format_summary_json(const Campaign& campaign, const Plan& plan) {
+std::string format_summary_json(const Campaign& campaign, const Plan& plan,
+                                const std::string& set_id,
+                                const std::map<std::string, std::string>& set_files) {
   const PlanSummary& s = plan.summary;
   QJsonArray nights;
   for (const NightUse& n : s.night_use) {
@@ -174,6 +182,12 @@ std::string format_summary_json(const Campaign& campaign, const Plan& plan) {
                 {"night_use", nights},
                 {"plan_ms", s.plan_ms},
                 {"gram_error_ms", s.gram_error_ms}};
+  if (!set_id.empty()) {
+    QJsonObject files;
+    for (const auto& [name, bytes] : set_files) files[q(name)] = q(sha256_hex(bytes));
+    o[kSetIdKey] = q(set_id);
+    o[kSetFilesKey] = files;
+  }
   return json_text(o);
 }
 
@@ -202,6 +216,7 @@ StepsFile parse_steps_json(const std::string& bytes, const std::string& file) {
   }
   StepsFile out;
   out.conventions = root.has("conventions") ? root["conventions"].text() : std::string();
+  out.set_id = root.has(kSetIdKey) ? root[kSetIdKey].text() : std::string();
   std::map<std::string, size_t> motor_of;
   for (const JsonField& m : root["motors"].items()) {
     Motor motor = motor_from_json(m);
@@ -250,18 +265,38 @@ StepsFile parse_steps_json(const std::string& bytes, const std::string& file) {
 }
 
 StepsFile read_steps_json(const QString& path) {
-  return parse_steps_json(read_whole_file(path), path_text(path));
+  return parse_steps_json(read_whole_file(path, limits::kStepsJsonBytes), path_text(path));
 }
 
-void write_plan_files(const Campaign& campaign, const Plan& plan, const QString& dir) {
-  QDir directory(dir);
-  if (!directory.mkpath(".")) {
-    throw InputError(path_text(dir) + ": cannot create the output directory");
+std::vector<std::string> plan_file_names() {
+  return {"steps.json", "steps.csv", "kernel.csv", "summary.json"};
+}
+
+void write_plan_files(const Campaign& campaign, const Plan& plan, const QString& dir,
+                      Overwrite overwrite) {
+  // One id for the set, from its content; summary.json, the index, also fixes the other files'
+  // SHA-256, so a folder holding files of two different saves is told apart (read_plan_folder).
+  std::map<std::string, std::string> others;
+  others["steps.csv"] = format_steps_csv(campaign.rig, plan.steps);
+  others["kernel.csv"] = format_kernel_csv(plan.kernel_train);
+  const std::string id = content_set_id(
+      {format_steps_json(campaign.rig, plan.steps), others["steps.csv"], others["kernel.csv"]});
+  others["steps.json"] = format_steps_json(campaign.rig, plan.steps, id);
+  std::string summary = format_summary_json(campaign, plan, id, others);
+  std::vector<SetFile> files;
+  for (const std::string& name : plan_file_names()) {
+    files.push_back({name, name == "summary.json" ? std::move(summary) : std::move(others[name])});
   }
-  write_whole_file(directory.filePath("steps.json"), format_steps_json(campaign.rig, plan.steps));
-  write_whole_file(directory.filePath("steps.csv"), format_steps_csv(campaign.rig, plan.steps));
-  write_whole_file(directory.filePath("summary.json"), format_summary_json(campaign, plan));
-  write_whole_file(directory.filePath("kernel.csv"), format_kernel_csv(plan.kernel_train));
+  save_file_set(dir, files, overwrite);
+}
+
+StepsFile read_plan_folder(const QString& dir) {
+  const std::string id = verify_file_set(dir, "summary.json");
+  StepsFile steps = read_steps_json(QDir(dir).filePath("steps.json"));
+  if (steps.set_id != id)
+    throw InputError(path_text(QDir(dir).filePath("steps.json")) + ": belongs to the save " +
+                     steps.set_id + ", summary.json to " + id + ": a mixed set; save it again");
+  return steps;
 }
 
 }  // namespace gramline::formats

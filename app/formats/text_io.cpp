@@ -1,11 +1,13 @@
 #include "formats/text_io.h"
 
 #include <QFile>
-#include <QSaveFile>
+#include <QFileInfo>
+#include <algorithm>
 #include <array>
 #include <charconv>
 #include <cstdio>
 
+#include "formats/atomic_file.h"
 #include "formats/input_error.h"
 
 namespace gramline::formats {
@@ -55,29 +57,45 @@ std::string_view trim(std::string_view text) {
 
 std::string path_text(const QString& path) { return path.toStdString(); }
 
-std::string read_whole_file(const QString& path) {
+std::string read_whole_file(const QString& path, std::int64_t limit_bytes) {
+  const QFileInfo info(path);
+  // Checked before opening: opening a FIFO would wait for a writer, a device never ends.
+  if (info.exists() && !info.isFile()) {
+    throw InputError(path_text(path) +
+                     (info.isDir() ? ": is a folder, not a file"
+                                   : ": is not a regular file (a device, a FIFO or a socket); "
+                                     "only regular files are read"));
+  }
+  const auto too_large = [&] {
+    return InputError(path_text(path) + ": larger than the limit of " +
+                      std::to_string(limit_bytes) +
+                      " bytes for this kind of file (docs/limits.md)");
+  };
+  if (info.exists() && info.size() > limit_bytes) throw too_large();
   QFile file(path);
   if (!file.open(QIODevice::ReadOnly)) {
     throw InputError(path_text(path) + ": cannot read the file (" +
                      file.errorString().toStdString() + ")");
   }
-  const QByteArray bytes = file.readAll();
-  return std::string(bytes.constData(), static_cast<size_t>(bytes.size()));
+  // The file may have grown since it was measured: read in pieces, never past the limit.
+  std::string bytes;
+  bytes.reserve(static_cast<size_t>(std::min<std::int64_t>(info.size(), limit_bytes)));
+  std::array<char, 1 << 16> piece{};
+  while (true) {
+    const qint64 got = file.read(piece.data(), static_cast<qint64>(piece.size()));
+    if (got < 0) {
+      throw InputError(path_text(path) + ": cannot read the file (" +
+                       file.errorString().toStdString() + ")");
+    }
+    if (got == 0) break;
+    if (static_cast<std::int64_t>(bytes.size()) + got > limit_bytes) throw too_large();
+    bytes.append(piece.data(), static_cast<size_t>(got));
+  }
+  return bytes;
 }
 
 void write_whole_file(const QString& path, const std::string& bytes) {
-  QSaveFile file(path);
-  const auto fail = [&] {
-    throw InputError(path_text(path) + ": cannot write the file (" +
-                     file.errorString().toStdString() + ")");
-  };
-  if (!file.open(QIODevice::WriteOnly)) fail();
-  if (file.write(bytes.data(), static_cast<qint64>(bytes.size())) !=
-      static_cast<qint64>(bytes.size())) {
-    file.cancelWriting();
-    fail();
-  }
-  if (!file.commit()) fail();
+  save_atomically(path, bytes, Overwrite::allow);
 }
 
 }  // namespace gramline::formats

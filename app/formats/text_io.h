@@ -2,6 +2,7 @@
 // Small text helpers shared by the file formats: numbers that read back exactly, CSV fields,
 // and whole-file reads and atomic writes.
 #include <QString>
+#include <cstdint>
 #include <string>
 #include <string_view>
 
@@ -23,11 +24,14 @@ std::string csv_field(std::string_view text);
 /// Removes spaces and tabs at both ends.
 std::string_view trim(std::string_view text);
 
-/// Whole file as bytes. Throws InputError naming the file when it cannot be read.
-std::string read_whole_file(const QString& path);
+/// Whole file as bytes. Reads regular files only (a FIFO, a device such as /dev/zero or a folder
+/// is refused, not read) and at most `limit_bytes` (formats/limits.h): a larger file is refused
+/// before it is read. Throws InputError naming the file (and the limit).
+std::string read_whole_file(const QString& path, std::int64_t limit_bytes);
 
-/// Writes `bytes` to `path` atomically (QSaveFile): the old file stays whole if anything fails.
-/// Throws InputError naming the file when it cannot be written.
+/// Writes `bytes` to `path` atomically (save_atomically, atomic_file.h): the old file stays
+/// whole if anything fails. Throws InputError naming the file when the path cannot be used,
+/// SystemError naming the system's error when the disk refuses the bytes.
 void write_whole_file(const QString& path, const std::string& bytes);
 
 /// Path as UTF-8 text for messages.

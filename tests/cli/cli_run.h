@@ -4,6 +4,7 @@
 #include <QJsonDocument>
 #include <QJsonObject>
 #include <QProcess>
+#include <QProcessEnvironment>
 #include <QString>
 #include <QStringList>
 #include <string>
@@ -16,11 +17,14 @@ struct CliRun {
   std::string err;
 };
 
-inline CliRun run_cli(const QStringList& arguments) {
+/// gramline-cli with `arguments` in `environment`; a run longer than `timeout_ms` is killed.
+inline CliRun run_cli_in(const QStringList& arguments, const QProcessEnvironment& environment,
+                         int timeout_ms = 300000) {
   QProcess process;
+  process.setProcessEnvironment(environment);
   process.start(QString(GRAMLINE_CLI_PATH), arguments);
   CliRun run;
-  if (!process.waitForFinished(300000)) {
+  if (!process.waitForFinished(timeout_ms)) {
     process.kill();
     process.waitForFinished();
     return run;
@@ -29,6 +33,10 @@ inline CliRun run_cli(const QStringList& arguments) {
   run.out = process.readAllStandardOutput().toStdString();
   run.err = process.readAllStandardError().toStdString();
   return run;
+}
+
+inline CliRun run_cli(const QStringList& arguments) {
+  return run_cli_in(arguments, QProcessEnvironment::systemEnvironment());
 }
 
 /// The whole file, or empty when it cannot be read.

@@ -26,6 +26,7 @@
 #include "formats/atomic_file.h"
 #include "formats/bundle.h"
 #include "formats/input_error.h"
+#include "formats/limits.h"
 #include "formats/report_html.h"
 #include "gramline/demo.h"
 #include "gramline/plan.h"
@@ -162,8 +163,8 @@ TEST_F(DemoBundle, FlippingAByteInsideTheArchiveIsRefusedNamingTheEntry) {
 
 TEST_F(DemoBundle, AnEntryTheManifestDoesNotListIsRefused) {
   std::map<std::string, std::string> more = entries_;
-  more["notes.txt"] = "hello";
-  EXPECT_NE(error_of(raw_zip(more)).find("notes.txt: not listed"), std::string::npos);
+  more["resume.json"] = "{}";  // an entry the format defines, for resumed bundles
+  EXPECT_NE(error_of(raw_zip(more)).find("resume.json: not listed"), std::string::npos);
 }
 
 TEST_F(DemoBundle, OversizedEntriesAreRefused) {
@@ -300,6 +301,40 @@ TEST_F(DemoBundle, PrintableSummaryCarriesFiguresPlotsAndCautions) {
   EXPECT_NE(html.find("laser safety officer"), std::string::npos);
   EXPECT_NE(html.find("nterlock"), std::string::npos);
   EXPECT_NE(html.find("without a person in the lab"), std::string::npos);
+}
+
+// Limits (docs/limits.md).
+
+TEST(BundleLimits, EntriesTheFormatDoesNotDefineAreRefusedBeforeInflating) {
+  // 8 MiB of zeros under an unknown name: refused by name, whatever its size.
+  const std::string zip =
+      raw_zip({{"manifest.json", "{}"}, {"padding.bin", std::string(8 << 20, '\0')}});
+  const std::string e = error_of(zip);
+  EXPECT_NE(e.find("padding.bin"), std::string::npos) << e;
+  EXPECT_NE(e.find("not an entry the bundle format defines"), std::string::npos) << e;
+}
+
+TEST(BundleLimits, AKnownEntryLargerThanItsLimitIsRefusedByItsDeclaredSize) {
+  const std::int64_t limit = formats::bundle_entry_limit("summary.json");
+  ASSERT_EQ(limit, formats::limits::kSmallJsonBytes);
+  const std::string zip =
+      raw_zip({{"manifest.json", "{}"},
+               {"summary.json", std::string(static_cast<size_t>(limit + 1), ' ')}});
+  const std::string e = error_of(zip);
+  EXPECT_NE(e.find("summary.json"), std::string::npos) << e;
+  EXPECT_NE(e.find("declares"), std::string::npos) << e;
+  EXPECT_NE(e.find(std::to_string(limit)), std::string::npos) << e;
+}
+
+TEST(BundleLimits, TheDeclaredTotalIsBounded) {
+  formats::BundleReadLimits small;
+  small.total_bytes = 1000;
+  const std::string zip =
+      raw_zip({{"manifest.json", std::string(600, ' ')}, {"campaign.json", std::string(600, ' ')}});
+  const std::string e = error_of(zip, small);
+  EXPECT_NE(e.find("together"), std::string::npos) << e;
+  EXPECT_EQ(formats::bundle_entry_limit("notes.txt"), -1);
+  EXPECT_GT(formats::bundle_entry_limit("steps.json"), 0);
 }
 
 }  // namespace

@@ -10,6 +10,7 @@
 #include <string>
 
 #include "formats/check_json.h"
+#include "formats/limits.h"
 #include "formats/text_io.h"
 #include "gramline/demo.h"
 
@@ -90,7 +91,7 @@ TEST(CheckJson, WrittenFileIsTheFormattedText) {
   const Campaign campaign = make_demo_campaign();
   const MarginCheck check = hand_made_check();
   formats::write_check_json(campaign, check, 3, 0.95, path);
-  const std::string bytes = formats::read_whole_file(path);
+  const std::string bytes = formats::read_whole_file(path, formats::limits::kSmallJsonBytes);
   EXPECT_EQ(bytes, formats::format_check_json(campaign, check, 3, 0.95));
   QJsonParseError error;
   const QJsonDocument doc = QJsonDocument::fromJson(QByteArray::fromStdString(bytes), &error);
