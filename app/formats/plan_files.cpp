@@ -123,6 +123,8 @@ std::string format_steps_csv(const Rig& rig, const std::vector<Step>& steps) {
 
 std::string format_summary_json(const Campaign& campaign, const Plan& plan) {
   const PlanSummary& s = plan.summary;
+  QJsonArray warnings;
+  for (const std::string& w : plan.warnings) warnings.append(QString::fromStdString(w));
   QJsonArray nights;
   for (const NightUse& n : s.night_use) {
     nights.append(QJsonObject{{"night", n.night},
@@ -157,12 +159,18 @@ std::string format_summary_json(const Campaign& campaign, const Plan& plan) {
                 {"gram_min_eigenvalue", g.min_eigenvalue},
                 {"p_negative_eigenvalue", g.p_negative_eigenvalue},
                 {"epsilon_reached", s.epsilon_reached},
+                {"reference_steps", static_cast<qint64>(s.reference_steps)},
+                {"reference_pairs", s.reference_pairs},
+                {"reference_interval_min", s.reference_interval_min},
+                {"calibration_share_target", s.calibration_share_target},
+                {"calibration_share_max", s.calibration_share_max},
                 {"truncation_cost_s", s.truncation_cost_s},
                 {"fits", s.fits},
                 {"max_nights", campaign.nights.max_nights},
                 {"night_use", nights},
                 {"plan_ms", s.plan_ms},
-                {"gram_error_ms", s.gram_error_ms}};
+                {"gram_error_ms", s.gram_error_ms},
+                {"warnings", warnings}};
   return json_text(o);
 }
 
