@@ -84,17 +84,15 @@ void run(const char* name, const Campaign& c, int nights) {
     for (int t = 0; t < r.test_z.rows(); ++t)
       for (int j = 0; j < r.test_z.cols(); ++j) add(r.test_z(t, j));
   }
-  const double secs =
-      std::chrono::duration<double>(std::chrono::steady_clock::now() - t0).count();
+  const double secs = std::chrono::duration<double>(std::chrono::steady_clock::now() - t0).count();
   const PlanSummary& s = plan.summary;
   std::printf(
       "%-28s z sd %.4f (mean %+.4f, %d values, %d nights); |z|>2 %.4f (normal %.4f), |z|>4 %ld "
       "(normal expects %.2f); calibration share max %.3f; %ld references of %.0f pairs, "
       "references/dark/park %.2f h of %.2f h busy; %.1f s\n",
-      name, z.standard_deviation(), z.mean(), z.count, nights,
-      static_cast<double>(over2) / z.count, std::erfc(2.0 / std::sqrt(2.0)), over4,
-      z.count * std::erfc(4.0 / std::sqrt(2.0)), s.calibration_share_max, s.reference_steps,
-      s.reference_pairs, s.reference_s / 3600.0,
+      name, z.standard_deviation(), z.mean(), z.count, nights, static_cast<double>(over2) / z.count,
+      std::erfc(2.0 / std::sqrt(2.0)), over4, z.count * std::erfc(4.0 / std::sqrt(2.0)),
+      s.calibration_share_max, s.reference_steps, s.reference_pairs, s.reference_s / 3600.0,
       (s.integration_s + s.move_s + s.reference_s) / 3600.0, secs);
 }
 

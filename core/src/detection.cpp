@@ -110,7 +110,8 @@ Calibration reference_calibration(DetectionScheme scheme, int photons, const Cal
     cal.visibility = (p - floor) / (1.0 - floor);
   } else {
     const double p_ref = pass_probability(1.0, model.visibility, photons);
-    cal.pair_detect_rate_per_s = (counts.pass_counts / t - model.accidental_pass_rate_per_s) / p_ref;
+    cal.pair_detect_rate_per_s =
+        (counts.pass_counts / t - model.accidental_pass_rate_per_s) / p_ref;
   }
   return cal;
 }
@@ -170,8 +171,8 @@ CalibrationGradient kernel_calibration_gradient(DetectionScheme scheme, int phot
     g.d_rate = -p_pass / (r * v);
     return g;
   }
-  const double p_obs = (p_pass * r + cal.accidental_pass_rate_per_s) /
-                       (r + cal.accidental_total_rate_per_s);
+  const double p_obs =
+      (p_pass * r + cal.accidental_pass_rate_per_s) / (r + cal.accidental_total_rate_per_s);
   g.d_rate =
       (cal.accidental_pass_rate_per_s - p_obs * cal.accidental_total_rate_per_s) / (r * r * v);
   g.d_visibility = -kernel_from_pass_probability(p_pass, v, photons) / v;

@@ -40,7 +40,8 @@ Eigen::MatrixXd MarginProblem::sigma_train() const {
     for (int j = i + 1; j < n; ++j) {
       const double pairs = pairs_train(i, j);
       const std::size_t e = static_cast<std::size_t>(i) * n + j;
-      if (pairs > 0) s(i, j) = s(j, i) = marginal_sigma(*this, noise_train[e], pairs, weights_train, e);
+      if (pairs > 0)
+        s(i, j) = s(j, i) = marginal_sigma(*this, noise_train[e], pairs, weights_train, e);
     }
   return s;
 }
@@ -156,8 +157,8 @@ class PreparedDraws {
     std::vector<Calibration> cal(refs_.size());
     for (size_t k = 0; k < refs_.size(); ++k) {
       const SettingCounts counts = draw_counts(refs_[k], stream_seed(trial_seed, entries + k));
-      cal[k] = reference_calibration(problem_.scheme, problem_.photons, *refs_[k].calibration,
-                                     counts);
+      cal[k] =
+          reference_calibration(problem_.scheme, problem_.photons, *refs_[k].calibration, counts);
     }
     train.resize(n, n);
     test.resize(m, n);

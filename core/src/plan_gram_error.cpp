@@ -10,11 +10,11 @@ GramNoise plan_gram_noise(const Plan& plan) {
   // the shared components, so only the counts' part is independent.
   Eigen::MatrixXd independent = plan.sigma_train;
   if (plan.calibration_sigma_train.size() == independent.size())
-    independent = (plan.sigma_train.array().square() -
-                   plan.calibration_sigma_train.array().square())
-                      .max(0.0)
-                      .sqrt()
-                      .matrix();
+    independent =
+        (plan.sigma_train.array().square() - plan.calibration_sigma_train.array().square())
+            .max(0.0)
+            .sqrt()
+            .matrix();
   return GramNoise{independent, plan.shared_noise_train};
 }
 

@@ -4,6 +4,7 @@
 #include <gtest/gtest.h>
 
 #include <cmath>
+#include <cstdio>
 #include <random>
 #include <stdexcept>
 #include <string>
@@ -112,21 +113,32 @@ void expect_honest_z(const Campaign& c, const char* what) {
   EXPECT_LE(plan.summary.calibration_share_max, c.schedule.calibration_share + 1e-9) << what;
   EXPECT_GT(plan.summary.calibration_share_max, 0.0) << what;
   const double outlier_z = 2.0;
-  const Pooled p = simulate_nights(c, plan, 6, outlier_z);
+  const Pooled p = simulate_nights(c, plan, 8, outlier_z);
   ASSERT_GT(p.count, 600) << what;
+  std::printf("[%s] z sd %.4f, mean %+.4f over %ld entries of 8 nights; |z| > 2: %.4f; "
+              "calibration share up to %.3f\n",
+              what, p.z.standard_deviation(), p.z.mean(), p.count,
+              static_cast<double>(p.flagged) / p.count, plan.summary.calibration_share_max);
   // A z-score with the right sigma is standard normal: sd 1 (the goal is [0.95, 1.05]).
   EXPECT_GE(p.z.standard_deviation(), 0.95) << what;
   EXPECT_LE(p.z.standard_deviation(), 1.05) << what;
-  EXPECT_NEAR(p.z.mean(), 0.0, 0.1) << what;
+  // The mean moves with each night's references, which every entry shares (about a tenth of
+  // each entry's variance): over 8 nights its spread is near sqrt(0.1 / 8) = 0.11.
+  EXPECT_NEAR(p.z.mean(), 0.0, 0.4) << what;
   // Flagged at the nominal rate P(|Z| > 2) = 4.55 %, within four binomial standard errors.
   const double nominal = normal_two_sided_tail(outlier_z);
   const double se = std::sqrt(nominal * (1 - nominal) / static_cast<double>(p.count));
   EXPECT_NEAR(static_cast<double>(p.flagged) / p.count, nominal, 4 * se) << what;
 }
 
+// The demo's rig and encoding on a part of its points; references every 3 minutes so that
+// entries share and interpolate several of them in the short run.
 TEST(CalibrationNoise, SimulatedNightsGiveStandardNormalZScoresOnTheDemo) {
-  expect_honest_z(demo_subset(12, 4, DetectionScheme::pass_only), "demo, pass only");
-  expect_honest_z(demo_subset(12, 4, DetectionScheme::both_ports), "demo, both ports");
+  for (DetectionScheme scheme : {DetectionScheme::pass_only, DetectionScheme::both_ports}) {
+    Campaign c = demo_subset(20, 8, scheme);
+    c.schedule.reference_interval_min = 3.0;
+    expect_honest_z(c, ("demo, " + to_string(scheme)).c_str());
+  }
 }
 
 TEST(CalibrationNoise, SimulatedNightsGiveStandardNormalZScoresOnOnePhotonShortNights) {
@@ -148,8 +160,8 @@ TEST(CalibrationNoise, ReferenceCovarianceMatchesDrawnReferenceCounts) {
     const double p = pass_probability(1.0, cal.visibility, photons);
     const CalibrationCovariance cov = reference_covariance(scheme, photons, cal, pairs);
     std::mt19937_64 rng(11);
-    std::poisson_distribution<long> pass(t * (cal.pair_detect_rate_per_s * p +
-                                              cal.accidental_pass_rate_per_s));
+    std::poisson_distribution<long> pass(
+        t * (cal.pair_detect_rate_per_s * p + cal.accidental_pass_rate_per_s));
     std::poisson_distribution<long> rest(t * (cal.pair_detect_rate_per_s * (1 - p) +
                                               cal.accidental_total_rate_per_s -
                                               cal.accidental_pass_rate_per_s));
@@ -166,7 +178,8 @@ TEST(CalibrationNoise, ReferenceCovarianceMatchesDrawnReferenceCounts) {
     }
     // A sample variance of `draws` normal values has relative standard error sqrt(2 / draws)
     // (common practice): 1 % here; allow 5 %.
-    EXPECT_NEAR(std::pow(rate.standard_deviation(), 2) / cov.rate_var, 1.0, 0.05) << to_string(scheme);
+    EXPECT_NEAR(std::pow(rate.standard_deviation(), 2) / cov.rate_var, 1.0, 0.05)
+        << to_string(scheme);
     EXPECT_NEAR(rate.mean(), cal.pair_detect_rate_per_s, 4 * std::sqrt(cov.rate_var / draws));
     if (scheme == DetectionScheme::both_ports)
       EXPECT_NEAR(std::pow(vis.standard_deviation(), 2) / cov.visibility_var, 1.0, 0.05);

@@ -36,7 +36,7 @@ struct ScheduleSettings {
   /// Largest share of an entry's variance the reference calibration may take when the planner
   /// chooses the reference pairs (docs/error-budget.md).
   double calibration_share = 0.10;
-  bool dark_steps = true;                ///< dark (shutter closed) steps at night start and end
+  bool dark_steps = true;  ///< dark (shutter closed) steps at night start and end
   double dark_dwell_s = 30.0;
   bool park = true;                   ///< park step at the end of each night
   bool fit_to_nights = false;         ///< scale pairs so the campaign fits max_nights

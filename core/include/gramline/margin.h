@@ -1,7 +1,7 @@
 #pragma once
-// The margin check (README, user guide step 13): with the planned pairs per entry, does the classifier trained on the
-// measured Gram matrix still put every test point on the same side, with margin?
-// A Monte Carlo over simulated campaigns: counts per setting with the detection scheme's
+// The margin check (README, user guide step 13): with the planned pairs per entry, does the
+// classifier trained on the measured Gram matrix still put every test point on the same side, with
+// margin? A Monte Carlo over simulated campaigns: counts per setting with the detection scheme's
 // statistics, the unbiased kernel estimator of detection.h, PSD repair (kernel.h), retraining.
 #include <Eigen/Core>
 #include <cstdint>

@@ -51,7 +51,7 @@ struct PlanSummary {
   /// dwell of reference, dark and park steps; integration_s + move_s + reference_s is the
   /// nights' busy time
   double reference_s = 0.0;
-  double total_s = 0.0;        ///< end of the last step, from the start of night 1
+  double total_s = 0.0;  ///< end of the last step, from the start of night 1
   int nights = 0;
   double move_lower_bound_s = 0.0;  ///< proven lower bound, measure steps' moves
   double move_naive_s = 0.0;        ///< row-by-row order, same model
@@ -100,10 +100,10 @@ struct Plan {
   std::optional<PlanOptions> options;
   std::vector<Step> steps;
   PlanSummary summary;
-  Eigen::MatrixXd kernel_train;   ///< N x N ideal
-  Eigen::MatrixXd kernel_test;    ///< M x N ideal
-  Eigen::MatrixXd pairs_train;    ///< N x N planned pairs per entry (0 on the diagonal)
-  Eigen::MatrixXd pairs_test;     ///< M x N
+  Eigen::MatrixXd kernel_train;  ///< N x N ideal
+  Eigen::MatrixXd kernel_test;   ///< M x N ideal
+  Eigen::MatrixXd pairs_train;   ///< N x N planned pairs per entry (0 on the diagonal)
+  Eigen::MatrixXd pairs_test;    ///< M x N
   /// N x N predicted sigma per entry (0 where not planned): counts and reference calibration
   Eigen::MatrixXd sigma_train;
   Eigen::MatrixXd sigma_test;  ///< M x N

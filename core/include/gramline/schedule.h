@@ -43,7 +43,7 @@ struct ScheduleInput {
   bool reference_pairs_follow_scale = false;
   /// How error messages name the reference pairs: the campaign field, or where they came from.
   std::string reference_pairs_origin = "schedule.reference_pairs";
-  double reference_p_pass = 1.0;        ///< p_pass of a diagonal setting (kernel 1)
+  double reference_p_pass = 1.0;  ///< p_pass of a diagonal setting (kernel 1)
   NightWindow nights;
   ScheduleSettings settings;
   /// Physical motor positions where the first step starts (rig.motors order); empty: the
