@@ -11,6 +11,7 @@
 #include <random>
 #include <string>
 
+#include "../tests/shared/one_photon.h"
 #include "gramline/demo.h"
 #include "gramline/estimates.h"
 #include "gramline/ingest.h"
@@ -22,44 +23,7 @@ using namespace gramline;
 namespace {
 
 Campaign one_photon(DetectionScheme scheme) {
-  Campaign c = make_demo_campaign();
-  std::mt19937_64 rng(7);
-  std::uniform_real_distribution<double> angle(0.0, 170.0);
-  const int n = 30, m = 10;
-  c.data.feature_names = {"theta"};
-  c.data.train.resize(n, 1);
-  c.data.train_labels.resize(n);
-  c.data.test.resize(m, 1);
-  c.data.test_labels.resize(m);
-  for (int i = 0; i < n + m; ++i) {
-    const double x = angle(rng);
-    if (i < n) {
-      c.data.train(i, 0) = x;
-      c.data.train_labels(i) = x < 85.0 ? 1 : -1;
-    } else {
-      c.data.test(i - n, 0) = x;
-      c.data.test_labels(i - n) = x < 85.0 ? 1 : -1;
-    }
-  }
-  PhotonEncoding e;
-  e.theta_weights_deg = Eigen::VectorXd::Ones(1);
-  e.phi_weights_deg = Eigen::VectorXd::Zero(1);
-  c.encoding = {};
-  c.encoding.photons = {e};
-  std::vector<Motor> motors;
-  for (const Motor& mo : c.rig.motors)
-    if (mo.photon == 0) motors.push_back(mo);
-  c.rig.motors = motors;
-  c.rig.detectors = {Detector{0.3, 500.0}};
-  c.rig.source.pair_rate_per_s = 20000.0;
-  c.rig.source.visibility = 0.95;
-  c.rig.scheme = scheme;
-  c.precision.budget.epsilon = 0.02;
-  c.nights.start_min = 21 * 60;
-  c.nights.end_min = 22 * 60;
-  c.nights.max_nights = 50;
-  c.schedule.reference_interval_min = 5.0;
-  return c;
+  return one_photon_test::one_photon_short_nights(scheme, 30, 10);
 }
 
 void run(const char* name, const Campaign& c, int nights) {

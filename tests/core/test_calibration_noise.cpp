@@ -10,6 +10,7 @@
 #include <string>
 #include <vector>
 
+#include "../shared/one_photon.h"
 #include "gramline/demo.h"
 #include "gramline/detection.h"
 #include "gramline/estimates.h"
@@ -34,42 +35,7 @@ Campaign demo_subset(int train, int test, DetectionScheme scheme) {
 // Not the demo: one photon, one feature as the linear polarization angle (degrees), a brighter
 // source, a looser target and one-hour nights with references every 5 minutes.
 Campaign one_photon(DetectionScheme scheme) {
-  Campaign c = make_demo_campaign();
-  std::mt19937_64 rng(7);
-  std::uniform_real_distribution<double> angle(0.0, 170.0);
-  const int n = 14, m = 6;
-  c.data.feature_names = {"theta"};
-  c.data.train.resize(n, 1);
-  c.data.train_labels.resize(n);
-  c.data.test.resize(m, 1);
-  c.data.test_labels.resize(m);
-  for (int i = 0; i < n; ++i) {
-    c.data.train(i, 0) = angle(rng);
-    c.data.train_labels(i) = c.data.train(i, 0) < 85.0 ? 1 : -1;
-  }
-  for (int t = 0; t < m; ++t) {
-    c.data.test(t, 0) = angle(rng);
-    c.data.test_labels(t) = c.data.test(t, 0) < 85.0 ? 1 : -1;
-  }
-  PhotonEncoding e;
-  e.theta_weights_deg = Eigen::VectorXd::Ones(1);
-  e.phi_weights_deg = Eigen::VectorXd::Zero(1);
-  c.encoding = {};
-  c.encoding.photons = {e};
-  std::vector<Motor> motors;
-  for (const Motor& mo : c.rig.motors)
-    if (mo.photon == 0) motors.push_back(mo);
-  c.rig.motors = motors;
-  c.rig.detectors = {Detector{0.3, 500.0}};
-  c.rig.source.pair_rate_per_s = 20000.0;
-  c.rig.source.visibility = 0.95;
-  c.rig.scheme = scheme;
-  c.precision.budget.epsilon = 0.02;
-  c.nights.start_min = 21 * 60;
-  c.nights.end_min = 22 * 60;
-  c.nights.max_nights = 20;
-  c.schedule.reference_interval_min = 5.0;
-  return c;
+  return one_photon_test::one_photon_short_nights(scheme, 14, 6);
 }
 
 struct Pooled {
@@ -115,10 +81,11 @@ void expect_honest_z(const Campaign& c, const char* what) {
   const double outlier_z = 2.0;
   const Pooled p = simulate_nights(c, plan, 8, outlier_z);
   ASSERT_GT(p.count, 600) << what;
-  std::printf("[%s] z sd %.4f, mean %+.4f over %ld entries of 8 nights; |z| > 2: %.4f; "
-              "calibration share up to %.3f\n",
-              what, p.z.standard_deviation(), p.z.mean(), p.count,
-              static_cast<double>(p.flagged) / p.count, plan.summary.calibration_share_max);
+  std::printf(
+      "[%s] z sd %.4f, mean %+.4f over %ld entries of 8 nights; |z| > 2: %.4f; "
+      "calibration share up to %.3f\n",
+      what, p.z.standard_deviation(), p.z.mean(), p.count, static_cast<double>(p.flagged) / p.count,
+      plan.summary.calibration_share_max);
   // A z-score with the right sigma is standard normal: sd 1 (the goal is [0.95, 1.05]).
   EXPECT_GE(p.z.standard_deviation(), 0.95) << what;
   EXPECT_LE(p.z.standard_deviation(), 1.05) << what;

@@ -5,6 +5,7 @@
 #include <map>
 #include <set>
 
+#include "../shared/one_photon.h"
 #include "gramline/budget.h"
 #include "gramline/demo.h"
 #include "gramline/detection.h"
@@ -65,27 +66,15 @@ TEST(Plan, NeymanSpendsTheSameTimeAndLowersTheWorstHalfWidth) {
 // One photon, one feature as linear polarization (theta = feature, degrees), pass port only, on
 // the demo's rig: kernel cos^2((theta_a - theta_b)/2), no accidentals (one detector).
 Campaign one_photon_pass_port(const std::vector<double>& thetas) {
-  Campaign c = make_demo_campaign();
   const int n = static_cast<int>(thetas.size());
-  c.data.feature_names = {"theta"};
-  c.data.train.resize(n, 1);
-  c.data.train_labels.resize(n);
+  Eigen::MatrixXd train(n, 1);
+  Eigen::VectorXi labels(n);
   for (int i = 0; i < n; ++i) {
-    c.data.train(i, 0) = thetas[i];
-    c.data.train_labels(i) = i % 2 == 0 ? 1 : -1;
+    train(i, 0) = thetas[i];
+    labels(i) = i % 2 == 0 ? 1 : -1;
   }
-  c.data.test.resize(0, 1);
-  c.data.test_labels.resize(0);
-  PhotonEncoding e;
-  e.theta_weights_deg = Eigen::VectorXd::Ones(1);
-  e.phi_weights_deg = Eigen::VectorXd::Zero(1);
-  c.encoding = {};
-  c.encoding.photons = {e};
-  std::vector<Motor> motors;
-  for (const Motor& m : c.rig.motors)
-    if (m.photon == 0) motors.push_back(m);
-  c.rig.motors = motors;
-  c.rig.detectors.resize(1);
+  Campaign c = one_photon_test::one_photon_linear(make_demo_campaign(), train, labels,
+                                                  Eigen::MatrixXd(0, 1), Eigen::VectorXi(0));
   c.rig.scheme = DetectionScheme::pass_only;
   return c;
 }
