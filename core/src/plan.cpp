@@ -500,8 +500,12 @@ std::string Plan::report() const {
   o << "  counting " << hours(s.integration_s) << ", moving " << hours(s.move_s)
     << ", references/dark/park " << hours(s.reference_s) << "\n";
   if (s.reference_steps > 0) {
+    double cost_s = 0.0;  // what the reference steps take: their moves and their counting
+    for (const Step& st : steps)
+      if (st.kind == StepKind::reference) cost_s += st.move_s + st.dwell_s;
     o << std::setprecision(0) << "References: " << s.reference_steps << " steps of "
-      << s.reference_pairs << " pairs, at least every " << s.reference_interval_min
+      << s.reference_pairs << " pairs (" << std::setprecision(2) << cost_s / 3600.0
+      << " h with their moves), at least every " << std::setprecision(0) << s.reference_interval_min
       << " min; calibration up to " << std::setprecision(1) << 100.0 * s.calibration_share_max
       << " % of an entry's variance";
     if (s.calibration_share_target > 0)
