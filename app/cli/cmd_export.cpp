@@ -34,8 +34,9 @@ int run_export(const ExportRequest& request) {
   bundle.overwrite = overwrite;
   const formats::BundleWritten written = formats::write_bundle(campaign, plan, out, bundle);
   std::cout << "wrote the bundle " << request.out_path << " (" << written.entries.size()
-            << " files, " << written.zip_bytes
-            << " bytes; manifest SHA-256 " if (!plan.summary.fits) {
+            << " files, " << written.zip_bytes << " bytes; manifest SHA-256 "
+            << written.manifest_sha256 << ")\n";
+  if (!plan.summary.fits) {
     std::cerr << "the plan does not fit the nights allowed (exit status 3); its files are "
                  "written\n";
     return kExitDoesNotFit;

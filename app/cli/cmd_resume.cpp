@@ -28,8 +28,9 @@ int run_resume(const ResumeRequest& request) {
   const formats::BundleWritten written =
       formats::write_resumed_bundle(run, bundle, parent_path, out, overwrite);
   std::cout << "wrote the bundle " << request.out_path << " (" << written.entries.size()
-            << " files; parent " << bundle.manifest_sha256.substr(0, 12)
-            << "...; manifest SHA-256 " if (!run.plan.summary.fits) {
+            << " files; parent " << bundle.manifest_sha256.substr(0, 12) << "...; manifest SHA-256 "
+            << written.manifest_sha256 << ")\n";
+  if (!run.plan.summary.fits) {
     std::cerr << "the plan does not fit the nights allowed (exit status 3); its files are "
                  "written\n";
     return kExitDoesNotFit;
