@@ -34,6 +34,10 @@ std::string Rig::check(int photons) const {
       return where + ".accel_deg_per_s2: must be positive";
     if (!(mo.overshoot_deg >= 0)) return where + ".overshoot_deg: must be >= 0";
     if (!std::isfinite(mo.initial_deg)) return where + ".initial_deg: must be finite";
+    if (mo.steps_per_deg && !(*mo.steps_per_deg > 0 && *mo.steps_per_deg <= 1e9))
+      return where + ".steps_per_deg: must be positive and at most 1e9";
+    if (!(std::abs(mo.zero_offset_deg) <= 1e6))
+      return where + ".zero_offset_deg: must be a finite number of degrees (at most 1e6 in size)";
     if (mo.range) {
       const double period = mo.plate == Plate::HWP ? 90.0 : 180.0;
       if (!(mo.range->high_deg - mo.range->low_deg >= period)) {

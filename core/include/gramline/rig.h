@@ -29,6 +29,11 @@ struct Motor {
   Backlash backlash = Backlash::shortest;
   double overshoot_deg = 0.0;  ///< used by from_below
   double initial_deg = 0.0;    ///< physical position at the start of the campaign
+  /// Motor units (docs/plan-files.md, "Motor units"): motor steps per degree; absent: the
+  /// controller takes degrees and no step column is written.
+  std::optional<double> steps_per_deg;
+  /// Motor position, in degrees, at which the plate's fast axis is horizontal (default 0).
+  double zero_offset_deg = 0.0;
 };
 
 struct Controller {
