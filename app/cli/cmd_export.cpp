@@ -41,6 +41,11 @@ int run_export(const ExportRequest& request) {
             << ": the rig's counts file names it in its first line '# bundle: " << written.bundle_id
             << "'\n\n"
             << formats::cautions_terminal_notice();
+  if (!plan.summary.fits) {
+    std::cerr << "the plan does not fit the nights allowed (exit status 3); its files are "
+                 "written\n";
+    return kExitDoesNotFit;
+  }
   return 0;
 }
 

@@ -92,6 +92,11 @@ int run_plan(const PlanRequest& request) {
     std::cout << "wrote steps.json, steps.csv, summary.json and kernel.csv to " << *request.out_dir
               << "\n";
   }
+  if (!plan.summary.fits) {
+    std::cerr << "the plan does not fit the nights allowed (exit status 3); its files are "
+                 "written\n";
+    return kExitDoesNotFit;
+  }
   return 0;
 }
 

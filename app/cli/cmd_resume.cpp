@@ -36,6 +36,11 @@ int run_resume(const ResumeRequest& request) {
             << " files; parent " << bundle.manifest_sha256.substr(0, 12) << "...; manifest SHA-256 "
             << written.manifest_sha256 << "; bundle id " << written.bundle_id << ")\n\n"
             << formats::cautions_terminal_notice();
+  if (!run.plan.summary.fits) {
+    std::cerr << "the plan does not fit the nights allowed (exit status 3); its files are "
+                 "written\n";
+    return kExitDoesNotFit;
+  }
   return 0;
 }
 

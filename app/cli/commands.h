@@ -1,8 +1,8 @@
 #pragma once
 // The commands of gramline-cli. Each returns the exit status (0 success, 2 bad input, 1 internal
-// failure); bad input may also be thrown as formats::InputError, which main turns into status 2.
-// Every command that writes leaves existing outputs as they are unless `force` is set, and
-// refuses before its long work starts.
+// failure, 3 does not fit); bad input may also be thrown as formats::InputError, which main turns
+// into status 2. Every command that writes leaves existing outputs as they are unless `force` is
+// set, and refuses before its long work starts.
 #include <cstdint>
 #include <optional>
 #include <string>
@@ -10,6 +10,10 @@
 #include "gramline/campaign.h"
 
 namespace gramline::cli {
+
+/// Exit status of plan, export and resume when their files are written but the plan needs
+/// more nights than the campaign allows (README, "Exit status").
+constexpr int kExitDoesNotFit = 3;
 
 struct DemoRequest {
   std::string out_path;

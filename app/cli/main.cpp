@@ -154,7 +154,8 @@ const CommandEntry* find_command(const std::string& name) {
 
 const char* const kExitStatusHelp =
     "Exit status: 0 success, 2 bad input (the message names the file and line or field),\n"
-    "1 internal failure.\n";
+    "1 internal failure, 3 (plan, export, resume) files written but the plan does not fit\n"
+    "the nights allowed.\n";
 
 const char* const kProgressHelp =
     "Long work (planning, the margin check, ingest) shows its progress on standard error when\n"

@@ -208,6 +208,7 @@ QJsonObject campaign_to_json(const Campaign& c) {
   const ScheduleSettings& s = c.schedule;
   o["schedule"] = QJsonObject{{"reference_interval_min", s.reference_interval_min},
                               {"reference_pairs", s.reference_pairs},
+                              {"calibration_share", s.calibration_share},
                               {"dark_steps", s.dark_steps},
                               {"dark_dwell_s", s.dark_dwell_s},
                               {"park", s.park},
@@ -314,6 +315,7 @@ Campaign campaign_from_json(const QJsonObject& object, const std::string& file) 
     ScheduleSettings& t = c.schedule;
     t.reference_interval_min = s["reference_interval_min"].number();
     t.reference_pairs = s["reference_pairs"].number();
+    if (s.has("calibration_share")) t.calibration_share = s["calibration_share"].number();
     t.dark_steps = s["dark_steps"].boolean();
     t.dark_dwell_s = s["dark_dwell_s"].number();
     t.park = s["park"].boolean();
@@ -331,6 +333,8 @@ Campaign campaign_from_json(const QJsonObject& object, const std::string& file) 
     t.keep_unit_diagonal = k["keep_unit_diagonal"].boolean();
     t.trials = static_cast<int>(k["trials"].integer(1, limits::kTrials));
   }
+  // Every key this reader knows has been asked for by now; anything else is refused.
+  root.refuse_unread_keys();
   return c;
 }
 

@@ -44,11 +44,34 @@ JsonField JsonField::operator[](const char* key) const {
   const QJsonObject object = value_.toObject();
   const auto it = object.constFind(QString::fromUtf8(key));
   if (it == object.constEnd()) JsonField(QJsonValue(), child, file_).fail("missing (required)");
-  return JsonField(*it, child, file_);
+  read_->insert(child);
+  return JsonField(*it, child, file_, read_);
 }
 
 bool JsonField::has(const char* key) const {
+  read_->insert(path_.empty() ? std::string(key) : path_ + "." + key);
   return value_.isObject() && value_.toObject().contains(QString::fromUtf8(key));
+}
+
+void JsonField::refuse_unread_keys() const { refuse_unread_below(value_, path_); }
+
+void JsonField::refuse_unread_below(const QJsonValue& value, const std::string& path) const {
+  if (value.isObject()) {
+    const QJsonObject object = value.toObject();
+    for (auto it = object.constBegin(); it != object.constEnd(); ++it) {
+      const std::string key = it.key().toStdString();
+      const std::string child = path.empty() ? key : path + "." + key;
+      if (!read_->count(child))
+        JsonField(it.value(), child, file_).fail("unknown key (not part of the format)");
+      refuse_unread_below(it.value(), child);
+    }
+  } else if (value.isArray()) {
+    const QJsonArray array = value.toArray();
+    for (qsizetype i = 0; i < array.size(); ++i) {
+      const std::string child = path + "[" + std::to_string(i) + "]";
+      if (read_->count(child)) refuse_unread_below(array.at(i), child);
+    }
+  }
 }
 
 std::vector<JsonField> JsonField::items() const {
@@ -57,7 +80,9 @@ std::vector<JsonField> JsonField::items() const {
   const QJsonArray array = value_.toArray();
   out.reserve(static_cast<size_t>(array.size()));
   for (qsizetype i = 0; i < array.size(); ++i) {
-    out.emplace_back(array.at(i), path_ + "[" + std::to_string(i) + "]", file_);
+    const std::string child = path_ + "[" + std::to_string(i) + "]";
+    read_->insert(child);
+    out.push_back(JsonField(array.at(i), child, file_, read_));
   }
   return out;
 }

@@ -6,6 +6,8 @@
 #include <QJsonValue>
 #include <cstdint>
 #include <initializer_list>
+#include <memory>
+#include <set>
 #include <string>
 #include <vector>
 
@@ -17,7 +19,10 @@ namespace gramline::formats {
 class JsonField {
  public:
   JsonField(QJsonValue value, std::string path, std::string file)
-      : value_(std::move(value)), path_(std::move(path)), file_(std::move(file)) {}
+      : value_(std::move(value)),
+        path_(std::move(path)),
+        file_(std::move(file)),
+        read_(std::make_shared<std::set<std::string>>()) {}
 
   /// Member `key` of this object; throws when this is not an object or the member is absent.
   JsonField operator[](const char* key) const;
@@ -55,13 +60,27 @@ class JsonField {
   /// Throws InputError "FILE: PATH: message".
   [[noreturn]] void fail(const std::string& message) const;
 
+  /// Refuses the first object member, at any depth below this field, that no reader asked for
+  /// (operator[] or has() on it, or items() on its array), naming its path: a misspelt or
+  /// unknown key is an error, not silently ignored. Fields made from this one share the record.
+  void refuse_unread_keys() const;
+
  private:
   std::string kind() const;
   [[noreturn]] void expected(const char* what) const;
 
+  JsonField(QJsonValue value, std::string path, std::string file,
+            std::shared_ptr<std::set<std::string>> read)
+      : value_(std::move(value)),
+        path_(std::move(path)),
+        file_(std::move(file)),
+        read_(std::move(read)) {}
+  void refuse_unread_below(const QJsonValue& value, const std::string& path) const;
+
   QJsonValue value_;
   std::string path_;
   std::string file_;
+  std::shared_ptr<std::set<std::string>> read_;  ///< paths asked for, shared with children
 };
 
 /// Parses JSON text whose top level must be an object; errors name the line and column.

@@ -140,6 +140,8 @@ std::string format_summary_json(const Campaign& campaign, const Plan& plan,
                                 const std::string& set_id,
                                 const std::map<std::string, std::string>& set_files) {
   const PlanSummary& s = plan.summary;
+  QJsonArray warnings;
+  for (const std::string& w : plan.warnings) warnings.append(QString::fromStdString(w));
   QJsonArray nights;
   for (const NightUse& n : s.night_use) {
     nights.append(QJsonObject{{"night", n.night},
@@ -174,6 +176,11 @@ std::string format_summary_json(const Campaign& campaign, const Plan& plan,
                 {"gram_min_eigenvalue", g.min_eigenvalue},
                 {"p_negative_eigenvalue", g.p_negative_eigenvalue},
                 {"epsilon_reached", s.epsilon_reached},
+                {"reference_steps", static_cast<qint64>(s.reference_steps)},
+                {"reference_pairs", s.reference_pairs},
+                {"reference_interval_min", s.reference_interval_min},
+                {"calibration_share_target", s.calibration_share_target},
+                {"calibration_share_max", s.calibration_share_max},
                 {"truncation_cost_s", s.truncation_cost_s},
                 {"kernel_rounding_max",
                  kernel_rounding_max(campaign.rig, campaign.encoding.photon_count(), plan.steps)},
@@ -181,7 +188,8 @@ std::string format_summary_json(const Campaign& campaign, const Plan& plan,
                 {"max_nights", campaign.nights.max_nights},
                 {"night_use", nights},
                 {"plan_ms", s.plan_ms},
-                {"gram_error_ms", s.gram_error_ms}};
+                {"gram_error_ms", s.gram_error_ms},
+                {"warnings", warnings}};
   if (!set_id.empty()) {
     QJsonObject files;
     for (const auto& [name, bytes] : set_files) files[q(name)] = q(sha256_hex(bytes));

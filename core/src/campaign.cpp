@@ -1,5 +1,6 @@
 #include "gramline/campaign.h"
 
+#include <algorithm>
 #include <chrono>
 #include <cstdio>
 #include <set>
@@ -99,6 +100,8 @@ std::string Campaign::check_consistency() const {
     return "schedule.reference_interval_min: must be >= 0";
   if (!(schedule.dark_dwell_s >= 0)) return "schedule.dark_dwell_s: must be >= 0";
   if (!(schedule.reference_pairs >= 0)) return "schedule.reference_pairs: must be >= 0";
+  if (!(schedule.calibration_share > 0 && schedule.calibration_share < 1))
+    return "schedule.calibration_share: must lie strictly between 0 and 1";
   if (check.trials < 1) return "check.trials: must be at least 1";
   if (check.cv_folds < 2) return "check.cv_folds: must be at least 2";
   return {};
@@ -113,6 +116,42 @@ constexpr EnumNames<Allocation, 3> kAllocationNames{{{Allocation::uniform, "unif
 std::string to_string(Allocation a) { return enum_text(kAllocationNames, a); }
 bool from_string(const std::string& t, Allocation& out) {
   return enum_from_text(kAllocationNames, t, out);
+}
+
+std::vector<std::string> Campaign::warnings() const {
+  std::vector<std::string> out;
+  const int photons = encoding.photon_count();
+  for (int p = 0; p < photons && p < static_cast<int>(rig.detectors.size()); ++p) {
+    const Detector& d = rig.detectors[p];
+    const double singles = rig.source.pair_rate_per_s * d.efficiency;
+    if (d.dark_rate_per_s > singles) {
+      std::ostringstream o;
+      o << "rig.detectors[" << p << "].dark_rate_per_s: " << d.dark_rate_per_s
+        << " dark counts/s exceed the " << singles
+        << " photon singles/s the detector sees (source rate x efficiency); check the units";
+      out.push_back(o.str());
+    }
+  }
+  if (data.train_count() > 0 && data.test_count() > 0) {
+    for (int f = 0; f < data.feature_count(); ++f) {
+      const double low = data.train.col(f).minCoeff(), high = data.train.col(f).maxCoeff();
+      const double width = std::max(high - low, 1e-12);
+      for (int t = 0; t < data.test_count(); ++t) {
+        const double x = data.test(t, f);
+        if (x < low - width || x > high + width) {
+          std::ostringstream o;
+          o << "data: test point " << t << ", feature "
+            << (f < static_cast<int>(data.feature_names.size()) ? data.feature_names[f]
+                                                                : std::to_string(f))
+            << " = " << x << " lies far outside the training range [" << low << ", " << high
+            << "]; its encoded angles wrap around";
+          out.push_back(o.str());
+          break;
+        }
+      }
+    }
+  }
+  return out;
 }
 
 }  // namespace gramline

@@ -1,5 +1,6 @@
 #include "gramline/entries.h"
 
+#include <algorithm>
 #include <cmath>
 
 #include "gramline/enum_names.h"
@@ -58,6 +59,52 @@ EntryModel EntryStatistics::model(const EntryNoise& noise) const {
 
 double EntryStatistics::sigma(const EntryNoise& noise, double pairs) const {
   return entry_sigma(rig_.scheme, photons_, noise, pairs);
+}
+
+CalibrationGradient EntryStatistics::calibration_gradient(const EntryNoise& noise) const {
+  return kernel_calibration_gradient(rig_.scheme, photons_, noise.calibration, noise.p_pass);
+}
+
+CalibrationCovariance EntryStatistics::reference_covariance(double pairs) const {
+  return gramline::reference_covariance(rig_.scheme, photons_, noise(-1, -1).calibration, pairs);
+}
+
+double EntryStatistics::calibration_variance(const EntryNoise& noise,
+                                             const CalibrationCovariance& cov) const {
+  return gramline::calibration_variance(calibration_gradient(noise), cov);
+}
+
+CalibrationWeights calibration_weights(const std::vector<double>& times, double t) {
+  CalibrationWeights w;
+  if (times.empty()) return w;
+  const int last = static_cast<int>(times.size()) - 1;
+  if (t <= times.front()) return {0, -1, 1.0, 0.0};
+  if (t >= times.back()) return {last, -1, 1.0, 0.0};
+  const int hi = static_cast<int>(std::upper_bound(times.begin(), times.end(), t) - times.begin());
+  const int lo = hi - 1;
+  const double span = times[hi] - times[lo];
+  const double x = span > 0 ? (t - times[lo]) / span : 0.0;
+  return {lo, hi, 1.0 - x, x};
+}
+
+CalibrationCovariance interpolated_covariance(const CalibrationWeights& w,
+                                              const std::vector<CalibrationCovariance>& refs) {
+  CalibrationCovariance c;
+  if (w.low >= 0) c += refs.at(w.low).scaled(w.w_low * w.w_low);
+  if (w.high >= 0) c += refs.at(w.high).scaled(w.w_high * w.w_high);
+  return c;
+}
+
+Calibration interpolated_calibration(Calibration base, const CalibrationWeights& w,
+                                     const std::vector<Calibration>& refs) {
+  if (w.low < 0) return base;
+  base.pair_detect_rate_per_s = w.w_low * refs.at(w.low).pair_detect_rate_per_s;
+  base.visibility = w.w_low * refs.at(w.low).visibility;
+  if (w.high >= 0) {
+    base.pair_detect_rate_per_s += w.w_high * refs.at(w.high).pair_detect_rate_per_s;
+    base.visibility += w.w_high * refs.at(w.high).visibility;
+  }
+  return base;
 }
 
 namespace {

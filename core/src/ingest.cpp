@@ -40,56 +40,35 @@ Calibration accidentals(const Campaign& c, const EntryNoise& model, const StepRe
 double dwell_of(const StepRecord& r) { return r.end_s - r.start_s; }
 
 DriftPoint reference_point(const Campaign& c, const EntryStatistics& stats, const Step& s,
-                           const StepRecord& r) {
+                           const StepRecord& r, CalibrationCovariance& cov) {
   const int photons = c.encoding.photon_count();
   const double t = dwell_of(r);
-  const Calibration cal = accidentals(c, stats.noise(s.prep_point, s.analysis_point), r);
+  const Calibration model = accidentals(c, stats.noise(s.prep_point, s.analysis_point), r);
   const double floor = 1.0 / std::ldexp(1.0, photons);  // pass probability of a mixed state
   DriftPoint d;
   d.step = r.step;
   d.time_s = 0.5 * (r.start_s + r.end_s);
-  const double n_pass = r.channel_counts.at(0);
+  SettingCounts counts;
+  counts.dwell_s = t;
+  counts.pass_counts = r.channel_counts.at(0);
+  for (double n : r.channel_counts) counts.total_counts += n;
+  const Calibration cal = reference_calibration(c.rig.scheme, photons, model, counts);
+  d.pair_detect_rate_per_s = cal.pair_detect_rate_per_s;
+  d.visibility = cal.visibility;
+  // The calibration's own uncertainty at the pairs this reference detected.
+  cov = reference_covariance(c.rig.scheme, photons, cal, cal.pair_detect_rate_per_s * t);
   if (c.rig.scheme == DetectionScheme::both_ports) {
-    double n_total = 0.0;
-    for (double n : r.channel_counts) n_total += n;
-    const double rate = (n_total - cal.accidental_total_rate_per_s * t) / t;
-    d.pair_detect_rate_per_s = rate;
+    const double n_total = counts.total_counts;
+    const double rate = cal.pair_detect_rate_per_s;
+    const double p_obs = n_total > 0 ? counts.pass_counts / n_total : kNaN;
     d.pair_detect_rate_sigma = std::sqrt(n_total) / t;
-    const double p_obs = n_total > 0 ? n_pass / n_total : kNaN;
-    const double p =
-        (p_obs * (rate + cal.accidental_total_rate_per_s) - cal.accidental_pass_rate_per_s) / rate;
-    // A reference has kernel 1, so p = V + (1 - V) / 2^P.
-    d.visibility = (p - floor) / (1.0 - floor);
     d.visibility_sigma = std::sqrt(p_obs * (1.0 - p_obs) / n_total) *
-                         (rate + cal.accidental_total_rate_per_s) / rate / (1.0 - floor);
+                         (rate + model.accidental_total_rate_per_s) / rate / (1.0 - floor);
   } else {
-    // One channel cannot separate rate and visibility: take V from the rig model.
-    d.visibility = c.rig.source.visibility;
     const double p_ref = pass_probability(1.0, d.visibility, photons);
-    d.pair_detect_rate_per_s = (n_pass / t - cal.accidental_pass_rate_per_s) / p_ref;
-    d.pair_detect_rate_sigma = std::sqrt(n_pass) / t / p_ref;
+    d.pair_detect_rate_sigma = std::sqrt(counts.pass_counts) / t / p_ref;
   }
   return d;
-}
-
-// Linear interpolation of the reference calibrations at time t (nearest outside their span).
-void interpolate(const std::vector<DriftPoint>& refs, double t, double& rate, double& v) {
-  if (t <= refs.front().time_s) {
-    rate = refs.front().pair_detect_rate_per_s;
-    v = refs.front().visibility;
-    return;
-  }
-  if (t >= refs.back().time_s) {
-    rate = refs.back().pair_detect_rate_per_s;
-    v = refs.back().visibility;
-    return;
-  }
-  const auto hi = std::upper_bound(refs.begin(), refs.end(), t,
-                                   [](double x, const DriftPoint& d) { return x < d.time_s; });
-  const auto lo = hi - 1;
-  const double w = (t - lo->time_s) / (hi->time_s - lo->time_s);
-  rate = (1 - w) * lo->pair_detect_rate_per_s + w * hi->pair_detect_rate_per_s;
-  v = (1 - w) * lo->visibility + w * hi->visibility;
 }
 
 }  // namespace
@@ -136,12 +115,28 @@ IngestResult ingest_records(const Campaign& campaign, const Plan& plan,
   out.test_z = Eigen::MatrixXd::Constant(m, n, kNaN);
   out.expected_entries = static_cast<int>(plan.summary.settings);
 
+  std::vector<std::pair<DriftPoint, CalibrationCovariance>> refs;
   for (const StepRecord& r : records) {
     const Step& s = plan.steps[r.step];
-    if (s.kind == StepKind::reference) out.drift.push_back(reference_point(c, stats, s, r));
+    if (s.kind != StepKind::reference) continue;
+    CalibrationCovariance cov;
+    const DriftPoint d = reference_point(c, stats, s, r, cov);
+    refs.push_back({d, cov});
   }
-  std::sort(out.drift.begin(), out.drift.end(),
-            [](const DriftPoint& a, const DriftPoint& b) { return a.time_s < b.time_s; });
+  std::stable_sort(refs.begin(), refs.end(),
+                   [](const auto& a, const auto& b) { return a.first.time_s < b.first.time_s; });
+  std::vector<double> ref_times;
+  std::vector<CalibrationCovariance> ref_cov;
+  std::vector<Calibration> ref_cal;
+  for (const auto& [d, cov] : refs) {
+    out.drift.push_back(d);
+    Calibration rc;
+    rc.pair_detect_rate_per_s = d.pair_detect_rate_per_s;
+    rc.visibility = d.visibility;
+    ref_cal.push_back(rc);
+    ref_times.push_back(d.time_s);
+    ref_cov.push_back(cov);
+  }
   if (!out.drift.empty()) {
     const DriftPoint& first = out.drift.front();
     for (DriftPoint& d : out.drift) {
@@ -160,9 +155,11 @@ IngestResult ingest_records(const Campaign& campaign, const Plan& plan,
     const EntryNoise model = stats.noise(s.prep_point, s.analysis_point);
     Calibration cal = accidentals(c, model, r);
     const double t = dwell_of(r);
-    if (!out.drift.empty())
-      interpolate(out.drift, 0.5 * (r.start_s + r.end_s), cal.pair_detect_rate_per_s,
-                  cal.visibility);
+    // The calibration interpolated from the references around the step, and its variance
+    // (docs/error-budget.md); without references the rig model's, taken as exact.
+    const CalibrationWeights w = calibration_weights(ref_times, 0.5 * (r.start_s + r.end_s));
+    cal = interpolated_calibration(cal, w, ref_cal);
+    const CalibrationCovariance cal_cov = interpolated_covariance(w, ref_cov);
     SettingCounts counts;
     counts.dwell_s = t;
     counts.pass_counts = r.channel_counts[0];
@@ -172,8 +169,11 @@ IngestResult ingest_records(const Campaign& campaign, const Plan& plan,
     const double p_seen = std::clamp(pass_probability(kappa, cal.visibility, photons), 0.0, 1.0);
     // The same entry at the calibration of its night: with the pass probability seen (sigma of
     // the measured value) and with the predicted one (the z-score's yardstick).
-    const double sigma = stats.sigma(EntryNoise{p_seen, cal}, pairs);
-    const double sigma_pred = stats.sigma(EntryNoise{model.p_pass, cal}, pairs);
+    const EntryNoise seen{p_seen, cal}, predicted{model.p_pass, cal};
+    const double sigma = std::sqrt(std::pow(stats.sigma(seen, pairs), 2) +
+                                   stats.calibration_variance(seen, cal_cov));
+    const double sigma_pred = std::sqrt(std::pow(stats.sigma(predicted, pairs), 2) +
+                                        stats.calibration_variance(predicted, cal_cov));
     const double z = (kappa - s.kernel_ideal) / sigma_pred;
     const int a = std::min(s.prep_point, s.analysis_point);
     const int b = std::max(s.prep_point, s.analysis_point);

@@ -17,14 +17,31 @@ namespace gramline {
 // ---------------------------------------------------------------------------------------------
 // The problem
 
+namespace {
+// Counts and calibration in quadrature, as the plan computes them (plan.cpp).
+double marginal_sigma(const MarginProblem& p, const EntryNoise& noise, double pairs,
+                      const std::vector<CalibrationWeights>& weights, std::size_t e) {
+  const double own = entry_sigma(p.scheme, p.photons, noise, pairs);
+  if (weights.empty() || p.references.empty()) return own;
+  std::vector<CalibrationCovariance> covs;
+  covs.reserve(p.references.size());
+  for (const MarginProblem::Reference& r : p.references) covs.push_back(r.covariance);
+  const double cal = calibration_variance(
+      kernel_calibration_gradient(p.scheme, p.photons, noise.calibration, noise.p_pass),
+      interpolated_covariance(weights.at(e), covs));
+  return std::sqrt(own * own + cal);
+}
+}  // namespace
+
 Eigen::MatrixXd MarginProblem::sigma_train() const {
   const int n = train_count();
   Eigen::MatrixXd s = Eigen::MatrixXd::Zero(n, n);
   for (int i = 0; i < n; ++i)
     for (int j = i + 1; j < n; ++j) {
       const double pairs = pairs_train(i, j);
+      const std::size_t e = static_cast<std::size_t>(i) * n + j;
       if (pairs > 0)
-        s(i, j) = s(j, i) = entry_sigma(scheme, photons, noise_train[i * n + j], pairs);
+        s(i, j) = s(j, i) = marginal_sigma(*this, noise_train[e], pairs, weights_train, e);
     }
   return s;
 }
@@ -35,7 +52,8 @@ Eigen::MatrixXd MarginProblem::sigma_test() const {
   for (int t = 0; t < m; ++t)
     for (int j = 0; j < n; ++j) {
       const double pairs = pairs_test(t, j);
-      if (pairs > 0) s(t, j) = entry_sigma(scheme, photons, noise_test[t * n + j], pairs);
+      const std::size_t e = static_cast<std::size_t>(t) * n + j;
+      if (pairs > 0) s(t, j) = marginal_sigma(*this, noise_test[e], pairs, weights_test, e);
     }
   return s;
 }
@@ -59,6 +77,37 @@ MarginProblem make_margin_problem(const Campaign& campaign, const Plan& plan) {
   problem.noise_test.resize(static_cast<std::size_t>(m) * n);
   for (int t = 0; t < m; ++t)
     for (int j = 0; j < n; ++j) problem.noise_test[t * n + j] = entries.noise(n + t, j);
+  // The reference steps and the weights each measure step takes from them, by the middle of
+  // the counting intervals (the rule of ingest, calibration_weights in entries.h).
+  std::vector<std::pair<double, int>> refs;
+  auto middle = [](const Step& s) { return s.start_s + s.move_s + 0.5 * s.dwell_s; };
+  for (size_t k = 0; k < plan.steps.size(); ++k) {
+    const Step& st = plan.steps[k];
+    if (st.kind == StepKind::reference && st.pairs > 0)
+      refs.push_back({middle(st), static_cast<int>(k)});
+  }
+  std::stable_sort(refs.begin(), refs.end(),
+                   [](const auto& a, const auto& b) { return a.first < b.first; });
+  if (refs.empty()) return problem;
+  std::vector<double> times;
+  for (const auto& [t, k] : refs) {
+    const Step& st = plan.steps[k];
+    times.push_back(t);
+    problem.references.push_back({entries.noise(st.prep_point, st.analysis_point), st.pairs,
+                                  entries.reference_covariance(st.pairs)});
+  }
+  problem.weights_train.assign(static_cast<std::size_t>(n) * n, {});
+  problem.weights_test.assign(static_cast<std::size_t>(m) * n, {});
+  for (const Step& st : plan.steps) {
+    if (st.kind != StepKind::measure) continue;
+    const int a = std::min(st.prep_point, st.analysis_point);
+    const int b = std::max(st.prep_point, st.analysis_point);
+    const CalibrationWeights w = calibration_weights(times, middle(st));
+    if (st.block == Block::train)
+      problem.weights_train[static_cast<std::size_t>(a) * n + b] = w;
+    else
+      problem.weights_test[static_cast<std::size_t>(b - n) * n + a] = w;
+  }
   return problem;
 }
 
@@ -86,6 +135,8 @@ class PreparedDraws {
  public:
   explicit PreparedDraws(const MarginProblem& problem) : problem_(problem) {
     const int n = problem.train_count(), m = problem.test_count();
+    for (const MarginProblem::Reference& r : problem.references)
+      refs_.push_back(prepare(r.noise, 1.0, r.pairs));
     train_.resize(static_cast<std::size_t>(n) * n);
     test_.resize(static_cast<std::size_t>(m) * n);
     for (int i = 0; i < n; ++i)
@@ -100,19 +151,30 @@ class PreparedDraws {
 
   void draw(std::uint64_t trial_seed, Eigen::MatrixXd& train, Eigen::MatrixXd& test) const {
     const int n = problem_.train_count(), m = problem_.test_count();
+    const std::size_t entries = static_cast<std::size_t>(n) * n + static_cast<std::size_t>(m) * n;
+    // The references' counts, each on its own stream after the entries', and the calibration
+    // each gives (reference_calibration, detection.h).
+    std::vector<Calibration> cal(refs_.size());
+    for (size_t k = 0; k < refs_.size(); ++k) {
+      const SettingCounts counts = draw_counts(refs_[k], stream_seed(trial_seed, entries + k));
+      cal[k] =
+          reference_calibration(problem_.scheme, problem_.photons, *refs_[k].calibration, counts);
+    }
     train.resize(n, n);
     test.resize(m, n);
     for (int i = 0; i < n; ++i) {
       train(i, i) = problem_.kernel_train(i, i);
       for (int j = i + 1; j < n; ++j) {
         const std::size_t e = static_cast<std::size_t>(i) * n + j;
-        train(i, j) = train(j, i) = sample(train_[e], stream_seed(trial_seed, e));
+        train(i, j) = train(j, i) =
+            sample(train_[e], stream_seed(trial_seed, e), problem_.weights_train, e, cal);
       }
     }
     for (int t = 0; t < m; ++t)
       for (int j = 0; j < n; ++j) {
         const std::size_t e = static_cast<std::size_t>(t) * n + j;
-        test(t, j) = sample(test_[e], stream_seed(trial_seed, static_cast<std::size_t>(n) * n + e));
+        test(t, j) = sample(test_[e], stream_seed(trial_seed, static_cast<std::size_t>(n) * n + e),
+                            problem_.weights_test, e, cal);
       }
   }
 
@@ -135,8 +197,7 @@ class PreparedDraws {
     return s;
   }
 
-  double sample(const EntrySampler& s, std::uint64_t seed) const {
-    if (s.exact) return s.ideal;
+  SettingCounts draw_counts(const EntrySampler& s, std::uint64_t seed) const {
     SplitMix64 rng(seed);
     std::poisson_distribution<long long> poisson;
     SettingCounts counts;
@@ -153,11 +214,24 @@ class PreparedDraws {
         counts.pass_counts = 1.0;
       }
     }
-    return estimate_kernel(problem_.scheme, problem_.photons, *s.calibration, counts);
+    return counts;
+  }
+
+  // One entry's estimate: its counts, calibrated by the references of its weights when it has
+  // some (their rate and visibility interpolated), else by the rig model.
+  double sample(const EntrySampler& s, std::uint64_t seed,
+                const std::vector<CalibrationWeights>& weights, std::size_t e,
+                const std::vector<Calibration>& refs) const {
+    if (s.exact) return s.ideal;
+    const SettingCounts counts = draw_counts(s, seed);
+    const Calibration cal = weights.empty() || refs.empty()
+                                ? *s.calibration
+                                : interpolated_calibration(*s.calibration, weights[e], refs);
+    return estimate_kernel(problem_.scheme, problem_.photons, cal, counts);
   }
 
   const MarginProblem& problem_;
-  std::vector<EntrySampler> train_, test_;
+  std::vector<EntrySampler> train_, test_, refs_;
 };
 
 }  // namespace

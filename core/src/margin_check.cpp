@@ -164,7 +164,7 @@ MarginCheck check_margin(const Campaign& campaign, const Plan& plan,
   const double r = check.pair_detect_rate_per_s;
   const double plan_total = total_pairs(problem);
   check.plan_integration_s = plan_total / r;
-  check.plan_overhead_s = plan.summary.measure_move_s + plan.summary.reference_s;
+  check.plan_overhead_s = plan.summary.move_s + plan.summary.reference_s;
 
   TrialOptions search = trial;
   search.trials =

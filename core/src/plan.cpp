@@ -60,7 +60,7 @@ void index_steps(int n, int m, Plan& plan) {
     s.pairs_total += st.pairs;
     s.total_s = std::max(s.total_s, st.start_s + st.move_s + st.dwell_s);
     if (st.kind != StepKind::measure) {
-      s.reference_s += st.move_s + st.dwell_s;
+      s.reference_s += st.dwell_s;  // its move is in move_s
       continue;
     }
     ++s.settings;
@@ -76,6 +76,159 @@ void index_steps(int n, int m, Plan& plan) {
     }
   }
   s.steps = static_cast<long>(plan.steps.size());
+}
+
+// Middle of a step's counting interval: where ingest places its calibration in time.
+double counting_middle_s(const Step& s) { return s.start_s + s.move_s + 0.5 * s.dwell_s; }
+
+// Per-entry pairs and sigma from the plan's steps: the counts' variance at the step's pairs plus
+// the variance of the calibration interpolated from the reference steps around it
+// (docs/error-budget.md), the calibration's shared components of the training block, and the
+// summary's reference figures. Returns the largest half-width of an entry under `budget` at its
+// own predicted p, widened by the calibration term in quadrature.
+double fill_entry_statistics(const Campaign& c, const EntryStatistics& stats, Plan& plan,
+                             const BudgetOptions& budget) {
+  const int n = c.data.train_count();
+  const int m = c.data.test_count();
+  plan.pairs_train = Eigen::MatrixXd::Zero(n, n);
+  plan.pairs_test = Eigen::MatrixXd::Zero(m, n);
+  plan.sigma_train = Eigen::MatrixXd::Zero(n, n);
+  plan.sigma_test = Eigen::MatrixXd::Zero(m, n);
+  plan.calibration_sigma_train = Eigen::MatrixXd::Zero(n, n);
+  plan.calibration_sigma_test = Eigen::MatrixXd::Zero(m, n);
+  plan.shared_noise_train.clear();
+  PlanSummary& sum = plan.summary;
+  sum.reference_steps = 0;
+  sum.reference_pairs = 0.0;
+  sum.calibration_share_max = 0.0;
+
+  // The reference steps that calibrate: ingest skips none that counted.
+  std::vector<double> ref_times;
+  std::vector<CalibrationCovariance> ref_cov;
+  std::vector<int> ref_step;
+  for (size_t k = 0; k < plan.steps.size(); ++k) {
+    const Step& st = plan.steps[k];
+    if (st.kind != StepKind::reference || !(st.pairs > 0)) continue;
+    ref_times.push_back(counting_middle_s(st));
+    ref_cov.push_back(stats.reference_covariance(st.pairs));
+    ref_step.push_back(static_cast<int>(k));
+    sum.reference_pairs = std::max(sum.reference_pairs, st.pairs);
+  }
+  sum.reference_steps = static_cast<long>(ref_times.size());
+  // Ingest sorts the references by time; so does this list, whatever the step order.
+  {
+    std::vector<size_t> idx(ref_times.size());
+    for (size_t k = 0; k < idx.size(); ++k) idx[k] = k;
+    std::stable_sort(idx.begin(), idx.end(),
+                     [&](size_t a, size_t b) { return ref_times[a] < ref_times[b]; });
+    std::vector<double> t2;
+    std::vector<CalibrationCovariance> c2;
+    std::vector<int> s2;
+    for (size_t k : idx) {
+      t2.push_back(ref_times[k]);
+      c2.push_back(ref_cov[k]);
+      s2.push_back(ref_step[k]);
+    }
+    ref_times.swap(t2);
+    ref_cov.swap(c2);
+    ref_step.swap(s2);
+  }
+  // Two shared components per reference (its rate and, for both ports, its visibility): the
+  // Cholesky factor of its 2 x 2 covariance, times each entry's gradient and weight.
+  std::vector<SharedNoiseComponent> rate_part(ref_times.size()), vis_part(ref_times.size());
+  for (size_t k = 0; k < ref_times.size(); ++k) {
+    rate_part[k].label = "reference step " + std::to_string(ref_step[k]) + " (pair rate)";
+    vis_part[k].label = "reference step " + std::to_string(ref_step[k]) + " (visibility)";
+  }
+
+  BudgetOptions at_own_p = budget;  // the true half-width: each entry at its own p
+  at_own_p.worst_case = false;
+  double worst_half_width = 0.0;
+  for (const Step& st : plan.steps) {
+    if (st.kind != StepKind::measure) continue;
+    const int a = std::min(st.prep_point, st.analysis_point);
+    const int b = std::max(st.prep_point, st.analysis_point);
+    const EntryNoise noise = stats.noise(a, b);
+    const CalibrationWeights w = calibration_weights(ref_times, counting_middle_s(st));
+    const CalibrationCovariance cov = interpolated_covariance(w, ref_cov);
+    const double own = stats.sigma(noise, st.pairs);
+    const double cal_var = stats.calibration_variance(noise, cov);
+    const double sigma = std::sqrt(own * own + cal_var);
+    const double cal_sigma = std::sqrt(cal_var);
+    if (sigma > 0 && std::isfinite(sigma))
+      sum.calibration_share_max = std::max(sum.calibration_share_max, cal_var / (sigma * sigma));
+    const double half = precision_for_pairs(stats.model(noise), st.pairs, at_own_p);
+    worst_half_width = std::max(worst_half_width, own > 0 ? half * sigma / own : half);
+    if (st.block == Block::train) {
+      plan.pairs_train(a, b) = plan.pairs_train(b, a) = st.pairs;
+      plan.sigma_train(a, b) = plan.sigma_train(b, a) = sigma;
+      plan.calibration_sigma_train(a, b) = plan.calibration_sigma_train(b, a) = cal_sigma;
+      const CalibrationGradient g = stats.calibration_gradient(noise);
+      for (const auto& [ref, weight] : {std::pair{w.low, w.w_low}, std::pair{w.high, w.w_high}}) {
+        if (ref < 0 || weight == 0.0) continue;
+        const CalibrationCovariance& cr = ref_cov[ref];
+        const double l00 = std::sqrt(cr.rate_var);
+        const double l10 = l00 > 0 ? cr.rate_visibility_cov / l00 : 0.0;
+        const double l11 = std::sqrt(std::max(0.0, cr.visibility_var - l10 * l10));
+        const double rate_loading = weight * (g.d_rate * l00 + g.d_visibility * l10);
+        const double vis_loading = weight * g.d_visibility * l11;
+        if (rate_loading != 0.0) rate_part[ref].loadings.push_back({a, b, rate_loading});
+        if (vis_loading != 0.0) vis_part[ref].loadings.push_back({a, b, vis_loading});
+      }
+    } else {
+      plan.pairs_test(b - n, a) = st.pairs;
+      plan.sigma_test(b - n, a) = sigma;
+      plan.calibration_sigma_test(b - n, a) = cal_sigma;
+    }
+  }
+  for (auto* parts : {&rate_part, &vis_part})
+    for (SharedNoiseComponent& comp : *parts)
+      if (!comp.loadings.empty()) plan.shared_noise_train.push_back(std::move(comp));
+  return worst_half_width;
+}
+
+// Refuses an entry whose counting alone outlasts the nightly window, naming what makes it long
+// and what shortens it: accidentals from a wide coincidence window, a rig that detects few
+// pairs, or a precision goal that asks for very many pairs. (With fit_to_nights the scheduler
+// shrinks the pairs instead.)
+void check_entry_durations(const Campaign& c, const EntryStatistics& stats,
+                           const std::vector<EntryRequest>& entries,
+                           const std::vector<EntryNoise>& noise, double rate_per_s) {
+  if (c.schedule.fit_to_nights || !(rate_per_s > 0)) return;
+  const double window_s = c.nights.length_s();
+  size_t longest = 0;
+  for (size_t k = 1; k < entries.size(); ++k)
+    if (entries[k].dwell_s > entries[longest].dwell_s) longest = k;
+  if (entries.empty() || entries[longest].dwell_s <= window_s) return;
+  const EntryRequest& e = entries[longest];
+  const EntryModel model = stats.model(noise[longest]);
+  std::ostringstream o;
+  o << "kernel entry " << e.a << "/" << e.b << " needs " << e.pairs << " detected pairs, "
+    << e.dwell_s << " s of counting at " << rate_per_s
+    << " detected pairs/s: longer than the nightly window (" << window_s << " s). ";
+  const double accidentals = std::max(model.accidental_ratio, model.accidental_total_ratio);
+  std::string field;
+  if (accidentals > 0.5) {
+    field = "rig.coincidence_window_s";
+    o << "Cause: the coincidence window of " << c.rig.coincidence_window_s
+      << " s lets accidental coincidences outnumber real pairs " << accidentals
+      << " to 1. Fix: a window of a few nanoseconds, or detectors with fewer dark counts.";
+  } else if (c.precision.fixed_pairs > 0) {
+    field = "precision.fixed_pairs";
+    o << "Cause: precision.fixed_pairs. Fix: fewer pairs per entry.";
+  } else if (rate_per_s < 100.0) {
+    field = "rig.source.pair_rate_per_s";
+    o << "Cause: the rig detects only " << rate_per_s
+      << " pairs/s (the source's pair rate times the detectors' efficiencies). Fix: a brighter "
+         "source or better coupling, a larger precision.epsilon, or schedule.fit_to_nights.";
+  } else {
+    field = "precision.epsilon";
+    o << "Cause: precision.epsilon = " << c.precision.budget.epsilon
+      << " (the pairs grow as 1 / epsilon^2). Fix: a larger precision.epsilon, or "
+         "schedule.fit_to_nights to spend the nights allowed.";
+  }
+  (void)stats;
+  throw std::invalid_argument(field + ": " + o.str());
 }
 
 // Shares the pairs among the entries by the campaign's allocation strategy. The precision
@@ -140,12 +293,20 @@ Plan plan_campaign(const Campaign& campaign, const PlanOptions& options) {
   const auto t0 = std::chrono::steady_clock::now();
   if (auto e = campaign.check_consistency(); !e.empty()) throw std::invalid_argument(e);
   options.validate(campaign);
+  // Pass-port counts are normalised by the pair rate of the reference steps: without them the
+  // entries would rest on the rig model's rate alone.
+  if (campaign.rig.scheme == DetectionScheme::pass_only &&
+      !(campaign.schedule.reference_interval_min > 0))
+    throw std::invalid_argument(
+        "schedule.reference_interval_min: 0 (never) leaves pass-only detection nothing to "
+        "normalise the counts by; set an interval (20 min is usual) or detect both ports");
   const Campaign& c = campaign;
   const int n = c.data.train_count();
   const int m = c.data.test_count();
   const int photons = c.encoding.photon_count();
 
   Plan plan;
+  plan.warnings = c.warnings();
   const std::vector<PointTargets> targets = synthesize_points(c);
   const EntryStatistics stats(c);
   plan.kernel_train = ideal_gram(c.encoding, c.data.train);
@@ -164,6 +325,14 @@ Plan plan_campaign(const Campaign& campaign, const PlanOptions& options) {
   in.entries.reserve(static_cast<size_t>(n) * (n - 1) / 2 + static_cast<size_t>(m) * n);
   std::vector<EntryNoise> noise;
   noise.reserve(in.entries.capacity());
+  // When the planner chooses the reference pairs, the calibration may take up to
+  // schedule.calibration_share of each entry's variance: the counts get the rest
+  // (docs/error-budget.md).
+  const bool references = c.schedule.reference_interval_min > 0;
+  const bool choose_references = references && !(c.schedule.reference_pairs > 0);
+  const double share = c.schedule.calibration_share;
+  BudgetOptions entry_budget = c.precision.budget;
+  if (choose_references) entry_budget.epsilon *= std::sqrt(1.0 - share);
   auto add_entry = [&](int a, int b, Block block, double kappa) {
     const EntryNoise e = stats.noise(a, b);
     EntryRequest r;
@@ -173,7 +342,7 @@ Plan plan_campaign(const Campaign& campaign, const PlanOptions& options) {
     r.kernel_ideal = kappa;
     r.p_pass = e.p_pass;
     r.pairs = c.precision.fixed_pairs > 0 ? c.precision.fixed_pairs
-                                          : pairs_for_precision(stats.model(e), c.precision.budget);
+                                          : pairs_for_precision(stats.model(e), entry_budget);
     r.dwell_s = r.pairs / in.pair_detect_rate_per_s;
     in.entries.push_back(r);
     noise.push_back(e);
@@ -194,18 +363,31 @@ Plan plan_campaign(const Campaign& campaign, const PlanOptions& options) {
   options.hooks.throw_if_cancelled();
   allocate(c, plan, stats, in.entries, noise, in.pair_detect_rate_per_s);
 
-  // A reference step is a diagonal setting (kernel 1); it gets the median entry's pairs unless
-  // the campaign sets its own.
-  {
-    std::vector<double> pairs;
-    for (const EntryRequest& r : in.entries) pairs.push_back(r.pairs);
-    double median = 1.0;
-    if (!pairs.empty()) {
-      std::nth_element(pairs.begin(), pairs.begin() + pairs.size() / 2, pairs.end());
-      median = pairs[pairs.size() / 2];
+  // A reference step is a diagonal setting (kernel 1). Its pairs are the campaign's, or the
+  // fewest that keep the calibration within `share` of every entry's variance: an entry
+  // calibrated by one reference alone (the least favourable weight) has calibration variance
+  // c_e / pairs_ref, so pairs_ref >= c_e (1 - share) / (share var_e) (docs/error-budget.md).
+  check_entry_durations(c, stats, in.entries, noise, in.pair_detect_rate_per_s);
+  in.reference_p_pass = pass_probability(1.0, c.rig.source.visibility, photons);
+  if (!choose_references) {
+    in.reference_pairs = c.schedule.reference_pairs;
+  } else {
+    const CalibrationCovariance per_pair = stats.reference_covariance(1.0);
+    double need = 1.0;
+    for (size_t k = 0; k < in.entries.size(); ++k) {
+      const double own = stats.sigma(noise[k], in.entries[k].pairs);
+      const double c_e = stats.calibration_variance(noise[k], per_pair);
+      if (own > 0 && std::isfinite(own))
+        need = std::max(need, c_e * (1.0 - share) / (share * own * own));
     }
-    in.reference_pairs = c.schedule.reference_pairs > 0 ? c.schedule.reference_pairs : median;
-    in.reference_p_pass = pass_probability(1.0, c.rig.source.visibility, photons);
+    in.reference_pairs = std::ceil(need - 1e-9);
+    in.reference_pairs_follow_scale = true;
+    std::ostringstream origin;
+    origin << "the reference steps (" << in.reference_pairs
+           << " pairs each, chosen to keep the calibration within schedule.calibration_share = "
+           << share << " of each entry's variance; a larger share or schedule.reference_pairs "
+           << "shortens them)";
+    in.reference_pairs_origin = origin.str();
   }
 
   ScheduleOptions so;
@@ -214,32 +396,13 @@ Plan plan_campaign(const Campaign& campaign, const PlanOptions& options) {
   so.hooks = options.hooks;
   ScheduleResult sched = build_schedule(in, so);
 
-  // Per-entry pairs (after any fit-to-nights scaling) and predicted sigma.
-  plan.pairs_train = Eigen::MatrixXd::Zero(n, n);
-  plan.pairs_test = Eigen::MatrixXd::Zero(m, n);
-  plan.sigma_train = Eigen::MatrixXd::Zero(n, n);
-  plan.sigma_test = Eigen::MatrixXd::Zero(m, n);
-  double worst_half_width = 0.0;
-  BudgetOptions at_own_p = c.precision.budget;  // the true half-width: each entry at its own p
-  at_own_p.worst_case = false;
-  for (size_t k = 0; k < in.entries.size(); ++k) {
-    const EntryRequest& r = in.entries[k];
-    const double pairs = r.pairs * sched.pairs_scale;
-    const double sigma = stats.sigma(noise[k], pairs);
-    worst_half_width =
-        std::max(worst_half_width, precision_for_pairs(stats.model(noise[k]), pairs, at_own_p));
-    if (r.block == Block::train) {
-      plan.pairs_train(r.a, r.b) = plan.pairs_train(r.b, r.a) = pairs;
-      plan.sigma_train(r.a, r.b) = plan.sigma_train(r.b, r.a) = sigma;
-    } else {
-      plan.pairs_test(r.a - n, r.b) = pairs;
-      plan.sigma_test(r.a - n, r.b) = sigma;
-    }
-  }
-
   plan.steps = std::move(sched.steps);
   index_steps(n, m, plan);
+  // Per-entry pairs (after any fit-to-nights scaling) and predicted sigma, references included.
+  const double worst_half_width = fill_entry_statistics(c, stats, plan, c.precision.budget);
   PlanSummary& s = plan.summary;
+  s.reference_interval_min = c.schedule.reference_interval_min;
+  s.calibration_share_target = choose_references ? share : 0.0;
   s.nights = sched.nights;
   s.fits = sched.fits;
   s.night_use = sched.night_use;
@@ -248,7 +411,7 @@ Plan plan_campaign(const Campaign& campaign, const PlanOptions& options) {
   s.truncation_cost_s = sched.truncation_cost_s;
   s.epsilon_reached = worst_half_width;
 
-  plan.gram_error = describe_gram_noise(plan.kernel_train, GramNoise{plan.sigma_train, {}});
+  plan.gram_error = describe_gram_noise(plan.kernel_train, plan_gram_noise(plan));
   s.gram_sigma_frobenius = plan.gram_error.sigma_frobenius;
   plan.options = options;
   plan.options->resume = nullptr;
@@ -279,25 +442,10 @@ Plan plan_from_steps(const Campaign& campaign, std::vector<Step> steps) {
   plan.kernel_test =
       m > 0 ? ideal_cross(c.encoding, c.data.test, c.data.train) : Eigen::MatrixXd(0, n);
   index_steps(n, m, plan);
-  plan.pairs_train = Eigen::MatrixXd::Zero(n, n);
-  plan.pairs_test = Eigen::MatrixXd::Zero(m, n);
-  plan.sigma_train = Eigen::MatrixXd::Zero(n, n);
-  plan.sigma_test = Eigen::MatrixXd::Zero(m, n);
-  for (const Step& st : plan.steps) {
-    plan.summary.nights = std::max(plan.summary.nights, st.night);
-    if (st.kind != StepKind::measure) continue;
-    const int a = std::min(st.prep_point, st.analysis_point);
-    const int b = std::max(st.prep_point, st.analysis_point);
-    const double sigma = stats.sigma(stats.noise(a, b), st.pairs);
-    if (st.block == Block::train) {
-      plan.pairs_train(a, b) = plan.pairs_train(b, a) = st.pairs;
-      plan.sigma_train(a, b) = plan.sigma_train(b, a) = sigma;
-    } else {
-      plan.pairs_test(b - n, a) = st.pairs;
-      plan.sigma_test(b - n, a) = sigma;
-    }
-  }
-  plan.gram_error = describe_gram_noise(plan.kernel_train, GramNoise{plan.sigma_train, {}});
+  for (const Step& st : plan.steps) plan.summary.nights = std::max(plan.summary.nights, st.night);
+  plan.summary.reference_interval_min = c.schedule.reference_interval_min;
+  fill_entry_statistics(c, stats, plan, c.precision.budget);
+  plan.gram_error = describe_gram_noise(plan.kernel_train, plan_gram_noise(plan));
   plan.summary.gram_sigma_frobenius = plan.gram_error.sigma_frobenius;
   return plan;
 }
@@ -351,6 +499,21 @@ std::string Plan::report() const {
     << (s.fits ? "" : " -- DOES NOT FIT the nights allowed") << "\n";
   o << "  counting " << hours(s.integration_s) << ", moving " << hours(s.move_s)
     << ", references/dark/park " << hours(s.reference_s) << "\n";
+  if (s.reference_steps > 0) {
+    double cost_s = 0.0;  // what the reference steps take: their moves and their counting
+    for (const Step& st : steps)
+      if (st.kind == StepKind::reference) cost_s += st.move_s + st.dwell_s;
+    o << std::setprecision(0) << "References: " << s.reference_steps << " steps of "
+      << s.reference_pairs << " pairs (" << std::setprecision(2) << cost_s / 3600.0
+      << " h with their moves), at least every " << std::setprecision(0) << s.reference_interval_min
+      << " min; calibration up to " << std::setprecision(1) << 100.0 * s.calibration_share_max
+      << " % of an entry's variance";
+    if (s.calibration_share_target > 0)
+      o << " (planned for at most " << 100.0 * s.calibration_share_target << " %)";
+    o << "\n";
+  } else {
+    o << "References: none; the rig model calibrates\n";
+  }
   o << std::setprecision(2);
   o << "Pairs: " << s.pairs_total / 1e6 << " million in all; worst entry half-width "
     << std::setprecision(4) << s.epsilon_reached << "\n";
@@ -368,6 +531,7 @@ std::string Plan::report() const {
       << (options->optimize_order ? "optimized" : "row-by-row") << " motor order, "
       << (options->simulate_gram_error ? "simulated" : "no simulated") << " Gram error\n";
   }
+  for (const std::string& w : warnings) o << "Warning: " << w << "\n";
   o << std::setprecision(0) << "Planned in " << s.plan_ms << " ms\n";
   return o.str();
 }

@@ -149,7 +149,9 @@ class TimelineBuilder {
     pos = next;
     s.kernel_ideal = 1.0;
     s.p_pass = in_.reference_p_pass;
-    s.pairs = in_.reference_pairs > 0.0 ? in_.reference_pairs : mean_pairs_ * scale;
+    s.pairs = in_.reference_pairs > 0.0
+                  ? in_.reference_pairs * (in_.reference_pairs_follow_scale ? scale : 1.0)
+                  : mean_pairs_ * scale;
     s.dwell_s = in_.pair_detect_rate_per_s > 0.0 ? s.pairs / in_.pair_detect_rate_per_s : 0.0;
     return s;
   }
@@ -196,10 +198,11 @@ std::vector<NightUse> night_use(const std::vector<Step>& steps, int nights, doub
     NightUse& u = use[s.night - 1];
     u.busy_s += s.move_s + s.dwell_s;
     u.move_s += s.move_s;
+    // The parts add up to the busy time: every move once, then the dwell by kind.
     if (s.kind == StepKind::measure) {
       u.integration_s += s.dwell_s;
     } else {
-      u.reference_s += s.move_s + s.dwell_s;
+      u.reference_s += s.dwell_s;
     }
   }
   return use;
@@ -232,9 +235,6 @@ void check_durations(const ScheduleInput& in) {
   if (in.settings.dark_steps) check("schedule.dark_dwell_s", in.settings.dark_dwell_s);
   const double rate = in.pair_detect_rate_per_s;
   const bool counts = rate > 0.0;  // the timeline gives no dwell without a pair rate
-  if (counts && in.settings.reference_interval_min > 0.0 && in.reference_pairs > 0.0) {
-    check("schedule.reference_pairs (a reference step's counting time)", in.reference_pairs / rate);
-  }
   // Fit to nights scales the entries' pairs down, at most by the search's smallest factor.
   const double least_scale = in.settings.fit_to_nights ? 1e-9 : 1.0;
   for (const EntryRequest& e : in.entries) {
@@ -244,6 +244,11 @@ void check_durations(const ScheduleInput& in) {
           << "rig's rates)";
     // Also covers references without pairs of their own: they count the mean entry's pairs.
     check(field.str(), e.dwell_s * least_scale);
+  }
+  // After the entries: reference pairs chosen by the planner derive from them.
+  if (counts && in.settings.reference_interval_min > 0.0 && in.reference_pairs > 0.0) {
+    check(in.reference_pairs_origin + " (a reference step's counting time)",
+          in.reference_pairs / rate * (in.reference_pairs_follow_scale ? least_scale : 1.0));
   }
 }
 

@@ -5,6 +5,7 @@
 
 #include <QDir>
 #include <QFile>
+#include <QJsonArray>
 #include <QJsonDocument>
 #include <QJsonObject>
 #include <QProcess>
@@ -216,6 +217,17 @@ TEST_F(PlannedDemo, SummaryHasTheDocumentedKeysAndAgreesWithTheSteps) {
   EXPECT_NEAR(summary["integration_s"].toDouble(), integration_s, 1e-6);
   EXPECT_NEAR(summary["total_s"].toDouble(), end_s, 1e-6);
   EXPECT_LE(summary["move_lower_bound_s"].toDouble(), measure_move_s + 1e-6);
+  // The parts of the time add up to the busy time: every step's move and dwell once
+  // (docs/plan-files.md).
+  double busy_s = 0.0;
+  for (const Step& s : file.steps) busy_s += s.move_s + s.dwell_s;
+  EXPECT_NEAR(summary["integration_s"].toDouble() + summary["move_s"].toDouble() +
+                  summary["reference_s"].toDouble(),
+              busy_s, 1e-6);
+  double nights_busy_s = 0.0;
+  for (const QJsonValue n : summary["night_use"].toArray())
+    nights_busy_s += n.toObject()["busy_s"].toDouble();
+  EXPECT_NEAR(nights_busy_s, busy_s, 1e-6);
 }
 
 TEST_F(PlannedDemo, StepsCsvCarriesTheSameRows) {
@@ -298,6 +310,53 @@ TEST(Cli, BadCampaignFileExitsTwoNamingTheField) {
   const CliRun run = run_cli({"plan", path});
   EXPECT_EQ(run.status, 2);
   EXPECT_NE(run.err.find("precision.epsilon"), std::string::npos) << run.err;
+}
+
+// Writes the demo campaign to `path` after `edit` changes its JSON.
+template <class Edit>
+void write_edited_demo(const QString& path, Edit edit) {
+  ASSERT_EQ(run_cli({"demo", "--out", path, "--force"}).status, 0);
+  QJsonObject root = QJsonDocument::fromJson(QByteArray::fromStdString(read_text(path))).object();
+  edit(root);
+  QFile file(path);
+  ASSERT_TRUE(file.open(QIODevice::WriteOnly | QIODevice::Truncate));
+  file.write(QJsonDocument(root).toJson());
+}
+
+TEST(Cli, UnknownCampaignKeyExitsTwoNamingItsPath) {
+  QTemporaryDir dir;
+  const QString path = dir.filePath("c.json");
+  write_edited_demo(path, [](QJsonObject& root) {
+    QJsonObject rig = root["rig"].toObject();
+    rig["foo"] = 1;
+    root["rig"] = rig;
+  });
+  const CliRun run = run_cli({"plan", path});
+  EXPECT_EQ(run.status, 2);
+  EXPECT_NE(run.err.find("rig.foo"), std::string::npos) << run.err;
+}
+
+// A plan that needs more nights than allowed writes its files and exits 3 (README, "Exit
+// status"); plan and export alike.
+TEST(Cli, PlanThatDoesNotFitExitsThreeWithItsFilesWritten) {
+  QTemporaryDir dir;
+  const QString path = dir.filePath("c.json");
+  write_edited_demo(path, [](QJsonObject& root) {
+    QJsonObject nights = root["nights"].toObject();
+    nights["start"] = "20:00";
+    nights["end"] = "21:00";
+    nights["max_nights"] = 1;
+    root["nights"] = nights;
+  });
+  const QString out_dir = dir.filePath("plan");
+  const CliRun run = run_cli({"plan", path, "--out", out_dir});
+  EXPECT_EQ(run.status, 3) << run.err;
+  EXPECT_NE(run.out.find("DOES NOT FIT"), std::string::npos);
+  for (const char* name : {"steps.json", "steps.csv", "summary.json", "kernel.csv"})
+    EXPECT_TRUE(QFile::exists(QDir(out_dir).filePath(name))) << name;
+  const QString bundle = dir.filePath("b.zip");
+  EXPECT_EQ(run_cli({"export", path, "--out", bundle}).status, 3);
+  EXPECT_TRUE(QFile::exists(bundle));
 }
 
 TEST(Cli, UsageErrorsExitTwo) {

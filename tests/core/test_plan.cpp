@@ -5,6 +5,7 @@
 #include <map>
 #include <set>
 
+#include "../shared/one_photon.h"
 #include "gramline/budget.h"
 #include "gramline/demo.h"
 #include "gramline/detection.h"
@@ -65,27 +66,15 @@ TEST(Plan, NeymanSpendsTheSameTimeAndLowersTheWorstHalfWidth) {
 // One photon, one feature as linear polarization (theta = feature, degrees), pass port only, on
 // the demo's rig: kernel cos^2((theta_a - theta_b)/2), no accidentals (one detector).
 Campaign one_photon_pass_port(const std::vector<double>& thetas) {
-  Campaign c = make_demo_campaign();
   const int n = static_cast<int>(thetas.size());
-  c.data.feature_names = {"theta"};
-  c.data.train.resize(n, 1);
-  c.data.train_labels.resize(n);
+  Eigen::MatrixXd train(n, 1);
+  Eigen::VectorXi labels(n);
   for (int i = 0; i < n; ++i) {
-    c.data.train(i, 0) = thetas[i];
-    c.data.train_labels(i) = i % 2 == 0 ? 1 : -1;
+    train(i, 0) = thetas[i];
+    labels(i) = i % 2 == 0 ? 1 : -1;
   }
-  c.data.test.resize(0, 1);
-  c.data.test_labels.resize(0);
-  PhotonEncoding e;
-  e.theta_weights_deg = Eigen::VectorXd::Ones(1);
-  e.phi_weights_deg = Eigen::VectorXd::Zero(1);
-  c.encoding = {};
-  c.encoding.photons = {e};
-  std::vector<Motor> motors;
-  for (const Motor& m : c.rig.motors)
-    if (m.photon == 0) motors.push_back(m);
-  c.rig.motors = motors;
-  c.rig.detectors.resize(1);
+  Campaign c = one_photon_test::one_photon_linear(make_demo_campaign(), train, labels,
+                                                  Eigen::MatrixXd(0, 1), Eigen::VectorXi(0));
   c.rig.scheme = DetectionScheme::pass_only;
   return c;
 }
@@ -93,19 +82,45 @@ Campaign one_photon_pass_port(const std::vector<double>& thetas) {
 // epsilon_reached is the true worst half-width of the plan: every entry's half-width at its own
 // predicted p, maximised. With the worst-case option, one photon, V = 0.97, eps = 0.01 and an
 // entry of kernel 0.999 (theta 10 and 13.624 deg), the normal half-width of each entry is
-// z sqrt(p / pairs) / V (README, user guide steps 5-7, no accidentals), p = V kappa + (1 - V)/2;
-// it must stay within eps, and the summary must report its maximum.
+// z sigma (README, user guide steps 5-7, no accidentals), p = V kappa + (1 - V)/2, with sigma^2
+// the counts' p / (pairs V^2) plus the reference calibration's (p / V)^2 sum_k w_k^2 / (N_k p_ref):
+// a Poisson reference count of N_k pairs at p_ref = V + (1 - V)/2 gives the pair rate with
+// relative variance 1 / (N_k p_ref), and the entry takes the references around the middle of its
+// counting by linear weights w_k (docs/error-budget.md). It must stay within eps, and the
+// summary must report its maximum.
 TEST(Plan, EpsilonReachedIsTheTrueWorstHalfWidth) {
   Campaign c = one_photon_pass_port({10.0, 13.624, 60.0, 120.0, 170.0});
   c.precision.budget = {BudgetMethod::normal, 0.01, 0.95, true};
   const double v = c.rig.source.visibility, z = 1.959963984540054;  // common practice
+  const double p_ref = v + (1 - v) / 2;
+  auto middle = [](const Step& s) { return s.start_s + s.move_s + 0.5 * s.dwell_s; };
   for (bool worst : {true, false}) {
     c.precision.budget.worst_case = worst;
     const Plan plan = plan_campaign(c);
+    std::vector<const Step*> refs;
+    for (const Step& s : plan.steps)
+      if (s.kind == StepKind::reference) refs.push_back(&s);
+    ASSERT_FALSE(refs.empty());
     double largest = 0.0, largest_kernel = 0.0;
     for (const Step* s : measure_steps(plan)) {
       const double p = v * s->kernel_ideal + (1 - v) / 2;
-      largest = std::max(largest, z * std::sqrt(p / s->pairs) / v);
+      const double t = middle(*s);
+      double cal = 0.0;  // sum_k w_k^2 / (N_k p_ref)
+      const Step* before = nullptr;
+      const Step* after = nullptr;
+      for (const Step* r : refs) {
+        if (middle(*r) <= t) before = r;
+        if (middle(*r) > t && !after) after = r;
+      }
+      if (before && after) {
+        const double w = (t - middle(*before)) / (middle(*after) - middle(*before));
+        cal = (1 - w) * (1 - w) / (before->pairs * p_ref) + w * w / (after->pairs * p_ref);
+      } else {
+        const Step* only = before ? before : after;
+        cal = 1.0 / (only->pairs * p_ref);
+      }
+      const double var = p / (s->pairs * v * v) + (p / v) * (p / v) * cal;
+      largest = std::max(largest, z * std::sqrt(var));
       largest_kernel = std::max(largest_kernel, s->kernel_ideal);
     }
     EXPECT_NEAR(largest_kernel, 0.999, 1e-4);
@@ -169,10 +184,13 @@ TEST(Plan, SummaryAddsUpFromTheSteps) {
     if (s.kind == StepKind::measure)
       dwell += s.dwell_s;
     else
-      other += s.move_s + s.dwell_s;
+      other += s.dwell_s;  // the moves of reference, dark and park steps are in move_s
     end = std::max(end, s.start_s + s.move_s + s.dwell_s);
   }
   EXPECT_NEAR(plan.summary.move_s, move, 1e-6);
+  // The parts add up to the busy time, move and dwell of every step.
+  EXPECT_NEAR(plan.summary.integration_s + plan.summary.move_s + plan.summary.reference_s,
+              move + dwell + other, 1e-6);
   EXPECT_NEAR(plan.summary.integration_s, dwell, 1e-6);
   EXPECT_NEAR(plan.summary.reference_s, other, 1e-6);
   EXPECT_NEAR(plan.summary.total_s, end, 1e-6);

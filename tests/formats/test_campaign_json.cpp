@@ -75,7 +75,7 @@ Campaign awkward_campaign() {
   c.nights.start_min = 21 * 60 + 7;
   c.nights.end_min = 5 * 60 + 59;
   c.nights.max_nights = 11;
-  c.schedule = ScheduleSettings{12.5, 999.0, false, 17.25, false, true, true, 3.5};
+  c.schedule = ScheduleSettings{12.5, 999.0, 0.25, false, 17.25, false, true, true, 3.5};
   c.check = CheckSettings{2.5, 7, 0.025, 0.85, false, 321};
   return c;
 }
@@ -155,6 +155,7 @@ void expect_same_campaign(const Campaign& a, const Campaign& b) {
   EXPECT_EQ(a.nights.max_nights, b.nights.max_nights);
   EXPECT_EQ(a.schedule.reference_interval_min, b.schedule.reference_interval_min);
   EXPECT_EQ(a.schedule.reference_pairs, b.schedule.reference_pairs);
+  EXPECT_EQ(a.schedule.calibration_share, b.schedule.calibration_share);
   EXPECT_EQ(a.schedule.dark_steps, b.schedule.dark_steps);
   EXPECT_EQ(a.schedule.dark_dwell_s, b.schedule.dark_dwell_s);
   EXPECT_EQ(a.schedule.park, b.schedule.park);
@@ -356,6 +357,27 @@ TEST(CampaignJson, OptionalSectionsTakeDefaults) {
   EXPECT_EQ(c.name, defaults.name);
   EXPECT_EQ(c.schedule.dark_dwell_s, defaults.schedule.dark_dwell_s);
   EXPECT_EQ(c.check.trials, defaults.check.trials);
+}
+
+// A version-1 file without schedule.calibration_share takes the documented default 0.10
+// (docs/plan-files.md); an unknown key at any depth is refused naming its path.
+TEST(CampaignJson, NewKeysAreOptionalAndUnknownKeysAreRefused) {
+  QJsonObject root = good_object();
+  QJsonObject schedule = root["schedule"].toObject();
+  schedule.remove("calibration_share");
+  root["schedule"] = schedule;
+  EXPECT_EQ(formats::parse_campaign(QJsonDocument(root).toJson().toStdString(), "x")
+                .schedule.calibration_share,
+            0.10);
+  QJsonObject rig = root["rig"].toObject();
+  rig["foo"] = 1;
+  root["rig"] = rig;
+  try {
+    formats::parse_campaign(QJsonDocument(root).toJson().toStdString(), "x.json");
+    ADD_FAILURE() << "an unknown key was accepted";
+  } catch (const InputError& e) {
+    EXPECT_NE(std::string(e.what()).find("x.json: rig.foo"), std::string::npos) << e.what();
+  }
 }
 
 TEST(CampaignJson, UnwritablePathIsAnInputErrorNamingTheFile) {

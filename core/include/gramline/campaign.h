@@ -51,8 +51,11 @@ int iso_weekday(long days);
 
 struct ScheduleSettings {
   double reference_interval_min = 20.0;  ///< a reference step at least this often; 0: none
-  double reference_pairs = 0.0;          ///< pairs per reference step; 0: as a measure step
-  bool dark_steps = true;                ///< dark (shutter closed) steps at night start and end
+  double reference_pairs = 0.0;          ///< pairs per reference step; 0: chosen for the share
+  /// Largest share of an entry's variance the reference calibration may take when the planner
+  /// chooses the reference pairs (docs/error-budget.md).
+  double calibration_share = 0.10;
+  bool dark_steps = true;  ///< dark (shutter closed) steps at night start and end
   double dark_dwell_s = 30.0;
   bool park = true;                   ///< park step at the end of each night
   bool fit_to_nights = false;         ///< scale pairs so the campaign fits max_nights
@@ -83,6 +86,10 @@ struct Campaign {
 
   /// Empty when the campaign can be planned; otherwise a message naming the field.
   std::string check_consistency() const;
+  /// Plannable but doubtful settings, one sentence each naming the field: a detector whose dark
+  /// rate exceeds the photon singles it sees, and test features far outside the training range
+  /// (more than the range's width beyond it), where the encoded angles wrap around.
+  std::vector<std::string> warnings() const;
 };
 
 std::string to_string(Allocation);

@@ -72,4 +72,40 @@ double estimate_kernel(DetectionScheme scheme, int photons, const Calibration& c
 double kernel_variance(DetectionScheme scheme, int photons, const Calibration& cal, double p_pass,
                        double pairs);
 
+/// Pair rate and visibility estimated from the counts of one reference (diagonal, kernel 1)
+/// step, given the accidentals of `model`:
+///  both_ports: r = n_total / t - a_tot; p from the pass fraction as in estimate_kernel;
+///              V = (p - 1/2^P) / (1 - 1/2^P)
+///  pass_only:  V is the model's (one channel cannot separate it);
+///              r = (n_pass / t - a_pass) / (V + (1 - V)/2^P)
+/// The result is `model` with those two values replaced.
+Calibration reference_calibration(DetectionScheme scheme, int photons, const Calibration& model,
+                                  const SettingCounts& counts);
+
+/// Covariance of the pair rate and visibility that reference_calibration gives from a reference
+/// step of `pairs` detected pairs, to first order (delta method) around the expected counts.
+struct CalibrationCovariance {
+  double rate_var = 0.0;        ///< (pairs/s)^2
+  double visibility_var = 0.0;  ///< 0 for pass_only
+  double rate_visibility_cov = 0.0;
+  CalibrationCovariance& operator+=(const CalibrationCovariance& o);
+  CalibrationCovariance scaled(double factor) const;
+};
+CalibrationCovariance reference_covariance(DetectionScheme scheme, int photons,
+                                           const Calibration& cal, double pairs);
+
+/// Derivatives of estimate_kernel with respect to the calibration's pair rate and visibility,
+/// at the expected counts of a setting with pass probability p_pass:
+///  pass_only:  d/dr = -p / (r V)
+///  both_ports: d/dr = (a_pass - p_o a_tot) / (r^2 V), d/dV = -kappa / V
+struct CalibrationGradient {
+  double d_rate = 0.0;
+  double d_visibility = 0.0;
+};
+CalibrationGradient kernel_calibration_gradient(DetectionScheme scheme, int photons,
+                                                const Calibration& cal, double p_pass);
+
+/// Variance a calibration of covariance `cov` adds to an estimate of gradient `g`: g' cov g.
+double calibration_variance(const CalibrationGradient& g, const CalibrationCovariance& cov);
+
 }  // namespace gramline

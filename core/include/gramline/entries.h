@@ -32,6 +32,28 @@ EntryModel entry_model(DetectionScheme scheme, int photons, const EntryNoise& no
 /// calibration, the calibration taken as known. Infinite for pairs <= 0.
 double entry_sigma(DetectionScheme scheme, int photons, const EntryNoise& noise, double pairs);
 
+/// Where a step's calibration comes from: the reference steps around the middle of its counting
+/// interval, interpolated linearly in time (the nearest one alone outside their span). Indices
+/// are into the list of reference times; -1 and weight 0 where unused.
+struct CalibrationWeights {
+  int low = -1;
+  int high = -1;
+  double w_low = 0.0;
+  double w_high = 0.0;
+};
+/// The weights at time t among references at `reference_times_s` (ascending). No reference:
+/// both indices -1 (the rig model calibrates).
+CalibrationWeights calibration_weights(const std::vector<double>& reference_times_s, double t);
+/// The covariance of the interpolated calibration: w_low^2 C_low + w_high^2 C_high (the
+/// references are independent counts).
+CalibrationCovariance interpolated_covariance(const CalibrationWeights& w,
+                                              const std::vector<CalibrationCovariance>& refs);
+
+/// `base` with its pair rate and visibility interpolated from the references' calibrations by
+/// the weights; `base` unchanged when the weights name no reference.
+Calibration interpolated_calibration(Calibration base, const CalibrationWeights& w,
+                                     const std::vector<Calibration>& refs);
+
 /// The rig-model statistics of every entry of one campaign. The per-point, per-photon states
 /// are computed once, at construction; an entry then costs one overlap per photon. Points are
 /// named by global index: training points first, then test points.
@@ -53,6 +75,13 @@ class EntryStatistics {
   /// entry_model and entry_sigma with this campaign's scheme and photons.
   EntryModel model(const EntryNoise& noise) const;
   double sigma(const EntryNoise& noise, double pairs) const;
+  /// How the entry's estimate moves with the calibration (kernel_calibration_gradient).
+  CalibrationGradient calibration_gradient(const EntryNoise& noise) const;
+  /// The calibration's covariance from a reference step (a diagonal setting) of `pairs` pairs
+  /// under the rig model (reference_covariance, detection.h).
+  CalibrationCovariance reference_covariance(double pairs) const;
+  /// Variance the calibration `cov` adds to the entry's estimate (calibration_variance).
+  double calibration_variance(const EntryNoise& noise, const CalibrationCovariance& cov) const;
 
  private:
   Rig rig_;

@@ -1,7 +1,7 @@
 #pragma once
-// The margin check (README, user guide step 13): with the planned pairs per entry, does the classifier trained on the
-// measured Gram matrix still put every test point on the same side, with margin?
-// A Monte Carlo over simulated campaigns: counts per setting with the detection scheme's
+// The margin check (README, user guide step 13): with the planned pairs per entry, does the
+// classifier trained on the measured Gram matrix still put every test point on the same side, with
+// margin? A Monte Carlo over simulated campaigns: counts per setting with the detection scheme's
 // statistics, the unbiased kernel estimator of detection.h, PSD repair (kernel.h), retraining.
 #include <Eigen/Core>
 #include <cstdint>
@@ -34,11 +34,24 @@ struct MarginProblem {
   Eigen::MatrixXd pairs_test;           ///< M x N
   std::vector<EntryNoise> noise_train;  ///< N x N, row-major (upper triangle used)
   std::vector<EntryNoise> noise_test;   ///< M x N, row-major
+  /// The reference steps that calibrate the entries (docs/error-budget.md): every trial draws
+  /// their counts, estimates each one's pair rate and visibility (reference_calibration,
+  /// detection.h) and calibrates every entry by those around it, as ingest does.
+  struct Reference {
+    EntryNoise noise;  ///< rig-model statistics of the diagonal setting
+    double pairs = 0.0;
+    CalibrationCovariance covariance;  ///< reference_covariance at those pairs
+  };
+  std::vector<Reference> references;
+  /// Each entry's references and weights, same layout as noise_train / noise_test; empty: the
+  /// calibration is exact (no references, or a problem made by hand).
+  std::vector<CalibrationWeights> weights_train;
+  std::vector<CalibrationWeights> weights_test;
 
   int train_count() const { return static_cast<int>(kernel_train.rows()); }
   int test_count() const { return static_cast<int>(kernel_test.rows()); }
-  /// Predicted standard deviation of each entry's estimate (entry_sigma; 0 for an exact
-  /// entry), same shapes.
+  /// Predicted standard deviation of each entry's estimate (entry_sigma and the calibration's
+  /// variance in quadrature; 0 for an exact entry), same shapes.
   Eigen::MatrixXd sigma_train() const;
   Eigen::MatrixXd sigma_test() const;
 };

@@ -37,7 +37,7 @@ struct NightUse {
   double busy_s = 0.0;  ///< moving + counting in this night
   double move_s = 0.0;
   double integration_s = 0.0;  ///< measure steps' dwell
-  double reference_s = 0.0;    ///< reference, dark and park steps (dwell + move)
+  double reference_s = 0.0;    ///< dwell of reference, dark and park steps (moves in move_s)
   double window_s = 0.0;
   double fill() const { return window_s > 0 ? busy_s / window_s : 0.0; }
 };
@@ -48,8 +48,10 @@ struct PlanSummary {
   double pairs_total = 0.0;
   double integration_s = 0.0;  ///< dwell of measure steps
   double move_s = 0.0;         ///< move time of all steps
-  double reference_s = 0.0;    ///< dwell + move of reference, dark and park steps
-  double total_s = 0.0;        ///< end of the last step, from the start of night 1
+  /// dwell of reference, dark and park steps; integration_s + move_s + reference_s is the
+  /// nights' busy time
+  double reference_s = 0.0;
+  double total_s = 0.0;  ///< end of the last step, from the start of night 1
   int nights = 0;
   double move_lower_bound_s = 0.0;  ///< proven lower bound, measure steps' moves
   double move_naive_s = 0.0;        ///< row-by-row order, same model
@@ -60,6 +62,14 @@ struct PlanSummary {
   double plan_ms = 0.0;
   double gram_error_ms = 0.0;  ///< wall time of the Gram-error simulation, not part of plan_ms
   bool fits = true;            ///< false when max_nights is not enough
+  /// The reference calibration (docs/error-budget.md): reference steps and their pairs (the
+  /// largest, if they differ), the interval asked for, the share of each entry's variance the
+  /// planner aimed at (0 when the campaign fixes the pairs) and the largest share reached.
+  long reference_steps = 0;
+  double reference_pairs = 0.0;
+  double reference_interval_min = 0.0;
+  double calibration_share_target = 0.0;
+  double calibration_share_max = 0.0;
   std::vector<NightUse> night_use;
 };
 
@@ -90,17 +100,24 @@ struct Plan {
   std::optional<PlanOptions> options;
   std::vector<Step> steps;
   PlanSummary summary;
-  Eigen::MatrixXd kernel_train;   ///< N x N ideal
-  Eigen::MatrixXd kernel_test;    ///< M x N ideal
-  Eigen::MatrixXd pairs_train;    ///< N x N planned pairs per entry (0 on the diagonal)
-  Eigen::MatrixXd pairs_test;     ///< M x N
-  Eigen::MatrixXd sigma_train;    ///< N x N predicted sigma per entry (0 where not planned)
-  Eigen::MatrixXd sigma_test;     ///< M x N
+  Eigen::MatrixXd kernel_train;  ///< N x N ideal
+  Eigen::MatrixXd kernel_test;   ///< M x N ideal
+  Eigen::MatrixXd pairs_train;   ///< N x N planned pairs per entry (0 on the diagonal)
+  Eigen::MatrixXd pairs_test;    ///< M x N
+  /// N x N predicted sigma per entry (0 where not planned): counts and reference calibration
+  Eigen::MatrixXd sigma_train;
+  Eigen::MatrixXd sigma_test;  ///< M x N
+  /// The calibration's part of sigma_train / sigma_test (added in quadrature; shared by the
+  /// entries that use the same reference steps, see shared_noise_train).
+  Eigen::MatrixXd calibration_sigma_train;
+  Eigen::MatrixXd calibration_sigma_test;
   Eigen::MatrixXi step_of_train;  ///< N x N index of the step measuring each entry (-1: none)
   Eigen::MatrixXi step_of_test;   ///< M x N
   /// Noise components shared by several training entries (gram_error.h), beside sigma_train.
   std::vector<SharedNoiseComponent> shared_noise_train;
   GramError gram_error;
+  /// Campaign::warnings at planning time (shown in the report and summary.json).
+  std::vector<std::string> warnings;
   /// Human-readable summary (a few lines), as printed by the CLI.
   std::string report() const;
 };
@@ -112,6 +129,10 @@ Plan plan_campaign(const Campaign& campaign, const PlanOptions& options = {});
 /// and shared_noise_train) into plan.gram_error, and its wall time into
 /// plan.summary.gram_error_ms. Throws Cancelled when the cancel flag is raised.
 void estimate_gram_error(Plan& plan, const GramErrorOptions& options = {});
+
+/// The plan's training Gram noise: each entry's independent part (its counts) and the shared
+/// components of the reference calibration.
+GramNoise plan_gram_noise(const Plan& plan);
 
 /// One point of the Gram progress curve: after the training measure step ending at end_s, the
 /// share of training entries measured and the Frobenius norm of the per-entry sigma of the

@@ -38,7 +38,12 @@ struct ScheduleInput {
   int train_count = 0;
   double pair_detect_rate_per_s = 1.0;  ///< pairs / dwell_s, used when scaling pairs
   double reference_pairs = 0.0;         ///< pairs of one reference step
-  double reference_p_pass = 1.0;        ///< p_pass of a diagonal setting (kernel 1)
+  /// true: reference_pairs scale with the entries' pairs when fitting to the nights (pairs
+  /// chosen for a calibration share keep that share).
+  bool reference_pairs_follow_scale = false;
+  /// How error messages name the reference pairs: the campaign field, or where they came from.
+  std::string reference_pairs_origin = "schedule.reference_pairs";
+  double reference_p_pass = 1.0;  ///< p_pass of a diagonal setting (kernel 1)
   NightWindow nights;
   ScheduleSettings settings;
   /// Physical motor positions where the first step starts (rig.motors order); empty: the
