@@ -27,6 +27,7 @@ std::string Campaign::check_consistency() const {
     return "schedule.reference_interval_min: must be >= 0";
   if (!(schedule.dark_dwell_s >= 0)) return "schedule.dark_dwell_s: must be >= 0";
   if (!(schedule.reference_pairs >= 0)) return "schedule.reference_pairs: must be >= 0";
+  if (schedule.search_evaluations < 0) return "schedule.search_evaluations: must be >= 0";
   if (check.trials < 1) return "check.trials: must be at least 1";
   if (check.cv_folds < 2) return "check.cv_folds: must be at least 2";
   return {};

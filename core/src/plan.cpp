@@ -253,8 +253,10 @@ Plan plan_campaign(const Campaign& campaign, const PlanOptions& options) {
   plan.options = options;
   plan.options->resume = nullptr;
   plan.options->hooks = WorkHooks{};
+  s.bound_ms = sched.bound_ms;
   s.plan_ms =
-      std::chrono::duration<double, std::milli>(std::chrono::steady_clock::now() - t0).count();
+      std::chrono::duration<double, std::milli>(std::chrono::steady_clock::now() - t0).count() -
+      s.bound_ms;
   if (options.simulate_gram_error)
     estimate_gram_error(plan, {.seed = options.seed, .hooks = {{}, options.hooks.cancel}});
   return plan;

@@ -58,6 +58,7 @@ struct PlanSummary {
   double epsilon_reached = 0.0;    ///< kernel half-width at the planned pairs (fit to nights)
   double truncation_cost_s = 0.0;  ///< extra move time of the truncation-safe order
   double plan_ms = 0.0;
+  double bound_ms = 0.0;       ///< wall time of the move lower bound, not part of plan_ms
   double gram_error_ms = 0.0;  ///< wall time of the Gram-error simulation, not part of plan_ms
   bool fits = true;            ///< false when max_nights is not enough
   std::vector<NightUse> night_use;
