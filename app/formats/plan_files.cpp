@@ -7,6 +7,7 @@
 #include <limits>
 #include <map>
 
+#include "formats/atomic_file.h"
 #include "formats/input_error.h"
 #include "formats/json_field.h"
 #include "formats/rig_json.h"
@@ -14,6 +15,9 @@
 
 namespace gramline::formats {
 namespace {
+
+/// Formatted text is handed to a sink once this many bytes have gathered.
+constexpr std::size_t kSinkChunk = 1 << 16;
 
 QString q(const std::string& text) { return QString::fromStdString(text); }
 
@@ -56,7 +60,7 @@ std::string steps_conventions_text() {
          "step measures no pair of points.";
 }
 
-std::string format_steps_json(const Rig& rig, const std::vector<Step>& steps) {
+void write_steps_json(const Rig& rig, const std::vector<Step>& steps, const TextSink& sink) {
   // The header goes through QJsonDocument; the steps are written one compact object per line
   // by hand, so half a million steps never exist as a JSON tree in memory at once.
   QJsonArray motors;
@@ -79,6 +83,11 @@ std::string format_steps_json(const Rig& rig, const std::vector<Step>& steps) {
   std::string out = std::move(head);
   out += ",\n    \"steps\": [";
   for (size_t i = 0; i < steps.size(); ++i) {
+    // Handed on in pieces of about 64 KB: the whole text never sits in memory at once.
+    if (out.size() >= kSinkChunk) {
+      sink(out);
+      out.clear();
+    }
     const Step& st = steps[i];
     out += i == 0 ? "\n      {" : ",\n      {";
     out += "\"index\":" + std::to_string(i) + ",\"kind\":\"" + to_string(st.kind) +
@@ -97,15 +106,25 @@ std::string format_steps_json(const Rig& rig, const std::vector<Step>& steps) {
            ",\"night\":" + std::to_string(st.night) + "}";
   }
   out += steps.empty() ? "]\n}\n" : "\n    ]\n}\n";
+  sink(out);
+}
+
+std::string format_steps_json(const Rig& rig, const std::vector<Step>& steps) {
+  std::string out;
+  write_steps_json(rig, steps, [&](std::string_view piece) { out += piece; });
   return out;
 }
 
-std::string format_steps_csv(const Rig& rig, const std::vector<Step>& steps) {
+void write_steps_csv(const Rig& rig, const std::vector<Step>& steps, const TextSink& sink) {
   std::string out = "index,kind,block,prep_point,analysis_point";
   for (const Motor& m : rig.motors) out += "," + csv_field(m.name + "_deg");
   out += ",kernel_ideal,p_pass,pairs,dwell_s,move_s,start_s,night\n";
   auto point = [](int index) { return index < 0 ? std::string() : std::to_string(index); };
   for (size_t i = 0; i < steps.size(); ++i) {
+    if (out.size() >= kSinkChunk) {
+      sink(out);
+      out.clear();
+    }
     const Step& s = steps[i];
     out += std::to_string(i) + "," + to_string(s.kind) + "," + to_string(s.block) + "," +
            point(s.prep_point) + "," + point(s.analysis_point);
@@ -118,6 +137,12 @@ std::string format_steps_csv(const Rig& rig, const std::vector<Step>& steps) {
     }
     out += "," + std::to_string(s.night) + "\n";
   }
+  sink(out);
+}
+
+std::string format_steps_csv(const Rig& rig, const std::vector<Step>& steps) {
+  std::string out;
+  write_steps_csv(rig, steps, [&](std::string_view piece) { out += piece; });
   return out;
 }
 
@@ -162,6 +187,7 @@ std::string format_summary_json(const Campaign& campaign, const Plan& plan) {
                 {"max_nights", campaign.nights.max_nights},
                 {"night_use", nights},
                 {"plan_ms", s.plan_ms},
+                {"bound_ms", s.bound_ms},
                 {"gram_error_ms", s.gram_error_ms}};
   return json_text(o);
 }
@@ -247,8 +273,14 @@ void write_plan_files(const Campaign& campaign, const Plan& plan, const QString&
   if (!directory.mkpath(".")) {
     throw InputError(path_text(dir) + ": cannot create the output directory");
   }
-  write_whole_file(directory.filePath("steps.json"), format_steps_json(campaign.rig, plan.steps));
-  write_whole_file(directory.filePath("steps.csv"), format_steps_csv(campaign.rig, plan.steps));
+  // The steps files are written as they are formatted (half a million steps make hundreds of MB).
+  for (const bool json : {true, false}) {
+    AtomicFile file(directory.filePath(json ? "steps.json" : "steps.csv"), Overwrite::allow);
+    const TextSink sink = [&](std::string_view piece) { file.write(piece); };
+    json ? write_steps_json(campaign.rig, plan.steps, sink)
+         : write_steps_csv(campaign.rig, plan.steps, sink);
+    file.commit();
+  }
   write_whole_file(directory.filePath("summary.json"), format_summary_json(campaign, plan));
   write_whole_file(directory.filePath("kernel.csv"), format_kernel_csv(plan.kernel_train));
 }

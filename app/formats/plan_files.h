@@ -3,7 +3,9 @@
 // kernel.csv; and a reader for steps.json (a rig controller, a resumed campaign or a test can
 // take the schedule back from it).
 #include <QString>
+#include <functional>
 #include <string>
+#include <string_view>
 #include <vector>
 
 #include "gramline/campaign.h"
@@ -18,11 +20,18 @@ inline constexpr int kStepsVersion = 1;
 /// move_s follows from them.
 std::string steps_conventions_text();
 
+/// Receives formatted text piece by piece, in order.
+using TextSink = std::function<void(std::string_view)>;
+
 /// steps.json text: conventions, motors with their model parameters, controller, steps.
 std::string format_steps_json(const Rig& rig, const std::vector<Step>& steps);
+/// The same text handed to `sink` in pieces as it is formatted.
+void write_steps_json(const Rig& rig, const std::vector<Step>& steps, const TextSink& sink);
 /// steps.csv text: one row per step, one column per motor (`<motor name>_deg`), units in the
 /// header; empty fields where steps.json has null.
 std::string format_steps_csv(const Rig& rig, const std::vector<Step>& steps);
+/// The same text handed to `sink` in pieces as it is formatted.
+void write_steps_csv(const Rig& rig, const std::vector<Step>& steps, const TextSink& sink);
 /// summary.json text: the core keys plus night use, the Gram error figures and the counts
 /// (docs/plan-files.md).
 std::string format_summary_json(const Campaign& campaign, const Plan& plan);
