@@ -293,7 +293,7 @@ double tree_lower_bound_s(const MoveModel& model, const SideCosts& costs, const 
   double best_bound = 0.0;
   double mu = 2.0;
   int since_improved = 0;
-  const int iterations = K <= 200 ? 300 : 100;
+  const int iterations = K <= 200 ? 300 : 50;
   for (int it = 0; it < iterations; ++it) {
     hooks.throw_if_cancelled();
     // Prim's algorithm over the hub (index K) and the entries, dense weights.
