@@ -661,7 +661,8 @@ TEST(Schedule, RangedTinyInstancesReachTheExhaustiveOptimum) {
 TEST(Schedule, ThreeAndFourPhotonsReachTheExhaustiveOptimum) {
   // Campaigns allow one to four photons: four motors each, up to 16 motors.
   for (int photons : {3, 4}) {
-    for (std::uint64_t seed = 70 + photons; seed < 71 + photons; ++seed) {
+    for (std::uint64_t seed = 70u + static_cast<std::uint64_t>(photons), last = seed; seed <= last;
+         ++seed) {
       RigShape shape{photons};
       shape.backlash = seed % 2 ? Backlash::from_below : Backlash::shortest;
       shape.overshoot_deg = 2.0;
