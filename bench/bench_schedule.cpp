@@ -100,6 +100,8 @@ void run(const char* name, const Campaign& c, int train, int test) {
     }
   }
   print_figures(name, settings, wall_ms, move, r.move_naive_s, r.move_lower_bound_s, r.nights);
+  std::printf("           1-tree bound %10.0f s, bound time %.1f ms (inside wall)\n",
+              r.move_tree_bound_s, r.bound_ms);
 }
 
 /// The whole planner on the demo campaign, as the app and the CLI call it.
@@ -108,29 +110,42 @@ void run_plan(const Campaign& c) {
   const Plan plan = plan_campaign(c);
   const double wall_ms = ms_since(t0);
   const PlanSummary& s = plan.summary;
-  std::printf("demo plan  plan_ms %.1f (summary), then gram_error_ms %.1f, wall %.1f ms\n",
-              s.plan_ms, s.gram_error_ms, wall_ms);
+  std::printf(
+      "demo plan  plan_ms %.1f (summary), bound_ms %.1f, then gram_error_ms %.1f, wall %.1f ms\n",
+      s.plan_ms, s.bound_ms, s.gram_error_ms, wall_ms);
   print_figures("demo plan", s.settings, wall_ms, s.measure_move_s, s.move_naive_s,
                 s.move_lower_bound_s, s.nights);
 }
 
 }  // namespace
 
-// bench_schedule [N]: the demo and 200 training points; with N also N training points.
+// bench_schedule [N [T]]: the demo and 200 training points; with N also N training points (and T
+// test points); `bench_schedule sweep` runs 25 to 1000 training points instead.
 int main(int argc, char** argv) {
-  long largest = 0;
-  if (argc > 2) {
-    std::fprintf(stderr, "usage: bench_schedule [N]\n");
+  long largest = 0, tests = 0;
+  if (argc > 3) {
+    std::fprintf(stderr, "usage: bench_schedule [N [T]] | sweep\n");
     return 2;
   }
-  if (argc == 2) {
+  if (argc == 2 && std::string(argv[1]) == "sweep") {
+    const Campaign demo = make_demo_campaign();
+    for (int n : {25, 50, 100, 200, 400, 700, 1000}) {
+      const std::string name = "n=" + std::to_string(n);
+      run(name.c_str(), demo, n, 0);
+    }
+    return 0;
+  }
+  for (int a = 1; a < argc; ++a) {
     char* end = nullptr;
-    largest = std::strtol(argv[1], &end, 10);
-    if (*argv[1] == '\0' || *end != '\0' || largest < 2 || largest > 10000) {
-      std::fprintf(stderr, "bench_schedule: N must be a whole number from 2 to 10000, not '%s'\n",
-                   argv[1]);
+    const long v = std::strtol(argv[a], &end, 10);
+    const long low = a == 1 ? 2 : 0;
+    if (*argv[a] == '\0' || *end != '\0' || v < low || v > 10000) {
+      std::fprintf(stderr,
+                   "bench_schedule: %s must be a whole number from %ld to 10000, not '%s'\n",
+                   a == 1 ? "N" : "T", low, argv[a]);
       return 2;
     }
+    (a == 1 ? largest : tests) = v;
   }
   const Campaign demo = make_demo_campaign();
   run_plan(demo);
@@ -138,7 +153,7 @@ int main(int argc, char** argv) {
   run("n=200", demo, 200, 20);
   if (largest > 0) {
     const std::string name = "n=" + std::to_string(largest);
-    run(name.c_str(), demo, static_cast<int>(largest), 0);
+    run(name.c_str(), demo, static_cast<int>(largest), static_cast<int>(tests));
   }
   return 0;
 }

@@ -214,7 +214,8 @@ QJsonObject campaign_to_json(const Campaign& c) {
                               {"park", s.park},
                               {"fit_to_nights", s.fit_to_nights},
                               {"truncation_safe", s.truncation_safe},
-                              {"optimizer_time_cap_s", s.optimizer_time_cap_s}};
+                              {"optimizer_time_cap_s", s.optimizer_time_cap_s},
+                              {"search_evaluations", static_cast<qint64>(s.search_evaluations)}};
   const CheckSettings& k = c.check;
   o["check"] = QJsonObject{{"C", k.C},
                            {"cv_folds", k.cv_folds},
@@ -322,6 +323,9 @@ Campaign campaign_from_json(const QJsonObject& object, const std::string& file) 
     t.fit_to_nights = s["fit_to_nights"].boolean();
     t.truncation_safe = s["truncation_safe"].boolean();
     t.optimizer_time_cap_s = s["optimizer_time_cap_s"].number();
+    if (s.has("search_evaluations")) {
+      t.search_evaluations = s["search_evaluations"].integer(0, std::numeric_limits<int>::max());
+    }
   }
   if (root.has("check")) {
     const JsonField k = root["check"];

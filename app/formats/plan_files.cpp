@@ -19,6 +19,9 @@
 namespace gramline::formats {
 namespace {
 
+/// Formatted text is handed to a sink once this many bytes have gathered.
+constexpr std::size_t kSinkChunk = 1 << 16;
+
 QString q(const std::string& text) { return QString::fromStdString(text); }
 
 std::string json_text(const QJsonObject& object) {
@@ -60,8 +63,8 @@ std::string steps_conventions_text() {
          "step measures no pair of points.";
 }
 
-std::string format_steps_json(const Rig& rig, const std::vector<Step>& steps,
-                              const std::string& set_id) {
+void write_steps_json(const Rig& rig, const std::vector<Step>& steps, const TextSink& sink,
+                      const std::string& set_id) {
   // The header goes through QJsonDocument; the steps are written one compact object per line
   // by hand, so half a million steps never exist as a JSON tree in memory at once.
   QJsonArray motors;
@@ -86,6 +89,11 @@ std::string format_steps_json(const Rig& rig, const std::vector<Step>& steps,
   std::string out = std::move(head);
   out += ",\n    \"steps\": [";
   for (size_t i = 0; i < steps.size(); ++i) {
+    // Handed on in pieces of about 64 KB: the whole text never sits in memory at once.
+    if (out.size() >= kSinkChunk) {
+      sink(out);
+      out.clear();
+    }
     const Step& st = steps[i];
     out += i == 0 ? "\n      {" : ",\n      {";
     out += "\"index\":" + std::to_string(i) + ",\"kind\":\"" + to_string(st.kind) +
@@ -104,10 +112,17 @@ std::string format_steps_json(const Rig& rig, const std::vector<Step>& steps,
            ",\"night\":" + std::to_string(st.night) + "}";
   }
   out += steps.empty() ? "]\n}\n" : "\n    ]\n}\n";
+  sink(out);
+}
+
+std::string format_steps_json(const Rig& rig, const std::vector<Step>& steps,
+                              const std::string& set_id) {
+  std::string out;
+  write_steps_json(rig, steps, [&](std::string_view piece) { out += piece; }, set_id);
   return out;
 }
 
-std::string format_steps_csv(const Rig& rig, const std::vector<Step>& steps) {
+void write_steps_csv(const Rig& rig, const std::vector<Step>& steps, const TextSink& sink) {
   std::string out = "index,kind,block,prep_point,analysis_point";
   for (const Motor& m : rig.motors) out += "," + csv_field(m.name + "_deg");
   for (const Motor& m : rig.motors)
@@ -115,6 +130,10 @@ std::string format_steps_csv(const Rig& rig, const std::vector<Step>& steps) {
   out += ",kernel_ideal,p_pass,pairs,dwell_s,move_s,start_s,night\n";
   auto point = [](int index) { return index < 0 ? std::string() : std::to_string(index); };
   for (size_t i = 0; i < steps.size(); ++i) {
+    if (out.size() >= kSinkChunk) {
+      sink(out);
+      out.clear();
+    }
     const Step& s = steps[i];
     out += std::to_string(i) + "," + to_string(s.kind) + "," + to_string(s.block) + "," +
            point(s.prep_point) + "," + point(s.analysis_point);
@@ -133,6 +152,12 @@ std::string format_steps_csv(const Rig& rig, const std::vector<Step>& steps) {
     }
     out += "," + std::to_string(s.night) + "\n";
   }
+  sink(out);
+}
+
+std::string format_steps_csv(const Rig& rig, const std::vector<Step>& steps) {
+  std::string out;
+  write_steps_csv(rig, steps, [&](std::string_view piece) { out += piece; });
   return out;
 }
 
@@ -188,6 +213,7 @@ std::string format_summary_json(const Campaign& campaign, const Plan& plan,
                 {"max_nights", campaign.nights.max_nights},
                 {"night_use", nights},
                 {"plan_ms", s.plan_ms},
+                {"bound_ms", s.bound_ms},
                 {"gram_error_ms", s.gram_error_ms},
                 {"warnings", warnings}};
   if (!set_id.empty()) {

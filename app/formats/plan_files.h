@@ -4,7 +4,9 @@
 // take the schedule back from it).
 #include <QString>
 #include <map>
+#include <functional>
 #include <string>
+#include <string_view>
 #include <vector>
 
 #include "formats/atomic_file.h"
@@ -20,13 +22,21 @@ inline constexpr int kStepsVersion = 1;
 /// move_s follows from them.
 std::string steps_conventions_text();
 
+/// Receives formatted text piece by piece, in order.
+using TextSink = std::function<void(std::string_view)>;
+
 /// steps.json text: conventions, motors with their model parameters, controller, steps; with a
 /// `set_id`, the id of the plan folder's save it belongs to (docs/plan-files.md).
 std::string format_steps_json(const Rig& rig, const std::vector<Step>& steps,
                               const std::string& set_id = {});
+/// The same text handed to `sink` in pieces as it is formatted.
+void write_steps_json(const Rig& rig, const std::vector<Step>& steps, const TextSink& sink,
+                      const std::string& set_id = {});
 /// steps.csv text: one row per step, one column per motor (`<motor name>_deg`), units in the
 /// header; empty fields where steps.json has null.
 std::string format_steps_csv(const Rig& rig, const std::vector<Step>& steps);
+/// The same text handed to `sink` in pieces as it is formatted.
+void write_steps_csv(const Rig& rig, const std::vector<Step>& steps, const TextSink& sink);
 /// summary.json text: the core keys plus night use, the Gram error figures and the counts
 /// (docs/plan-files.md).
 /// With a `set_id`, also the save's id and the SHA-256 of each other file of the plan folder

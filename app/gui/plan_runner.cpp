@@ -14,6 +14,8 @@ void PlanRunner::request(const Campaign& campaign) {
     if (!problem.empty()) throw std::invalid_argument(problem);
     PlanOptions options;
     options.seed = campaign.seed;
+    // Planning runs on every edit: the 1-tree bound can take seconds, the per-entry one does not.
+    options.tree_bound = false;
     options.hooks = hooks;
     return PlannedCampaign{campaign, std::make_shared<const Plan>(planner(campaign, options))};
   });

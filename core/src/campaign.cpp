@@ -102,6 +102,7 @@ std::string Campaign::check_consistency() const {
   if (!(schedule.reference_pairs >= 0)) return "schedule.reference_pairs: must be >= 0";
   if (!(schedule.calibration_share > 0 && schedule.calibration_share < 1))
     return "schedule.calibration_share: must lie strictly between 0 and 1";
+  if (schedule.search_evaluations < 0) return "schedule.search_evaluations: must be >= 0";
   if (check.trials < 1) return "check.trials: must be at least 1";
   if (check.cv_folds < 2) return "check.cv_folds: must be at least 2";
   return {};

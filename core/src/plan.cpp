@@ -393,6 +393,7 @@ Plan plan_campaign(const Campaign& campaign, const PlanOptions& options) {
   ScheduleOptions so;
   so.seed = options.seed;
   so.optimize_order = options.optimize_order;
+  so.tree_bound = options.tree_bound;
   so.hooks = options.hooks;
   ScheduleResult sched = build_schedule(in, so);
 
@@ -416,8 +417,10 @@ Plan plan_campaign(const Campaign& campaign, const PlanOptions& options) {
   plan.options = options;
   plan.options->resume = nullptr;
   plan.options->hooks = WorkHooks{};
+  s.bound_ms = sched.bound_ms;
   s.plan_ms =
-      std::chrono::duration<double, std::milli>(std::chrono::steady_clock::now() - t0).count();
+      std::chrono::duration<double, std::milli>(std::chrono::steady_clock::now() - t0).count() -
+      s.bound_ms;
   if (options.simulate_gram_error)
     estimate_gram_error(plan, {.seed = options.seed, .hooks = {{}, options.hooks.cancel}});
   return plan;

@@ -227,7 +227,127 @@ double exact_order(const MoveModel& model, std::vector<Code>* order_out) {
 namespace gramline {
 
 double exact_min_move_s(const ScheduleInput& input) {
-  return sched::exact_order(sched::MoveModel(input), nullptr);
+  const sched::MoveModel model(input);
+  if (sched::has_ranged_motor(model)) {
+    return sched::exact_ranged_order(model, sched::ConfigModel(model), nullptr);
+  }
+  return sched::exact_order(model, nullptr);
 }
 
 }  // namespace gramline
+
+// Held-Karp 1-tree bound (Held and Karp 1970/71, Lagrangian relaxation with subgradient steps)
+// on the relaxed costs, with each entry's orientation relaxed.
+//
+// Argument. Take the measure steps s_1..s_K of any order with at most b runs (b = |B| above;
+// a run ends where a reference, dark or park step follows or the plan ends). Build a graph on
+// the K entries plus a hub node h:
+//   - entry-entry edge weight w(e, f) = the least relaxed step time between e and f over both
+//     orientations of each and both directions; the true move between consecutive measure steps
+//     of a run is at least l of their actual orientations in their actual direction, so >= w;
+//   - hub edge weight in_min(e) (term (1) above): every run's first step is entered from the
+//     start, the park positions, a reference setting or the positions a dark step kept, all
+//     covered by in_min.
+// The order's measure move time M is at least the weight of the graph H made of the hub edges to
+// each run's first entry and the edges along each run. H is a spanning tree of the K + 1 nodes
+// (K edges, connected through the hub) in which the hub has degree r <= b and every entry has
+// degree at most 2. For multipliers pi_e >= 0 and lambda >= 0,
+//   w(H) >= w(H) + sum_e pi_e (deg_H(e) - 2) + lambda (r - b)
+//        >= min over spanning trees T of [ w(T) + sum_e pi_e (deg_T(e) - 2) + lambda (deg_T(h) - b)
+//        ],
+// since each added term is <= 0 for H and H is one of the trees T. The minimum is a minimum
+// spanning tree under the weights w(e, f) + pi_e + pi_f and in_min(e) + pi_e + lambda, minus
+// 2 sum pi + lambda b. Any multipliers give a valid bound; subgradient steps (deg - 2 for
+// entries, deg(h) - b for the hub, projected onto >= 0) search for a large one and the best
+// value seen is kept. Weights are rounded down to float, so they stay lower bounds.
+namespace gramline::sched {
+
+double tree_lower_bound_s(const MoveModel& model, const SideCosts& costs, const BoundTerms& terms,
+                          long breaks, double upper_s, const WorkHooks& hooks) {
+  const auto& entries = model.input().entries;
+  const int K = static_cast<int>(entries.size());
+  if (K < 2 || K > kTreeBoundMaxSettings) return 0.0;
+  const long b = std::clamp<long>(breaks, 1, K);
+  const std::size_t k = static_cast<std::size_t>(K);
+  std::vector<float> w(k * k, 0.0f);
+  for (int e = 0; e < K; ++e) {
+    if ((e & 63) == 0) hooks.throw_if_cancelled();
+    for (int f = e + 1; f < K; ++f) {
+      double best = kInf;
+      for (int oe = 0; oe < 2; ++oe) {
+        for (int of = 0; of < 2; ++of) {
+          const Code ce = make_code(e, oe != 0), cf = make_code(f, of != 0);
+          best = std::min(
+              {best, relaxed_step_s(model, costs, ce, cf), relaxed_step_s(model, costs, cf, ce)});
+        }
+      }
+      float x = static_cast<float>(best);
+      if (static_cast<double>(x) > best) x = std::nextafter(x, 0.0f);
+      w[e * k + f] = w[f * k + e] = x;
+    }
+  }
+  std::vector<double> pi(k, 0.0), key(k + 1);
+  std::vector<int> parent(k + 1), degree(k + 1);
+  std::vector<char> in_tree(k + 1);
+  double lambda = 0.0;
+  double best_bound = 0.0;
+  double mu = 2.0;
+  int since_improved = 0;
+  const int iterations = K <= 200 ? 300 : 50;
+  for (int it = 0; it < iterations; ++it) {
+    hooks.throw_if_cancelled();
+    // Prim's algorithm over the hub (index K) and the entries, dense weights.
+    std::fill(in_tree.begin(), in_tree.end(), 0);
+    std::fill(degree.begin(), degree.end(), 0);
+    double total = 0.0;
+    in_tree[K] = 1;
+    for (int e = 0; e < K; ++e) {
+      key[e] = terms.in_min_s[e] + pi[e] + lambda;
+      parent[e] = K;
+    }
+    for (int added = 0; added < K; ++added) {
+      int next = -1;
+      for (int e = 0; e < K; ++e) {
+        if (!in_tree[e] && (next < 0 || key[e] < key[next])) next = e;
+      }
+      in_tree[next] = 1;
+      total += key[next];
+      ++degree[next];
+      ++degree[parent[next]];
+      const float* row = &w[std::size_t(next) * k];
+      for (int e = 0; e < K; ++e) {
+        if (in_tree[e]) continue;
+        const double c = row[e] + pi[next] + pi[e];
+        if (c < key[e]) {
+          key[e] = c;
+          parent[e] = next;
+        }
+      }
+    }
+    double pi_sum = 0.0;
+    for (double p : pi) pi_sum += p;
+    const double bound = total - 2.0 * pi_sum - lambda * static_cast<double>(b);
+    if (bound > best_bound + 1e-9 * std::abs(bound)) {
+      best_bound = bound;
+      since_improved = 0;
+    } else if (++since_improved >= 10) {
+      mu *= 0.5;
+      since_improved = 0;
+    }
+    double norm = 0.0;
+    for (int e = 0; e < K; ++e) {
+      const double g = degree[e] - 2.0;
+      if (g > 0.0 || pi[e] > 0.0) norm += g * g;
+    }
+    const double gh = static_cast<double>(degree[K] - b);
+    if (gh > 0.0 || lambda > 0.0) norm += gh * gh;
+    if (norm == 0.0 || mu < 1e-4 || !(upper_s > bound)) break;
+    const double step = mu * (upper_s - bound) / norm;
+    for (int e = 0; e < K; ++e) pi[e] = std::max(0.0, pi[e] + step * (degree[e] - 2.0));
+    lambda = std::max(0.0, lambda + step * gh);
+  }
+  // Sums of many rounded terms: give back a relative millionth so rounding can never lift it.
+  return std::max(0.0, best_bound * (1.0 - 1e-6));
+}
+
+}  // namespace gramline::sched

@@ -1,5 +1,6 @@
 #pragma once
 // Private pieces of the scheduler shared by its source files (schedule_*.cpp).
+#include <cstddef>
 #include <cstdint>
 #include <vector>
 
@@ -7,6 +8,10 @@
 #include "gramline/schedule.h"
 
 namespace gramline::sched {
+
+/// Photons the scheduler handles: two groups each, so a joint solution mask of all groups fits
+/// in one byte.
+constexpr int kMaxPhotons = 4;
 
 /// A measure setting in an order: entry index times two, plus 1 when the entry is measured
 /// the other way round (prepare b, analyse a).
@@ -16,6 +21,14 @@ inline Code make_code(int entry, bool flipped) {
 }
 inline int code_entry(Code c) { return static_cast<int>(c >> 1); }
 inline bool code_flipped(Code c) { return (c & 1u) != 0; }
+
+/// Commanded positions along an order: one joint solution mask per step, and for every ranged
+/// motor its physical position ([step * motors + motor]; NaN for continuous motors, which go to
+/// the nearest equivalent of their solution's angle).
+struct RangedPlan {
+  std::vector<std::uint8_t> solutions;
+  std::vector<double> positions_deg;
+};
 
 /// Side 0 holds the preparation motors, side 1 the analysis motors. A group is one stage of
 /// one photon (an HWP and a QWP that share one discrete solution): group g = side * P + photon.
@@ -95,7 +108,7 @@ double relaxed_order_s(const MoveModel& model, const SideCosts& costs,
 /// Best choice of discrete solutions along a fixed order (dynamic programming over the joint
 /// solution of all groups, from the start positions). Returns the total measure move time
 /// under the angle model, exact for continuous motors; `solutions_out` gets one bit mask per
-/// step (bit g: solution of group g). Requires at most 6 groups.
+/// step (bit g: solution of group g). At most 2 kMaxPhotons groups.
 double choose_solutions(const MoveModel& model, const std::vector<Code>& order,
                         std::vector<std::uint8_t>* solutions_out);
 
@@ -120,6 +133,15 @@ BoundTerms bound_terms(const MoveModel& model, const SideCosts& costs);
 /// at most `breaks` measure steps are followed by a non-measure step or end the plan.
 double measure_lower_bound_s(const BoundTerms& terms, long breaks);
 
+/// Settings up to which the 1-tree bound is computed (a dense K x K weight table).
+constexpr int kTreeBoundMaxSettings = 3000;
+
+/// Held-Karp 1-tree Lagrangian bound on the measure move time of any order with at most
+/// `breaks` runs (argument in schedule_bound.cpp); `upper_s`, the plan's own figure, sets the
+/// subgradient steps. 0 when there are more than kTreeBoundMaxSettings settings.
+double tree_lower_bound_s(const MoveModel& model, const SideCosts& costs, const BoundTerms& terms,
+                          long breaks, double upper_s, const WorkHooks& hooks);
+
 /// Held-Karp dynamic programming over subsets of entries (at most 12): the minimum measure move
 /// time under the angle model from the start positions, and (when `order_out` is given) an
 /// order reaching it. exact_work estimates its inner-loop count, 2^n S^2.
@@ -129,12 +151,74 @@ double exact_work(const MoveModel& model);
 /// Physical positions along an order from the start positions: each group takes the solution given
 /// (or, when `solutions` is empty, the one it reaches fastest), each motor the nearest equivalent.
 /// Returns the total move time under step_move_s.
+/// `planned_deg` (RangedPlan::positions_deg, may be empty) overrides the ranged motors.
 double realized_order_s(const MoveModel& model, const std::vector<Code>& order,
-                        const std::vector<std::uint8_t>& solutions);
+                        const std::vector<std::uint8_t>& solutions,
+                        const std::vector<double>& planned_deg = {});
+
+/// Positions of measure step k of an order: place_group for every group with the step's solution,
+/// then the planned position of every ranged motor, if any.
+void place_measure_step(const MoveModel& model, Code code, std::size_t k,
+                        const std::vector<std::uint8_t>& solutions,
+                        const std::vector<double>& planned_deg, std::vector<double>& positions);
+
+/// Solutions and ranged positions for an order: choose_solutions, then, on ranged rigs, the best
+/// of nearest placement, place_ranged_motors and (when affordable) ConfigModel::order_s, judged by
+/// the commanded positions' move time. Returns that move time.
+double plan_positions(const MoveModel& model, const std::vector<Code>& order, RangedPlan& plan);
 
 /// Moves one group's motors to `point`'s solution `sol` (or the faster of the two when
 /// sol < 0), nearest equivalent positions. Updates `positions` in place.
 void place_group(const MoveModel& model, int group, int point, int sol,
                  std::vector<double>& positions);
+
+/// True when any scheduled motor has a travel range.
+bool has_ranged_motor(const MoveModel& model);
+
+/// Configurations of a setting for ranged rigs (schedule_ranged.cpp): per side, every choice of
+/// one solution per group and one in-range equivalent position per ranged motor (a continuous
+/// motor keeps its canonical angle). Costs between configurations are the true step times of
+/// the commanded positions (continuous motors: the angle model, exact for them).
+class ConfigModel {
+ public:
+  struct SideConfigs {
+    std::size_t count = 0;
+    int width = 0;                    ///< motors of the side: hwp, qwp per photon
+    std::vector<double> positions;    ///< [config * width + motor]
+    std::vector<std::uint8_t> masks;  ///< solution bits of the side's groups
+    const double* at(std::size_t i) const { return positions.data() + i * width; }
+  };
+  explicit ConfigModel(const MoveModel& model);
+  /// Materialised on first use; call only when side_count is modest.
+  const SideConfigs& side(int side, int point) const;
+  /// Number of configurations, counted without listing them.
+  double side_count(int side, int point) const;
+  double configs(Code c) const;
+  double side_move_s(int side, const double* from, const double* to) const;
+  double side_from_s(int side, const std::vector<double>& from_deg, const double* to) const;
+  /// Least measure move time along a fixed order over every configuration of every step (dynamic
+  /// programming); `plan_out` gets the configurations reaching it.
+  double order_s(const std::vector<Code>& order, RangedPlan* plan_out) const;
+  /// Inner-loop count of order_s.
+  double order_work(const std::vector<Code>& order) const;
+
+ private:
+  double motor_s(int motor, double from_deg, double to_deg) const;
+  const MoveModel* model_;
+  std::vector<int> motors_[2];
+  mutable std::vector<SideConfigs> cache_[2];
+};
+
+/// Ranged motors along a fixed order and fixed solutions: each motor's in-range positions by a
+/// shortest path through its layers of equivalent positions (least total travel time of that
+/// motor). For large orders, where ConfigModel::order_s is too expensive.
+void place_ranged_motors(const MoveModel& model, const std::vector<Code>& order,
+                         const std::vector<std::uint8_t>& solutions, RangedPlan& plan);
+
+/// Held-Karp over subsets of entries with configurations as states: the exact minimum measure
+/// move time over orders, orientations, solutions and in-range positions (at most 12 entries).
+double exact_ranged_order(const MoveModel& model, const ConfigModel& configs,
+                          std::vector<Code>* order_out);
+double exact_ranged_work(const MoveModel& model, const ConfigModel& configs);
 
 }  // namespace gramline::sched

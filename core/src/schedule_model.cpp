@@ -4,6 +4,7 @@
 #include <cmath>
 #include <limits>
 #include <stdexcept>
+#include <string>
 
 #include "schedule_internal.h"
 
@@ -13,7 +14,10 @@ MoveModel::MoveModel(const ScheduleInput& input) : input_(&input) {
   if (!input.rig) throw std::invalid_argument("schedule: no rig");
   const Rig& rig = *input.rig;
   photons_ = input.points.empty() ? 0 : static_cast<int>(input.points.front().prep.size());
-  if (photons_ > 4) throw std::invalid_argument("schedule: at most 4 photons are supported");
+  if (photons_ > kMaxPhotons) {
+    throw std::invalid_argument("schedule: at most " + std::to_string(kMaxPhotons) +
+                                " photons are supported");
+  }
   simultaneous_ = rig.controller.moves == MoveMode::simultaneous;
   settle_s_ = rig.controller.settle_s;
   overhead_s_ = rig.controller.overhead_s;
@@ -173,7 +177,9 @@ double choose_solutions(const MoveModel& model, const std::vector<Code>& order,
                         std::vector<std::uint8_t>* solutions_out) {
   const int P = model.photons();
   const int G = model.groups();
-  if (G > 8) throw std::invalid_argument("schedule: too many groups for the solution search");
+  if (G > 2 * kMaxPhotons) {
+    throw std::invalid_argument("schedule: too many groups for the solution search");
+  }
   const int side_states = 1 << P;
   const int K = 1 << G;
   const std::size_t n = order.size();
@@ -187,7 +193,7 @@ double choose_solutions(const MoveModel& model, const std::vector<Code>& order,
   // side_tab[side][u * side_states + w]: joined side motor time between side states.
   std::vector<double> side_tab[2] = {std::vector<double>(side_states * side_states),
                                      std::vector<double>(side_states * side_states)};
-  double group_tab[8][2][2];  // up to 4 photons: 8 groups, 256 states in a byte
+  double group_tab[2 * kMaxPhotons][2][2];
 
   // Step 0: from the start positions.
   for (int g = 0; g < G; ++g) {
@@ -297,17 +303,30 @@ void place_group(const MoveModel& model, int group, int point, int sol,
   positions[q] = best_q;
 }
 
+void place_measure_step(const MoveModel& model, Code code, std::size_t k,
+                        const std::vector<std::uint8_t>& solutions,
+                        const std::vector<double>& planned_deg, std::vector<double>& positions) {
+  for (int g = 0; g < model.groups(); ++g) {
+    const int sol = solutions.empty() ? -1 : (solutions[k] >> g) & 1;
+    place_group(model, g, model.group_point(code, g), sol, positions);
+  }
+  if (planned_deg.empty()) return;
+  const std::size_t motors = positions.size();
+  for (std::size_t m = 0; m < motors; ++m) {
+    const double x = planned_deg[k * motors + m];
+    if (!std::isnan(x)) positions[m] = x;
+  }
+}
+
 double realized_order_s(const MoveModel& model, const std::vector<Code>& order,
-                        const std::vector<std::uint8_t>& solutions) {
+                        const std::vector<std::uint8_t>& solutions,
+                        const std::vector<double>& planned_deg) {
   const Rig& rig = model.rig();
   std::vector<double> pos = model.start_deg(), next;
   double total = 0.0;
   for (std::size_t k = 0; k < order.size(); ++k) {
     next = pos;
-    for (int g = 0; g < model.groups(); ++g) {
-      const int sol = solutions.empty() ? -1 : (solutions[k] >> g) & 1;
-      place_group(model, g, model.group_point(order[k], g), sol, next);
-    }
+    place_measure_step(model, order[k], k, solutions, planned_deg, next);
     total += step_move_s(rig, pos, next);
     std::swap(pos, next);
   }

@@ -16,9 +16,6 @@ namespace {
 
 using Clock = std::chrono::steady_clock;
 
-/// Orders up to this many settings also get Or-opt over the whole sequence.
-constexpr std::size_t kSequenceSearchMax = 30000;
-
 struct Budget {
   const WorkHooks* hooks;
   Clock::time_point deadline;
@@ -197,32 +194,33 @@ std::vector<Code> sweep_order(const Layout& layout, int row_side, const std::vec
   return order;
 }
 
-/// Exact total move time of an order (solutions chosen optimally, angle model).
-double exact_cost(const MoveModel& model, const std::vector<Code>& order) {
-  return choose_solutions(model, order, nullptr);
-}
-
-/// Multi-start local search on the exact cost, for tiny instances.
-std::vector<Code> small_search(const MoveModel& model, std::vector<Code> start, std::uint64_t seed,
-                               const Budget& budget) {
+/// Multi-start local search on an order's exact cost (`exact_cost`: solutions, and on ranged rigs
+/// positions, chosen optimally for the order), for tiny instances. Stops after `max_evaluations`
+/// evaluations of the cost, so that a seed gives the same order on any machine.
+template <typename Cost>
+std::vector<Code> small_search(std::vector<Code> start, std::uint64_t seed, const Budget& budget,
+                               const Cost& exact_cost, long max_evaluations) {
   std::mt19937_64 rng(seed);
   const int n = static_cast<int>(start.size());
   std::vector<Code> best = start;
-  double best_cost = exact_cost(model, best);
+  double best_cost = exact_cost(best);
+  long evaluations = 1;
   const double eps = 1e-12;
-  for (int restart = 0; restart < 400; ++restart) {
+  for (int restart = 0; restart < 400 && evaluations < max_evaluations; ++restart) {
     std::vector<Code> cur = start;
     if (restart > 0) {
       std::shuffle(cur.begin(), cur.end(), rng);
       for (Code& c : cur) c = make_code(code_entry(c), (rng() & 1u) != 0);
     }
-    double cur_cost = exact_cost(model, cur);
+    double cur_cost = exact_cost(cur);
+    ++evaluations;
     bool improved = true;
-    while (improved) {
+    while (improved && evaluations < max_evaluations) {
       improved = false;
       if (budget.expired()) break;
       auto try_order = [&](std::vector<Code>& cand) {
-        const double c = exact_cost(model, cand);
+        ++evaluations;
+        const double c = exact_cost(cand);
         if (c < cur_cost - eps) {
           cur.swap(cand);
           cur_cost = c;
@@ -262,12 +260,16 @@ std::vector<Code> small_search(const MoveModel& model, std::vector<Code> start, 
   return best;
 }
 
-/// Or-opt over the whole sequence of settings (relaxed step costs, which may be asymmetric):
-/// a run of 1 to 3 consecutive settings moves next to a setting that shares one of its points
-/// on one side and sits near it on the other; a lone setting may also turn round. Candidate
-/// places come from k-nearest lists, so a pass costs O(K k) evaluations plus the moves.
+/// Or-opt over the whole sequence of settings (relaxed step costs, which may be asymmetric): a
+/// run of 1 to 3 consecutive settings moves next to a setting that shares one of its points on
+/// one side and sits near it on the other, in either direction and with or without turning every
+/// setting of the run round. The sequence is a doubly linked list over entries, so a move costs
+/// O(1) whatever the distance it spans, and a queue of "don't-look" bits revisits only the
+/// settings next to a change. Every candidate counts as one evaluation; the search stops when no
+/// move improves or after `max_evaluations`, so the result depends on the input alone, never on
+/// the machine's speed, and there is no size above which it is switched off.
 void or_opt_sequence(const MoveModel& model, const SideCosts& costs, const Layout& layout,
-                     std::vector<Code>& order, const Budget& budget) {
+                     std::vector<Code>& order, const Budget& budget, long max_evaluations) {
   const int n = costs.n;
   const int K = static_cast<int>(order.size());
   if (K < 3) return;
@@ -286,18 +288,30 @@ void or_opt_sequence(const MoveModel& model, const SideCosts& costs, const Layou
       for (int m = 0; m < k; ++m) near[side][std::size_t(j) * kNear + m] = row[m].second;
     }
   }
-  std::vector<int> where(model.input().entries.size(), -1);
-  for (int k = 0; k < K; ++k) where[code_entry(order[k])] = k;
-  // The points of every code, looked up once: this loop runs the cost millions of times.
   const auto& entries = model.input().entries;
+  const int E = static_cast<int>(entries.size());
+  // The points of every code, looked up once: this loop runs the cost many millions of times.
   std::vector<int> prep_of(2 * entries.size()), ana_of(2 * entries.size());
-  for (std::size_t e = 0; e < entries.size(); ++e) {
+  for (int e = 0; e < E; ++e) {
     for (int flip = 0; flip < 2; ++flip) {
-      const Code c = make_code(static_cast<int>(e), flip != 0);
+      const Code c = make_code(e, flip != 0);
       prep_of[c] = model.prep_point(c);
       ana_of[c] = model.analysis_point(c);
     }
   }
+  // Linked list over entries (-1: none); code[e] holds the entry's orientation. Entries missing
+  // from the order (none in practice) stay out of the list.
+  std::vector<int> succ(E, -1), pred(E, -1);
+  std::vector<Code> code(E, 0);
+  std::vector<char> listed(E, 0);
+  for (int k = 0; k < K; ++k) {
+    const int e = code_entry(order[k]);
+    code[e] = order[k];
+    listed[e] = 1;
+    pred[e] = k > 0 ? code_entry(order[k - 1]) : -1;
+    succ[e] = k + 1 < K ? code_entry(order[k + 1]) : -1;
+  }
+  int head = code_entry(order[0]);
   const std::size_t nn = static_cast<std::size_t>(n);
   const float* cost_p = costs.cost[0].data();
   const float* cost_a = costs.cost[1].data();
@@ -306,51 +320,90 @@ void or_opt_sequence(const MoveModel& model, const SideCosts& costs, const Layou
     return model.step_s(model.join(cost_p[prep_of[from] * nn + prep_of[to]],
                                    cost_a[ana_of[from] * nn + ana_of[to]]));
   };
-  // Step cost into `to` from position `from_k` (-1: the start positions).
-  auto step = [&](int from_k, Code to) {
-    return from_k < 0 ? relaxed_first_step_s(model, costs, to) : step_codes(order[from_k], to);
+  // Step cost into `to` from entry `from_e` (-1: the start positions).
+  auto step = [&](int from_e, Code to) {
+    return from_e < 0 ? relaxed_first_step_s(model, costs, to) : step_codes(code[from_e], to);
   };
   const double eps = 1e-7;
   const double overhead_s = model.step_s(0.0);
-  for (int pass = 0; pass < 30; ++pass) {
-    if (budget.expired()) return;
-    bool improved = false;
-    double pass_gain = 0.0;
-    for (int i = 0; i < K; ++i) {
-      for (int len = 1; len <= 3 && i + len <= K; ++len) {
-        const int j = i + len - 1;
-        const bool has_next = j + 1 < K;
-        const Code head = order[i];
-        const Code tail = order[j];
-        // Saving from cutting the run out and closing the gap.
-        double removed = step(i - 1, head) - (has_next ? step(i - 1, order[j + 1]) : 0.0);
-        if (has_next) removed += step_codes(tail, order[j + 1]);
-        // Inserting a run usually costs at least one more step overhead: skip hopeless cuts.
-        if (removed <= eps + overhead_s) continue;
-        double best_gain = eps;
-        int best_after = -2;  // insert after this position (-1: at the front)
-        bool best_turn = false;
-        auto consider = [&](int after, bool turn) {
-          if (after >= i - 1 && after <= j) return;  // where it already is
-          const Code h = turn ? head ^ 1u : head;
-          const Code t = turn ? tail ^ 1u : tail;
-          const bool has_succ = after + 1 < K;
-          double added = step(after, h);
-          if (has_succ) {
-            const Code succ = order[after + 1];
-            added += step_codes(t, succ) - step(after, succ);
-          }
+  std::vector<char> queued(E, 0);
+  std::vector<int> queue;
+  queue.reserve(K);
+  for (int k = 0; k < K; ++k) {
+    queue.push_back(code_entry(order[k]));
+    queued[code_entry(order[k])] = 1;
+  }
+  auto wake = [&](int e) {
+    if (e >= 0 && !queued[e]) {
+      queued[e] = 1;
+      queue.push_back(e);
+    }
+  };
+  long evaluations = 0;
+  std::size_t front = 0;
+  int seg[3];
+  Code placed[3];
+  while (front < queue.size() && evaluations < max_evaluations) {
+    if ((front & 4095) == 0 && budget.expired()) break;
+    const int h = queue[front++];
+    queued[h] = 0;
+    for (int len = 1; len <= 3; ++len) {
+      // The run h .. t of `len` entries.
+      seg[0] = h;
+      bool whole = true;
+      for (int m = 1; m < len; ++m) {
+        seg[m] = succ[seg[m - 1]];
+        if (seg[m] < 0) whole = false;
+        if (!whole) break;
+      }
+      if (!whole) break;
+      const int t = seg[len - 1];
+      const int before = pred[h];
+      const int after = succ[t];
+      double inner = 0.0;
+      for (int m = 0; m + 1 < len; ++m) inner += step_codes(code[seg[m]], code[seg[m + 1]]);
+      double removed = step(before, code[h]) + inner;
+      if (after >= 0) removed += step_codes(code[t], code[after]) - step(before, code[after]);
+      // Inserting a run usually costs at least one more step overhead: skip hopeless cuts.
+      if (removed <= eps + overhead_s) continue;
+      double best_gain = eps;
+      int best_x = -2;  // insert after this entry (-1: at the front)
+      int best_variant = 0;
+      auto in_run = [&](int e) {
+        for (int m = 0; m < len; ++m)
+          if (seg[m] == e) return true;
+        return false;
+      };
+      // Variant bit 0: reversed run; bit 1: every setting turned round.
+      auto variant_codes = [&](int variant) {
+        for (int m = 0; m < len; ++m) {
+          const int src = (variant & 1) ? seg[len - 1 - m] : seg[m];
+          placed[m] = (variant & 2) ? code[src] ^ 1u : code[src];
+        }
+      };
+      const int variants = len == 1 ? 2 : 4;
+      for (int variant = 0; variant < variants; ++variant) {
+        const int v = len == 1 ? variant * 2 : variant;
+        variant_codes(v);
+        double inner_v = 0.0;
+        for (int m = 0; m + 1 < len; ++m) inner_v += step_codes(placed[m], placed[m + 1]);
+        auto consider = [&](int x) {
+          if (x == before || (x >= 0 && in_run(x))) return;
+          ++evaluations;
+          const int sx = x < 0 ? head : succ[x];
+          double added = step(x, placed[0]) + inner_v;
+          if (sx >= 0) added += step_codes(placed[len - 1], code[sx]) - step(x, code[sx]);
           const double gain = removed - added;
           if (gain > best_gain) {
             best_gain = gain;
-            best_after = after;
-            best_turn = turn;
+            best_x = x;
+            best_variant = v;
           }
         };
-        for (int turn = 0; turn < (len == 1 ? 2 : 1); ++turn) {
-          const Code h = turn ? head ^ 1u : head;
-          const int p = prep_of[h];
-          const int a = ana_of[h];
+        for (int end = 0; end < 2; ++end) {
+          const Code c = end == 0 ? placed[0] : placed[len - 1];
+          const int p = prep_of[c];
+          const int a = ana_of[c];
           for (int side = 0; side < 2; ++side) {
             const int keep = side == 0 ? a : p;  // the point that stays
             const int moved = side == 0 ? p : a;
@@ -358,39 +411,64 @@ void or_opt_sequence(const MoveModel& model, const SideCosts& costs, const Layou
               const int other = near[side][std::size_t(moved) * kNear + m];
               if (other < 0 || other == keep) continue;
               const int e = layout.entry_of[std::size_t(keep) * n + other];
-              if (e < 0) continue;
-              const int at = where[e];
-              consider(at, turn != 0);      // right after the neighbour
-              consider(at - 1, turn != 0);  // right before it
+              if (e < 0 || !listed[e] || in_run(e)) continue;
+              // The first setting of the run next after the neighbour, the last one before it.
+              if (end == 0) consider(e);
+              if (end == 1) consider(pred[e]);
             }
           }
         }
-        if (best_after == -2) continue;
-        if (best_turn) order[i] ^= 1u;
-        // Move order[i..j] to just after best_after (positions before the cut).
-        int lo, hi;
-        if (best_after < i) {
-          std::rotate(order.begin() + best_after + 1, order.begin() + i, order.begin() + j + 1);
-          lo = best_after + 1;
-          hi = j;
-        } else {
-          std::rotate(order.begin() + i, order.begin() + j + 1, order.begin() + best_after + 1);
-          lo = i;
-          hi = best_after;
-        }
-        for (int k = lo; k <= hi; ++k) where[code_entry(order[k])] = k;
-        improved = true;
-        pass_gain += best_gain;
-        break;
       }
+      if (best_x == -2) continue;
+      variant_codes(best_variant);
+      // Unlink the run.
+      if (before >= 0)
+        succ[before] = after;
+      else
+        head = after;
+      if (after >= 0) pred[after] = before;
+      // Relink it after best_x, in its new direction and orientation.
+      int ids[3];
+      for (int m = 0; m < len; ++m) {
+        ids[m] = code_entry(placed[m]);
+        code[ids[m]] = placed[m];
+      }
+      const int sx = best_x < 0 ? head : succ[best_x];
+      for (int m = 0; m < len; ++m) {
+        pred[ids[m]] = m == 0 ? best_x : ids[m - 1];
+        succ[ids[m]] = m + 1 < len ? ids[m + 1] : sx;
+      }
+      if (best_x >= 0)
+        succ[best_x] = ids[0];
+      else
+        head = ids[0];
+      if (sx >= 0) pred[sx] = ids[len - 1];
+      // Don't-look bits: look again around every place that changed.
+      for (int m = 0; m < len; ++m) wake(ids[m]);
+      wake(before);
+      wake(after);
+      wake(best_x);
+      wake(sx);
+      if (before >= 0) wake(pred[before]);
+      if (best_x >= 0) wake(pred[best_x]);
+      break;
     }
-    // Later passes find little (a few tenths of a percent in all): stop when one gains less
-    // than 0.1 % of the total, which keeps the demo well inside its time goal.
-    if (!improved || pass_gain < 1e-3 * relaxed_order_s(model, costs, order)) return;
+  }
+  order.clear();
+  for (int e = head; e >= 0; e = succ[e]) order.push_back(code[e]);
+  for (int e = 0; e < E; ++e) {
+    if (!listed[e]) order.push_back(make_code(e, false));
   }
 }
 
 }  // namespace
+
+/// Evaluation budget of the whole-sequence search: the campaign's schedule.search_evaluations,
+/// or by default 400 per setting (docs/motion-model.md).
+long sequence_evaluations(const ScheduleInput& in, std::size_t settings) {
+  if (in.settings.search_evaluations > 0) return static_cast<long>(in.settings.search_evaluations);
+  return 400L * static_cast<long>(std::max<std::size_t>(settings, 1));
+}
 
 std::vector<Code> optimized_order(const MoveModel& model, const SideCosts& costs,
                                   bool truncation_safe, const ScheduleOptions& options) {
@@ -450,16 +528,32 @@ std::vector<Code> optimized_order(const MoveModel& model, const SideCosts& costs
     }
     options.hooks.report(0.35 + 0.3 * row_side);
   }
-  if (!truncation_safe && best.size() <= kSequenceSearchMax) {
-    or_opt_sequence(model, costs, layout, best, budget);
+  if (!truncation_safe) {
+    // Whole-sequence search at every size, within a budget counted in evaluations.
+    or_opt_sequence(model, costs, layout, best, budget, sequence_evaluations(in, best.size()));
   }
   if (best.size() <= 12 && !truncation_safe) {
     // Tiny instances: exact when the dynamic programme is cheap (up to tens of milliseconds),
-    // multi-start local search on the exact cost otherwise.
-    if (exact_work(model) <= 4e7) {
+    // multi-start local search on the exact cost otherwise. On ranged rigs both work on the
+    // commanded positions (schedule_ranged.cpp).
+    const ConfigModel configs(model);
+    const bool ranged = has_ranged_motor(model);
+    const double order_work = ranged ? std::max(configs.order_work(best), 1.0) : 0.0;
+    if (ranged && exact_ranged_work(model, configs) <= 1e8) {
+      exact_ranged_order(model, configs, &best);
+    } else if (ranged && order_work <= 1e6) {
+      // About 1e8 inner steps of the dynamic programme in all.
+      best = small_search(
+          best, options.seed, budget,
+          [&](const std::vector<Code>& o) { return configs.order_s(o, nullptr); },
+          static_cast<long>(std::clamp(1e8 / order_work, 2000.0, 200000.0)));
+    } else if (exact_work(model) <= 4e7) {
       exact_order(model, &best);
     } else {
-      best = small_search(model, best, options.seed, budget);
+      best = small_search(
+          best, options.seed, budget,
+          [&](const std::vector<Code>& o) { return choose_solutions(model, o, nullptr); },
+          std::numeric_limits<long>::max());
     }
   }
   return best;

@@ -2,6 +2,7 @@
 // reference_interval_min, dark steps at night start and end, a park at the end of each night;
 // no step straddles the end of its window. Also the entry point build_schedule.
 #include <algorithm>
+#include <chrono>
 #include <cmath>
 #include <sstream>
 #include <stdexcept>
@@ -21,9 +22,13 @@ struct Layout {
 
 class TimelineBuilder {
  public:
-  TimelineBuilder(const MoveModel& model, const std::vector<Code>& order,
-                  const std::vector<std::uint8_t>& solutions)
-      : model_(model), in_(model.input()), rig_(model.rig()), order_(order), sols_(solutions) {
+  TimelineBuilder(const MoveModel& model, const std::vector<Code>& order, const RangedPlan& plan)
+      : model_(model),
+        in_(model.input()),
+        rig_(model.rig()),
+        order_(order),
+        sols_(plan.solutions),
+        planned_(plan.positions_deg) {
     initial_ = model_.park_deg();
     double pairs = 0.0;
     for (const EntryRequest& e : in_.entries) pairs += e.pairs;
@@ -164,10 +169,7 @@ class TimelineBuilder {
     s.prep_point = model_.prep_point(c);
     s.analysis_point = model_.analysis_point(c);
     std::vector<double> next = pos;
-    for (int g = 0; g < model_.groups(); ++g) {
-      const int sol = sols_.empty() ? -1 : (sols_[k] >> g) & 1;
-      place_group(model_, g, model_.group_point(c, g), sol, next);
-    }
+    place_measure_step(model_, c, k, sols_, planned_, next);
     s.position_deg = next;
     s.move_s = step_move_s(rig_, pos, next);
     pos = std::move(next);
@@ -183,6 +185,7 @@ class TimelineBuilder {
   const Rig& rig_;
   const std::vector<Code>& order_;
   const std::vector<std::uint8_t>& sols_;
+  const std::vector<double>& planned_;
   std::vector<double> initial_;
   double mean_pairs_ = 0.0;
 };
@@ -266,23 +269,21 @@ ScheduleResult build_schedule(const ScheduleInput& input, const ScheduleOptions&
   options.hooks.report(0.1);
 
   std::vector<Code> order;
-  std::vector<std::uint8_t> sols;
+  RangedPlan plan;
   if (options.optimize_order) {
     order = optimized_order(model, costs, input.settings.truncation_safe, options);
-    choose_solutions(model, order, &sols);
+    const double order_s = plan_positions(model, order, plan);
     if (input.settings.truncation_safe) {
       std::vector<Code> free_order = optimized_order(model, costs, false, options);
-      std::vector<std::uint8_t> free_sols;
-      choose_solutions(model, free_order, &free_sols);
-      result.truncation_cost_s =
-          realized_order_s(model, order, sols) - realized_order_s(model, free_order, free_sols);
+      RangedPlan free_plan;
+      result.truncation_cost_s = order_s - plan_positions(model, free_order, free_plan);
     }
   } else {
     order = naive_order(input);
   }
   options.hooks.report(0.8);
 
-  const TimelineBuilder builder(model, order, sols);
+  const TimelineBuilder builder(model, order, plan);
   const int max_nights = std::max(input.nights.max_nights, 1);
   auto fits = [&](const Layout& l) { return l.ok && l.nights <= max_nights; };
   double scale = 1.0;
@@ -323,7 +324,20 @@ ScheduleResult build_schedule(const ScheduleInput& input, const ScheduleOptions&
     breaks += layout.steps[k].kind == StepKind::measure &&
               (k + 1 == layout.steps.size() || layout.steps[k + 1].kind != StepKind::measure);
   }
-  result.move_lower_bound_s = measure_lower_bound_s(bound, breaks);
+  const auto bound_start = std::chrono::steady_clock::now();
+  double measure_move = 0.0;
+  for (const Step& s : layout.steps) {
+    if (s.kind == StepKind::measure) measure_move += s.move_s;
+  }
+  result.move_tree_bound_s =
+      options.tree_bound
+          ? tree_lower_bound_s(model, costs, bound, breaks, measure_move, options.hooks)
+          : 0.0;
+  result.move_lower_bound_s =
+      std::max(measure_lower_bound_s(bound, breaks), result.move_tree_bound_s);
+  result.bound_ms =
+      std::chrono::duration<double, std::milli>(std::chrono::steady_clock::now() - bound_start)
+          .count();
   result.steps = std::move(layout.steps);
   result.nights = layout.nights;
   result.fits = layout.nights <= max_nights;

@@ -75,7 +75,7 @@ Campaign awkward_campaign() {
   c.nights.start_min = 21 * 60 + 7;
   c.nights.end_min = 5 * 60 + 59;
   c.nights.max_nights = 11;
-  c.schedule = ScheduleSettings{12.5, 999.0, 0.25, false, 17.25, false, true, true, 3.5};
+  c.schedule = ScheduleSettings{12.5, 999.0, 0.25, false, 17.25, false, true, true, 3.5, 54321};
   c.check = CheckSettings{2.5, 7, 0.025, 0.85, false, 321};
   return c;
 }
@@ -162,6 +162,7 @@ void expect_same_campaign(const Campaign& a, const Campaign& b) {
   EXPECT_EQ(a.schedule.fit_to_nights, b.schedule.fit_to_nights);
   EXPECT_EQ(a.schedule.truncation_safe, b.schedule.truncation_safe);
   EXPECT_EQ(a.schedule.optimizer_time_cap_s, b.schedule.optimizer_time_cap_s);
+  EXPECT_EQ(a.schedule.search_evaluations, b.schedule.search_evaluations);
   EXPECT_EQ(a.check.C, b.check.C);
   EXPECT_EQ(a.check.cv_folds, b.check.cv_folds);
   EXPECT_EQ(a.check.flip_threshold, b.check.flip_threshold);

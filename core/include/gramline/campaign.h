@@ -61,6 +61,9 @@ struct ScheduleSettings {
   bool fit_to_nights = false;         ///< scale pairs so the campaign fits max_nights
   bool truncation_safe = false;       ///< complete the Gram matrix of the first m points early
   double optimizer_time_cap_s = 0.0;  ///< 0: no cap
+  /// Move evaluations the whole-sequence order search may spend; 0: 400 per measure setting
+  /// (docs/motion-model.md). Counted, not timed, so a seed gives the same plan on any machine.
+  long long search_evaluations = 0;
 };
 
 struct CheckSettings {

@@ -60,6 +60,7 @@ struct PlanSummary {
   double epsilon_reached = 0.0;    ///< kernel half-width at the planned pairs (fit to nights)
   double truncation_cost_s = 0.0;  ///< extra move time of the truncation-safe order
   double plan_ms = 0.0;
+  double bound_ms = 0.0;       ///< wall time of the move lower bound, not part of plan_ms
   double gram_error_ms = 0.0;  ///< wall time of the Gram-error simulation, not part of plan_ms
   bool fits = true;            ///< false when max_nights is not enough
   /// The reference calibration (docs/error-budget.md): reference steps and their pairs (the
@@ -86,6 +87,9 @@ struct PlanOptions {
   /// When set, plan only the entries not yet measured, starting from the given positions.
   const ResumeState* resume = nullptr;
   bool optimize_order = true;  ///< false: row-by-row order
+  /// Compute the 1-tree move bound too (ScheduleOptions::tree_bound); the app plans without it
+  /// on every edit and reports the quicker per-entry bound.
+  bool tree_bound = true;
   /// Simulate the Gram error (estimate_gram_error) once the plan is made; false leaves only the
   /// quick figures of describe_gram_noise, for a later estimate_gram_error call.
   bool simulate_gram_error = true;

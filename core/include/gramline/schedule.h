@@ -54,6 +54,9 @@ struct ScheduleInput {
 struct ScheduleOptions {
   std::uint64_t seed = 1;
   bool optimize_order = true;  ///< false: the row-by-row order
+  /// Also the Held-Karp 1-tree bound (up to seconds on thousands of settings); false: only the
+  /// per-entry bound, for a quick plan on every edit.
+  bool tree_bound = true;
   WorkHooks hooks;
 };
 
@@ -65,6 +68,10 @@ struct ScheduleResult {
   /// followed by a reference, dark or park step or end the plan; the argument is in
   /// schedule_bound.cpp.
   double move_lower_bound_s = 0.0;
+  /// The Held-Karp 1-tree part of move_lower_bound_s (0 when the plan is too large for it); the
+  /// reported bound is the larger of it and the per-entry bound.
+  double move_tree_bound_s = 0.0;
+  double bound_ms = 0.0;           ///< wall time spent on the lower bound, milliseconds
   double move_naive_s = 0.0;       ///< measure steps in row-by-row order, same model
   double truncation_cost_s = 0.0;  ///< extra move time of the truncation-safe order
   double pairs_scale = 1.0;        ///< factor applied to every entry's pairs (fit to nights)
@@ -80,9 +87,10 @@ ScheduleResult build_schedule(const ScheduleInput& input, const ScheduleOptions&
 /// Exact minimum total move time (seconds, docs/motion-model.md) of the measure steps alone, from
 /// the start positions (ScheduleInput::start_positions_deg, else initial_deg), over every order,
 /// orientation and choice of discrete solutions: Held-Karp dynamic programming over subsets of
-/// entries. Exact when every motor rotates continuously (then only angles modulo the plate period
-/// matter); a lower bound otherwise. For tests: at most 12 entries; time grows as 2^n (n
-/// 2^(2P+1))^2 for P photons.
+/// entries. With continuous motors only angles modulo the plate period matter; with travel ranges
+/// the states also hold every in-range equivalent position of each ranged motor, so the minimum
+/// is over orders, orientations, solutions and commanded positions. For tests: at most 12
+/// entries; time grows as 2^n S^2 with S the number of states (n 2^(2P+1) without ranges).
 double exact_min_move_s(const ScheduleInput& input);
 
 }  // namespace gramline
