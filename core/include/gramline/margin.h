@@ -1,10 +1,11 @@
 #pragma once
-// The margin check (README, user guide step 13): with the planned pairs per entry, does the classifier trained on the
-// measured Gram matrix still put every test point on the same side, with margin?
-// A Monte Carlo over simulated campaigns: counts per setting with the detection scheme's
+// The margin check (README, user guide step 13): with the planned pairs per entry, does the
+// classifier trained on the measured Gram matrix still put every test point on the same side, with
+// margin? A Monte Carlo over simulated campaigns: counts per setting with the detection scheme's
 // statistics, the unbiased kernel estimator of detection.h, PSD repair (kernel.h), retraining.
 #include <Eigen/Core>
 #include <cstdint>
+#include <optional>
 #include <string>
 #include <vector>
 
@@ -34,6 +35,13 @@ struct MarginProblem {
   Eigen::MatrixXd pairs_test;           ///< M x N
   std::vector<EntryNoise> noise_train;  ///< N x N, row-major (upper triangle used)
   std::vector<EntryNoise> noise_test;   ///< M x N, row-major
+  /// Plate imperfections (plates.h, docs/conventions.md "Real plates"). When `plate_rig` has
+  /// any, every trial draws each motor's axis offset once (shared by all entries) and each
+  /// entry's repeatability, and the counts follow the kernel the rig realises at the entry's
+  /// motor positions so shifted (retardance bias and leakage included). Empty: ideal plates.
+  std::optional<Rig> plate_rig;
+  std::vector<std::vector<double>> positions_train;  ///< N x N, row-major (upper triangle)
+  std::vector<std::vector<double>> positions_test;   ///< M x N, row-major
 
   int train_count() const { return static_cast<int>(kernel_train.rows()); }
   int test_count() const { return static_cast<int>(kernel_test.rows()); }
