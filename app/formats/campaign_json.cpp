@@ -62,8 +62,9 @@ QJsonObject rig_to_json(const Rig& rig) {
   for (const Motor& m : rig.motors) motors.append(motor_to_json(m));
   QJsonArray detectors;
   for (const Detector& d : rig.detectors) {
-    detectors.append(
-        QJsonObject{{"efficiency", d.efficiency}, {"dark_rate_per_s", d.dark_rate_per_s}});
+    detectors.append(QJsonObject{{"efficiency", d.efficiency},
+                                 {"dark_rate_per_s", d.dark_rate_per_s},
+                                 {"pbs_leakage", d.pbs_leakage}});
   }
   return QJsonObject{{"motors", motors},
                      {"controller", controller_to_json(rig.controller)},
@@ -71,7 +72,8 @@ QJsonObject rig_to_json(const Rig& rig) {
                                             {"visibility", rig.source.visibility}}},
                      {"detectors", detectors},
                      {"coincidence_window_s", rig.coincidence_window_s},
-                     {"scheme", q(to_string(rig.scheme))}};
+                     {"scheme", q(to_string(rig.scheme))},
+                     {"compensate_plates", rig.compensate_plates}};
 }
 
 DataSet data_from_json(const JsonField& f) {
@@ -144,9 +146,11 @@ Rig rig_from_json(const JsonField& f) {
   rig.source.visibility = s["visibility"].number();
   for (const JsonField& d : f["detectors"].items()) {
     rig.detectors.push_back(Detector{d["efficiency"].number(), d["dark_rate_per_s"].number()});
+    if (d.has("pbs_leakage")) rig.detectors.back().pbs_leakage = d["pbs_leakage"].number();
   }
   rig.coincidence_window_s = f["coincidence_window_s"].number();
   rig.scheme = f["scheme"].choice({DetectionScheme::pass_only, DetectionScheme::both_ports});
+  if (f.has("compensate_plates")) rig.compensate_plates = f["compensate_plates"].boolean();
   return rig;
 }
 

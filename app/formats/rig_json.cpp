@@ -16,7 +16,10 @@ QJsonObject motor_to_json(const Motor& m) {
                      {"range_deg", range},
                      {"backlash", QString::fromStdString(to_string(m.backlash))},
                      {"overshoot_deg", m.overshoot_deg},
-                     {"initial_deg", m.initial_deg}};
+                     {"initial_deg", m.initial_deg},
+                     {"retardance_error_deg", m.retardance_error_deg},
+                     {"axis_offset_sd_deg", m.axis_offset_sd_deg},
+                     {"repeatability_sd_deg", m.repeatability_sd_deg}};
 }
 
 Motor motor_from_json(const JsonField& m) {
@@ -35,6 +38,12 @@ Motor motor_from_json(const JsonField& m) {
   motor.backlash = m["backlash"].choice({Backlash::shortest, Backlash::from_below});
   motor.overshoot_deg = m["overshoot_deg"].number();
   motor.initial_deg = m["initial_deg"].number();
+  // Plate imperfections: optional, 0 when absent (docs/plan-files.md).
+  if (m.has("retardance_error_deg"))
+    motor.retardance_error_deg = m["retardance_error_deg"].number();
+  if (m.has("axis_offset_sd_deg")) motor.axis_offset_sd_deg = m["axis_offset_sd_deg"].number();
+  if (m.has("repeatability_sd_deg"))
+    motor.repeatability_sd_deg = m["repeatability_sd_deg"].number();
   return motor;
 }
 
