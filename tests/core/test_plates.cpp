@@ -4,6 +4,7 @@
 
 #include <cmath>
 #include <complex>
+#include <iostream>
 #include <numbers>
 #include <random>
 
@@ -157,35 +158,38 @@ TEST(Plates, CompensationReproducesTheIdealKernelOnTheActualPlates) {
   const Plan raw = quick_plan(c);
   EXPECT_GT(raw.summary.kernel_bias_max, 1e-3);
   EXPECT_GT(raw.summary.kernel_bias_frobenius, raw.summary.kernel_bias_max);
-  for (const Step& s : raw.steps)
+  for (const Step& s : raw.steps) {
     if (s.kind == StepKind::measure)
       ASSERT_NEAR(textbook_kernel(c.rig, photons, s.position_deg), s.kernel_rig, 1e-12);
+  }
 }
 
 TEST(Plates, LeakageIsWhatCompensationLeaves) {
-  // With a leaking PBS each photon's pass probability is L + (1 - 2L) k (docs/conventions.md):
-  // compensation cannot remove that, and kernel_rig says so.
+  // With a leaking PBS each photon passes with probability L + (1 - 2L) k, k its ideal overlap
+  // (docs/conventions.md): compensation cannot remove that, and kernel_rig says so.
   Campaign c = imperfect_demo();
-  c.rig.detectors[0].pbs_leakage = 0.01;
-  c.rig.detectors[1].pbs_leakage = 0.02;
+  const double leak[2] = {0.01, 0.02};
+  c.rig.detectors[0].pbs_leakage = leak[0];
+  c.rig.detectors[1].pbs_leakage = leak[1];
   const Plan plan = quick_plan(c);
   int checked = 0;
   for (const Step& s : plan.steps) {
-    if (s.kind != StepKind::measure) continue;
-    double product = 1.0;
-    const std::vector<double> per_photon = {0, 0};
-    (void)per_photon;
+    if (s.kind != StepKind::measure && s.kind != StepKind::reference) continue;
     ASSERT_NEAR(textbook_kernel(c.rig, 2, s.position_deg), s.kernel_rig, 1e-12);
-    // Bounds from L + (1 - 2L) k with k the ideal factor in [0, 1].
-    product = s.kernel_rig;
-    EXPECT_GE(product, 0.01 * 0.02 - 1e-12);
+    // The ideal overlaps straight from the encoding's states.
+    double expected = 1.0;
+    for (int p = 0; p < 2; ++p) {
+      const BlochAngles a = c.encoding.angles(p, c.data.point(s.prep_point));
+      const BlochAngles b = c.encoding.angles(p, c.data.point(s.analysis_point));
+      const double k =
+          overlap(bloch_state(b.theta_deg, b.phi_deg), bloch_state(a.theta_deg, a.phi_deg));
+      expected *= leak[p] + (1.0 - 2.0 * leak[p]) * k;
+    }
+    ASSERT_NEAR(s.kernel_rig, expected, 1e-9) << "step " << checked;
     ++checked;
   }
-  EXPECT_GT(checked, 100);
+  EXPECT_GT(checked, 1000);
   EXPECT_GT(plan.summary.kernel_bias_max, 0.005);
-  // A reference step (kernel 1): (1 - 0.01)(1 - 0.02).
-  for (const Step& s : plan.steps)
-    if (s.kind == StepKind::reference) EXPECT_NEAR(s.kernel_rig, 0.99 * 0.98, 1e-9);
 }
 
 TEST(Plates, PredictedSpreadFromOffsetsAgreesWithSimulatedSpread) {
@@ -225,6 +229,8 @@ TEST(Plates, PredictedSpreadFromOffsetsAgreesWithSimulatedSpread) {
   const double mean = sum_z / count;
   const double sd_z = std::sqrt(sum_z2 / count - mean * mean);
   // 16000 draws: the standard error of the sd is about 1/sqrt(2 * 16000) = 0.6 %.
+  std::cout << "plate offsets: sd of z " << sd_z << ", mean " << mean << " over " << count
+            << " draws\n";
   EXPECT_NEAR(sd_z, 1.0, 0.05) << "sd of z " << sd_z;
   EXPECT_NEAR(mean, 0.0, 0.05);
 }
@@ -247,7 +253,7 @@ TEST(Plates, MarginCheckDrawsTheOffsetsEveryTrial) {
   const Step& s = plan.steps[plan.step_of_train(i, j)];
   const double sd = kernel_spread_sd(c.rig, rig_kernel_gradient(c.rig, 2, s.position_deg));
   ASSERT_GT(sd, 1e-3);
-  const int trials = 3000;
+  const int trials = 1000;
   double sum = 0.0, sum_sq = 0.0;
   Eigen::MatrixXd train, test;
   for (int t = 0; t < trials; ++t) {
@@ -257,7 +263,9 @@ TEST(Plates, MarginCheckDrawsTheOffsetsEveryTrial) {
   }
   const double mean = sum / trials;
   const double spread = std::sqrt(sum_sq / trials - mean * mean);
-  EXPECT_NEAR(spread / sd, 1.0, 0.08) << spread << " vs " << sd;
+  // 1000 trials: the standard error of the ratio is about 1/sqrt(2000) = 2.2 %.
+  std::cout << "margin draws: simulated spread " << spread << ", predicted " << sd << "\n";
+  EXPECT_NEAR(spread / sd, 1.0, 0.1) << spread << " vs " << sd;
   EXPECT_NEAR(mean, s.kernel_rig, 4.0 * sd / std::sqrt(trials) + 1e-4);
   EXPECT_GT(std::abs(s.kernel_rig - s.kernel_ideal), 4.0 * sd / std::sqrt(trials));
   (void)n;
