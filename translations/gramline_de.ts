@@ -244,7 +244,7 @@
         <translation>%1 %</translation>
     </message>
     <message>
-        <location filename="../app/gui/hand_off.cpp" line="+35"/>
+        <location filename="../app/gui/hand_off.cpp" line="+36"/>
         <source>Gramline bundle (*.zip);;All files (*)</source>
         <translation>Gramline-Bündel (*.zip);;Alle Dateien (*)</translation>
     </message>
@@ -842,7 +842,7 @@
         <translation>Die Schritte, die eine unvollständige Nacht nicht gezählt hat, als neues Bündel planen</translation>
     </message>
     <message>
-        <location line="+35"/>
+        <location line="+40"/>
         <source>No current plan</source>
         <translation>Kein aktueller Plan</translation>
     </message>
@@ -874,7 +874,7 @@
     </message>
     <message>
         <location line="+9"/>
-        <location line="+136"/>
+        <location line="+168"/>
         <source>The bundle %1 was not written.
 
 %2</source>
@@ -883,7 +883,7 @@
 %2</translation>
     </message>
     <message>
-        <location line="-117"/>
+        <location line="-149"/>
         <source>Ingest Counts: Choose the Bundle the Rig Ran</source>
         <translation>Zähldaten einlesen: Bündel wählen, das der Aufbau ausgeführt hat</translation>
     </message>
@@ -898,7 +898,7 @@
         <translation>%1 wird eingelesen…</translation>
     </message>
     <message>
-        <location line="-130"/>
+        <location line="-135"/>
         <source>Cannot ingest the counts</source>
         <translation>Die Zähldaten können nicht eingelesen werden</translation>
     </message>
@@ -912,7 +912,7 @@
 %1</translation>
     </message>
     <message>
-        <location line="+141"/>
+        <location line="+146"/>
         <source>Ingested %1: %2 of %3 entries measured.</source>
         <translation>%1 eingelesen: %2 von %3 Einträgen gemessen.</translation>
     </message>
@@ -927,12 +927,12 @@
         <translation>Fortsetzen: unvollständige Zähldatei für %1 wählen</translation>
     </message>
     <message>
-        <location line="+6"/>
+        <location line="+38"/>
         <source>Planning the rest after %1…</source>
         <translation>Der Rest nach %1 wird geplant…</translation>
     </message>
     <message>
-        <location line="-152"/>
+        <location line="-189"/>
         <source>Cannot resume</source>
         <translation>Fortsetzen nicht möglich</translation>
     </message>
@@ -946,7 +946,46 @@
 %1</translation>
     </message>
     <message>
-        <location line="+163"/>
+        <location line="+20"/>
+        <source>Rehearse with a Simulated &amp;Rig…</source>
+        <translation>&amp;Probelauf mit simuliertem Aufbau…</translation>
+    </message>
+    <message>
+        <location line="+2"/>
+        <source>Play a bundle against the rig model, save the counts it would record (marked as simulated) and ingest them, to try the hand-off before booking the laser</source>
+        <translation>Ein Bündel gegen das Modell des Aufbaus abspielen, die Zähldaten speichern, die er aufzeichnen würde (als simuliert markiert), und sie einlesen, um die Übergabe vor der Buchung des Lasers zu erproben</translation>
+    </message>
+    <message>
+        <location line="+135"/>
+        <source>Rehearse: Choose the Bundle to Play</source>
+        <translation>Probelauf: Bündel zum Abspielen wählen</translation>
+    </message>
+    <message>
+        <location line="+5"/>
+        <source>Rehearse: Save the Simulated Counts</source>
+        <translation>Probelauf: Simulierte Zähldaten speichern</translation>
+    </message>
+    <message>
+        <location line="+1"/>
+        <source>-simulated</source>
+        <translation>-simuliert</translation>
+    </message>
+    <message>
+        <location line="+16"/>
+        <source>Cannot rehearse</source>
+        <translation>Probelauf nicht möglich</translation>
+    </message>
+    <message>
+        <location line="+0"/>
+        <source>No counts file was written.
+
+%1</source>
+        <translation>Es wurde keine Zähldatei geschrieben.
+
+%1</translation>
+    </message>
+    <message>
+        <location line="+21"/>
         <source>Resume from Counts</source>
         <translation>Aus Zähldaten fortsetzen</translation>
     </message>
@@ -1754,7 +1793,7 @@
         <translation>z</translation>
     </message>
     <message>
-        <location line="+68"/>
+        <location line="+70"/>
         <source>Measured %1 of %2 entries. The z-scores have mean %3 and standard deviation %4; when the predicted errors are right they are near 0 and 1.</source>
         <translation>%1 von %2 Einträgen gemessen. Die z-Werte haben den Mittelwert %3 und die Standardabweichung %4; wenn die vorhergesagten Fehler stimmen, liegen sie nahe 0 und 1.</translation>
     </message>
@@ -1769,6 +1808,11 @@
 Bundle: %2</source>
         <translation>Zähldaten: %1
 Bündel: %2</translation>
+    </message>
+    <message>
+        <location line="+3"/>
+        <source>These are simulated counts, drawn from the rig model, not a rig&apos;s.</source>
+        <translation>Dies sind simulierte Zähldaten aus dem Modell des Aufbaus, keine gemessenen.</translation>
     </message>
     <message>
         <location line="+4"/>

@@ -58,6 +58,15 @@ struct ResumeRequest {
   bool force = false;
 };
 
+struct SimulateRequest {
+  std::string bundle_path;
+  std::string out_path;
+  std::optional<std::uint64_t> seed;  ///< default: the bundle's seed
+  double fade_per_hour = 0.0;
+  std::optional<double> stop_after_hours;
+  bool force = false;
+};
+
 int run_demo(const DemoRequest& request);
 int run_plan(const PlanRequest& request);
 /// The margin check (cmd_check.cpp).
@@ -66,6 +75,8 @@ int run_check(const CheckRequest& request);
 int run_export(const ExportRequest& request);
 int run_ingest(const IngestRequest& request);
 int run_resume(const ResumeRequest& request);
+/// A rehearsal: counts drawn from the rig model for a bundle (cmd_simulate.cpp).
+int run_simulate(const SimulateRequest& request);
 
 /// Loads the campaign file and, with `data_path`, replaces its points by the data CSV. Throws
 /// formats::InputError naming the file, line or field; also when the campaign's encoding does

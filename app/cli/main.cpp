@@ -7,6 +7,7 @@
 #include <QStringList>
 #include <algorithm>
 #include <charconv>
+#include <cmath>
 #include <exception>
 #include <iostream>
 #include <optional>
@@ -36,8 +37,17 @@ const OptionEntry kOptions[] = {
      "               +1) and an optional 'set' column (train or test; default train)\n"},
     {"seed", "N", "  --seed N     seed of the random choices (default: the campaign's seed)\n"},
     {"trials", "N", "  --trials N   simulated repetitions of the margin check\n"},
+    {"fade-per-hour", "F",
+     "  --fade-per-hour F\n"
+     "               (simulate) the pair rate falls by the fraction F (0 <= F < 1) per hour of\n"
+     "               the plan's clock, as a drifting source would (default 0)\n"},
+    {"stop-after-hours", "H",
+     "  --stop-after-hours H\n"
+     "               (simulate) the night ends H hours after the first step starts, as an\n"
+     "               interruption would; later steps get no counts (default: no stop)\n"},
     {"out", "PATH",
-     "  --out        output file (demo, check, export, resume) or directory (plan, ingest)\n"},
+     "  --out        output file (demo, check, export, resume, simulate) or directory (plan,\n"
+     "               ingest)\n"},
     {"force", "",
      "  --force      replace existing output files (otherwise they are left untouched)\n"},
 };
@@ -101,6 +111,14 @@ const std::vector<CommandEntry>& commands() {
        "the new bundle names its parent.\n",
        {"out", "force"},
        "the new bundle (a zip file) to write"},
+      {"simulate",
+       "simulate BUNDLE --out COUNTS [--seed N] [--fade-per-hour F] [--stop-after-hours H]\n"
+       "           [--force]",
+       "Rehearse the night without the rig: draw the counts a rig following the bundle's\n"
+       "steps would record from the rig model and write them as a counts file marked as\n"
+       "simulated, ready for ingest or resume. The seed defaults to the bundle's.\n",
+       {"out", "seed", "fade-per-hour", "stop-after-hours", "force"},
+       "the counts file to write"},
   };
   return table;
 }
@@ -164,6 +182,20 @@ std::string command_help(const CommandEntry& c) {
   text += "\n";
   text += kExitStatusHelp;
   return text;
+}
+
+/// A finite decimal number in [low, high] (high_open: below high) for a command's option.
+double real_number(const std::string& command, const std::string& option, const std::string& text,
+                   double low, double high, bool high_open, const char* what) {
+  double value = 0.0;
+  const char* end = text.data() + text.size();
+  const auto result = std::from_chars(text.data(), end, value);
+  if (text.empty() || result.ec != std::errc() || result.ptr != end || !std::isfinite(value) ||
+      value < low || value > high || (high_open && value == high)) {
+    throw InputError("gramline-cli " + command + ": option " + option + ": '" + text + "' is not " +
+                     what);
+  }
+  return value;
 }
 
 template <class T>
@@ -362,6 +394,20 @@ int dispatch(const QStringList& argv) {
     request.out_path = line.required("out", "FILE.zip");
     request.seed = line.seed();
     return gramline::cli::run_export(request);
+  }
+  if (name == "simulate") {
+    gramline::cli::SimulateRequest request;
+    request.bundle_path = line.positional(1, "the bundle")[0];
+    request.out_path = line.required("out", "COUNTS");
+    request.seed = line.seed();
+    if (auto f = line.value("fade-per-hour"))
+      request.fade_per_hour = real_number(name, "--fade-per-hour", *f, 0.0, 1.0, true,
+                                          "a fraction of at least 0 and below 1");
+    if (auto h = line.value("stop-after-hours"))
+      request.stop_after_hours =
+          real_number(name, "--stop-after-hours", *h, 0.0, 1e6, false, "a number of hours >= 0");
+    request.force = line.flag("force");
+    return gramline::cli::run_simulate(request);
   }
   // ingest and resume: a bundle and a counts file in.
   const std::vector<std::string> inputs = line.positional(2, "the bundle and the counts file");

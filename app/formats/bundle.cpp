@@ -352,6 +352,7 @@ Bundle parse_bundle(const std::string& zip_bytes, const std::string& source,
                        kMeasuredStepsEntry);
     b.measured_steps = std::move(measured.steps);
     b.measured_records = std::move(check.records);
+    b.measured_simulated_note = counts.simulated_note;
   }
   return b;
 }

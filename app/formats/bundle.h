@@ -132,6 +132,9 @@ struct Bundle {
   /// measured_steps, times on one clock). Empty otherwise.
   std::vector<Step> measured_steps;
   std::vector<StepRecord> measured_records;
+  /// Resumed bundles whose earlier counts were simulated: the note of measured_counts.csv's
+  /// simulated mark (docs/counts-format.md); empty for counts from a rig.
+  std::string measured_simulated_note;
 };
 
 /// Reads a bundle from memory: unzips it safely, checks that the manifest lists exactly the

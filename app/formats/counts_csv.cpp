@@ -239,7 +239,16 @@ CountsFile parse_counts_csv(const std::string& text, const std::string& source,
     ++line;
     if (!l.empty() && l.back() == '\r') l.remove_suffix(1);
     if (line == 1 && l.size() >= 3 && l.substr(0, 3) == "\xEF\xBB\xBF") l.remove_prefix(3);
-    if (trim(l).empty() || trim(l).front() == '#') continue;
+    if (trim(l).empty()) continue;
+    if (trim(l).front() == '#') {
+      const std::string_view mark(kSimulatedMark);
+      const std::string_view t = trim(l);
+      if (!have_header && t.substr(0, mark.size()) == mark) {
+        const std::string_view note = trim(t.substr(mark.size()));
+        out.simulated_note = note.empty() ? std::string("no details") : std::string(note);
+      }
+      continue;
+    }
     if (!have_header) {
       parser.header(l, line);
       have_header = true;
@@ -317,11 +326,18 @@ std::string CountsCheck::report() const {
   return o.str();
 }
 
+std::string simulated_counts_text(const std::string& simulated_note) {
+  return simulated_note.empty() ? std::string() : "simulated counts (" + simulated_note + ")";
+}
+
 std::string format_counts_csv(const std::vector<StepRecord>& records,
-                              const std::vector<Step>& steps, const CountsLayout& layout) {
+                              const std::vector<Step>& steps, const CountsLayout& layout,
+                              const std::string& simulated_note) {
   const bool singles = std::any_of(records.begin(), records.end(),
                                    [](const StepRecord& r) { return !r.singles_per_s.empty(); });
-  std::string out = "step,kind,start_s,end_s";
+  std::string out;
+  if (!simulated_note.empty()) out += std::string(kSimulatedMark) + " " + simulated_note + "\n";
+  out += "step,kind,start_s,end_s";
   for (int k = 0; k < layout.channels; ++k) out += ",ch" + std::to_string(k);
   if (singles)
     for (int p = 0; p < layout.photons; ++p) out += ",singles" + std::to_string(p) + "_per_s";

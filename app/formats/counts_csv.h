@@ -29,11 +29,21 @@ struct CountsRow {
   int line = 0;  ///< 1-based line in the file
 };
 
+/// The comment that marks a counts file as drawn from the rig model rather than measured
+/// (docs/counts-format.md, "Simulated counts"); it comes before the header.
+inline constexpr const char* kSimulatedMark = "# simulated:";
+
 struct CountsFile {
   std::string source;  ///< file name used in messages
   std::vector<CountsRow> rows;
   bool has_singles_columns = false;
+  /// Simulated counts: what follows kSimulatedMark, trimmed (never empty for a marked file).
+  std::string simulated_note;
+  bool simulated() const { return !simulated_note.empty(); }
 };
+
+/// "simulated counts (NOTE)" for a marked file, else empty: the words every report uses.
+std::string simulated_counts_text(const std::string& simulated_note);
 
 /// Parses counts CSV text. Throws InputError "SOURCE: line L, column C (NAME): ..." for: no
 /// header, an unknown, repeated or missing column, channel columns that do not match the
@@ -65,8 +75,10 @@ struct CountsCheck {
 /// dark steps are accepted (and unused by the kernel); park steps count nothing.
 CountsCheck check_counts(const CountsFile& counts, const std::vector<Step>& steps);
 
-/// Counts CSV text for `records` (writer of the format; used by tests and simulations).
+/// Counts CSV text for `records` (writer of the format; used by tests and simulations). With a
+/// `simulated_note`, the kSimulatedMark line comes first, before the header.
 std::string format_counts_csv(const std::vector<StepRecord>& records,
-                              const std::vector<Step>& steps, const CountsLayout& layout);
+                              const std::vector<Step>& steps, const CountsLayout& layout,
+                              const std::string& simulated_note = {});
 
 }  // namespace gramline::formats

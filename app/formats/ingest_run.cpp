@@ -51,6 +51,8 @@ IngestRun ingest_counts(const Bundle& bundle, const CountsFile& counts, const Wo
   run.bundle_source = bundle.source;
   run.counts_source = counts.source;
   run.manifest_sha256 = bundle.manifest_sha256;
+  run.simulated_note = counts.simulated_note;
+  run.earlier_simulated_note = bundle.measured_simulated_note;
   run.check = check_counts(counts, bundle.steps.steps);
   if (!run.check.consistent())
     throw InputError(run.check.report() + counts.source + ": the counts do not fit the steps of " +
@@ -89,8 +91,14 @@ std::string IngestRun::report() const {
   std::ostringstream o;
   o.precision(4);
   o << "Bundle " << bundle_source << ", counts " << counts_source << "\n";
+  if (!simulated_note.empty())
+    o << "These are " << simulated_counts_text(simulated_note) << ", not a rig's\n";
   if (earlier_steps > 0)
-    o << earlier_steps << " steps carried from earlier bundles are ingested with these counts\n";
+    o << earlier_steps << " steps carried from earlier bundles are ingested with these counts"
+      << (earlier_simulated_note.empty()
+              ? std::string()
+              : "; they are " + simulated_counts_text(earlier_simulated_note))
+      << "\n";
   if (!check.missing.empty()) {
     o << check.missing.size() << " step(s) of the bundle have no counts:";
     for (size_t i = 0; i < std::min<size_t>(check.missing.size(), 20); ++i)
@@ -147,6 +155,9 @@ std::string format_ingest_json(const IngestRun& run) {
                       {"bundle", q(run.bundle_source)},
                       {"bundle_manifest_sha256", q(run.manifest_sha256)},
                       {"counts", q(run.counts_source)},
+                      {"simulated", !run.simulated_note.empty()},
+                      {"simulated_note", q(run.simulated_note)},
+                      {"earlier_simulated", !run.earlier_simulated_note.empty()},
                       {"earlier_steps", run.earlier_steps},
                       {"measured_entries", r.measured_entries},
                       {"expected_entries", r.expected_entries},

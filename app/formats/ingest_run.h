@@ -26,6 +26,10 @@ struct IngestRun : MeasuredClassifier {
   Plan plan;              ///< the bundle's steps (after any earlier measured steps), as ingested
   int earlier_steps = 0;  ///< steps carried from earlier bundles (resumed bundle), first in plan
   CountsCheck check;      ///< of the new counts against the bundle's own steps
+  /// The counts file's simulated mark (docs/counts-format.md), empty for counts from a rig; and
+  /// that of the counts carried from earlier bundles.
+  std::string simulated_note;
+  std::string earlier_simulated_note;
   IngestResult result;
   std::string report() const;
 };

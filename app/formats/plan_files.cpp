@@ -11,6 +11,7 @@
 #include "formats/json_field.h"
 #include "formats/rig_json.h"
 #include "formats/text_io.h"
+#include "gramline/motor_units.h"
 
 namespace gramline::formats {
 namespace {
@@ -114,6 +115,8 @@ std::string format_steps_json(const Rig& rig, const std::vector<Step>& steps) {
 std::string format_steps_csv(const Rig& rig, const std::vector<Step>& steps) {
   std::string out = "index,kind,block,prep_point,analysis_point";
   for (const Motor& m : rig.motors) out += "," + csv_field(m.name + "_deg");
+  for (const Motor& m : rig.motors)
+    if (has_motor_units(m)) out += "," + csv_field(m.name + "_steps");
   out += ",kernel_ideal,kernel_rig,p_pass,pairs,dwell_s,move_s,start_s,night\n";
   auto point = [](int index) { return index < 0 ? std::string() : std::to_string(index); };
   for (size_t i = 0; i < steps.size(); ++i) {
@@ -123,6 +126,12 @@ std::string format_steps_csv(const Rig& rig, const std::vector<Step>& steps) {
     for (size_t m = 0; m < rig.motors.size(); ++m) {
       out += ",";
       if (m < s.position_deg.size()) out += exact_number_text(s.position_deg[m]);
+    }
+    for (size_t m = 0; m < rig.motors.size(); ++m) {
+      if (!has_motor_units(rig.motors[m])) continue;
+      out += ",";
+      if (m < s.position_deg.size())
+        out += std::to_string(motor_steps(rig.motors[m], s.position_deg[m]));
     }
     for (double v :
          {s.kernel_ideal, s.kernel_rig, s.p_pass, s.pairs, s.dwell_s, s.move_s, s.start_s}) {
@@ -170,6 +179,8 @@ std::string format_summary_json(const Campaign& campaign, const Plan& plan) {
                 {"p_negative_eigenvalue", g.p_negative_eigenvalue},
                 {"epsilon_reached", s.epsilon_reached},
                 {"truncation_cost_s", s.truncation_cost_s},
+                {"kernel_rounding_max",
+                 kernel_rounding_max(campaign.rig, campaign.encoding.photon_count(), plan.steps)},
                 {"fits", s.fits},
                 {"max_nights", campaign.nights.max_nights},
                 {"night_use", nights},

@@ -18,6 +18,7 @@ ResumeRun plan_resume(const Bundle& bundle, const CountsFile& counts, const Work
   ResumeRun run;
   run.campaign = c;
   run.campaign.seed = bundle.manifest.seed;
+  run.simulated_note = counts.simulated() ? counts.simulated_note : bundle.measured_simulated_note;
   const CountsCheck check = check_counts(counts, bundle.steps.steps);
   if (!check.consistent())
     throw InputError(check.report() + counts.source + ": the counts do not fit the steps of " +
@@ -77,6 +78,8 @@ ResumeRun plan_resume(const Bundle& bundle, const CountsFile& counts, const Work
 
 std::string ResumeRun::report() const {
   std::ostringstream o;
+  if (!simulated_note.empty())
+    o << "The counts kept are " << simulated_counts_text(simulated_note) << ", not a rig's\n";
   o << measured_entries << " entries measured so far (" << measured_records.size()
     << " counted steps kept); " << remaining_entries << " remain and are planned from the "
     << (state.start_positions_deg.empty() ? "initial" : "last counted") << " motor positions\n";
@@ -93,8 +96,8 @@ BundleWritten write_resumed_bundle(const ResumeRun& run, const Bundle& parent,
       BundleParent{QFileInfo(parent_path).fileName().toStdString(), parent.manifest_sha256};
   const Rig& rig = run.campaign.rig;
   options.extra_entries[kMeasuredStepsEntry] = format_steps_json(rig, run.measured_steps);
-  options.extra_entries[kMeasuredCountsEntry] =
-      format_counts_csv(run.measured_records, run.measured_steps, counts_layout(run.campaign));
+  options.extra_entries[kMeasuredCountsEntry] = format_counts_csv(
+      run.measured_records, run.measured_steps, counts_layout(run.campaign), run.simulated_note);
   QJsonObject positions;
   for (size_t k = 0; k < rig.motors.size() && k < run.state.start_positions_deg.size(); ++k)
     positions[QString::fromStdString(rig.motors[k].name)] = run.state.start_positions_deg[k];
@@ -107,6 +110,7 @@ BundleWritten write_resumed_bundle(const ResumeRun& run, const Bundle& parent,
       {"parent_manifest_sha256", QString::fromStdString(options.parent->manifest_sha256)},
       {"measured_entries", run.measured_entries},
       {"remaining_entries", run.remaining_entries},
+      {"simulated_counts", !run.simulated_note.empty()},
       {"start_position_deg", positions},
       {"measured", measured}};
   const QByteArray text = QJsonDocument(resume).toJson(QJsonDocument::Indented);

@@ -19,6 +19,9 @@ struct ResumeRun {
   int measured_entries = 0;
   int remaining_entries = 0;
   Plan plan;  ///< the remaining entries only
+  /// Simulated mark of the counts kept (this counts file's, else the earlier bundles'); empty
+  /// when every kept count came from a rig (docs/counts-format.md).
+  std::string simulated_note;
   std::string report() const;
 };
 

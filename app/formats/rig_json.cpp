@@ -7,19 +7,24 @@ namespace gramline::formats {
 QJsonObject motor_to_json(const Motor& m) {
   QJsonValue range = QJsonValue::Null;
   if (m.range) range = QJsonArray{m.range->low_deg, m.range->high_deg};
-  return QJsonObject{{"name", QString::fromStdString(m.name)},
-                     {"photon", m.photon},
-                     {"stage", QString::fromStdString(to_string(m.stage))},
-                     {"plate", QString::fromStdString(to_string(m.plate))},
-                     {"speed_deg_per_s", m.speed_deg_per_s},
-                     {"accel_deg_per_s2", m.accel_deg_per_s2},
-                     {"range_deg", range},
-                     {"backlash", QString::fromStdString(to_string(m.backlash))},
-                     {"overshoot_deg", m.overshoot_deg},
-                     {"initial_deg", m.initial_deg},
-                     {"retardance_error_deg", m.retardance_error_deg},
-                     {"axis_offset_sd_deg", m.axis_offset_sd_deg},
-                     {"repeatability_sd_deg", m.repeatability_sd_deg}};
+  QJsonObject o{{"name", QString::fromStdString(m.name)},
+                {"photon", m.photon},
+                {"stage", QString::fromStdString(to_string(m.stage))},
+                {"plate", QString::fromStdString(to_string(m.plate))},
+                {"speed_deg_per_s", m.speed_deg_per_s},
+                {"accel_deg_per_s2", m.accel_deg_per_s2},
+                {"range_deg", range},
+                {"backlash", QString::fromStdString(to_string(m.backlash))},
+                {"overshoot_deg", m.overshoot_deg},
+                {"initial_deg", m.initial_deg},
+                {"retardance_error_deg", m.retardance_error_deg},
+                {"axis_offset_sd_deg", m.axis_offset_sd_deg},
+                {"repeatability_sd_deg", m.repeatability_sd_deg}};
+  // Motor units (docs/plan-files.md): written only when used, so files without them stay as
+  // they were.
+  if (m.steps_per_deg) o["steps_per_deg"] = *m.steps_per_deg;
+  if (m.steps_per_deg || m.zero_offset_deg != 0.0) o["zero_offset_deg"] = m.zero_offset_deg;
+  return o;
 }
 
 Motor motor_from_json(const JsonField& m) {
@@ -44,6 +49,11 @@ Motor motor_from_json(const JsonField& m) {
   if (m.has("axis_offset_sd_deg")) motor.axis_offset_sd_deg = m["axis_offset_sd_deg"].number();
   if (m.has("repeatability_sd_deg"))
     motor.repeatability_sd_deg = m["repeatability_sd_deg"].number();
+  // Optional motor units (docs/plan-files.md): no steps_per_deg, no step column; offset 0.
+  // Their limits are checked with the rest of the rig (Rig::check).
+  if (m.has("steps_per_deg") && !m["steps_per_deg"].is_null())
+    motor.steps_per_deg = m["steps_per_deg"].number();
+  if (m.has("zero_offset_deg")) motor.zero_offset_deg = m["zero_offset_deg"].number();
   return motor;
 }
 

@@ -22,6 +22,7 @@
 #include <exception>
 #include <stdexcept>
 
+#include "formats/simulate_run.h"
 #include "gui_text.h"
 #include "measured_view.h"
 #include "plan_runner.h"
@@ -142,7 +143,12 @@ void HandOff::add_actions(QMenu* menu) {
   QAction* resume_a = menu->addAction(tr("Res&ume from Counts…"));
   resume_a->setStatusTip(tr("Plan the steps a partial night did not count, as a new bundle"));
   connect(resume_a, &QAction::triggered, this, [this] { resume(); });
-  actions_ = {bundle, ingest_a, resume_a};
+  QAction* rehearse_a = menu->addAction(tr("Rehearse with a Simulated &Rig…"));
+  rehearse_a->setStatusTip(
+      tr("Play a bundle against the rig model, save the counts it would record (marked as "
+         "simulated) and ingest them, to try the hand-off before booking the laser"));
+  connect(rehearse_a, &QAction::triggered, this, [this] { rehearse(); });
+  actions_ = {bundle, ingest_a, resume_a, rehearse_a};
 }
 
 QString HandOff::last_dir() const {
@@ -269,6 +275,38 @@ void HandOff::resume() {
       choose_bundle_and_counts(tr("Resume: Choose the Bundle the Rig Ran"),
                                tr("Resume: Choose the Partial Counts File for %1"), bundle, counts))
     resume_files(bundle, counts);
+}
+
+void HandOff::rehearse() {
+  if (busy()) return;
+  const QString bundle = QFileDialog::getOpenFileName(
+      window_, tr("Rehearse: Choose the Bundle to Play"), last_dir(), gui_tr(kBundleFilter));
+  if (bundle.isEmpty()) return;
+  remember_dir(bundle);
+  const QFileInfo info(bundle);
+  const QString counts = QFileDialog::getSaveFileName(
+      window_, tr("Rehearse: Save the Simulated Counts"),
+      info.absoluteDir().filePath(info.completeBaseName() + tr("-simulated") + ".csv"),
+      gui_tr(kCountsFilter));
+  if (!counts.isEmpty()) rehearse_files(bundle, counts);
+}
+
+bool HandOff::rehearse_files(const QString& bundle_path, const QString& counts_path) {
+  if (busy()) return false;
+  try {
+    const formats::Bundle bundle = formats::read_bundle(bundle_path);
+    CountSimulationOptions options;
+    options.seed = bundle.manifest.seed;
+    const formats::SimulatedNight night =
+        formats::simulate_night(bundle, QFileInfo(bundle_path).fileName().toStdString(), options);
+    // The save dialog already asked before replacing an existing file.
+    formats::write_simulated_counts(night, counts_path, formats::Overwrite::allow);
+  } catch (const std::exception& e) {
+    show_error(tr("Cannot rehearse"), tr("No counts file was written.\n\n%1").arg(message_of(e)));
+    return false;
+  }
+  ingest_files(bundle_path, counts_path);
+  return true;
 }
 
 void HandOff::resume_files(const QString& bundle_path, const QString& counts_path) {

@@ -72,6 +72,14 @@ class HandOff : public QObject {
   bool save_resumed_to(const QString& path);
   std::shared_ptr<const formats::ResumeRun> last_resume() const { return resumed_.run; }
 
+  /// File ▸ Rehearse with a Simulated Rig…: choose a bundle and where its simulated counts go,
+  /// then rehearse_files.
+  void rehearse();
+  /// Draws the counts a rig following the bundle would record from the rig model
+  /// (formats::simulate_night, the bundle's seed), writes them to `counts_path` marked as
+  /// simulated and ingests them like a rig's. False (after telling the user) on failure.
+  bool rehearse_files(const QString& bundle_path, const QString& counts_path);
+
   bool busy() const { return ingest_->busy() || resume_->busy(); }
   /// The last error shown to the user (empty after a success).
   QString last_error() const { return last_error_; }

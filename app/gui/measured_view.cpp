@@ -196,6 +196,8 @@ QString MeasuredView::figure(const QString& key) const { return figures_->value(
 
 QString MeasuredView::headline() const { return headline_->text(); }
 
+QString MeasuredView::sources() const { return sources_->text(); }
+
 int MeasuredView::outlier_rows() const { return outliers_->rowCount(); }
 
 void MeasuredView::set_run(std::shared_ptr<const formats::IngestRun> run) {
@@ -222,6 +224,9 @@ void MeasuredView::set_run(std::shared_ptr<const formats::IngestRun> run) {
                         .arg(QFileInfo(counts).fileName(), QFileInfo(bundle).fileName(),
                              QString::fromStdString(g.manifest_sha256.substr(0, 12))));
   sources_->setToolTip(tr("Counts: %1\nBundle: %2").arg(counts, bundle));
+  if (!g.simulated_note.empty() || !g.earlier_simulated_note.empty())
+    sources_->setText(sources_->text() + " " +
+                      tr("These are simulated counts, drawn from the rig model, not a rig's."));
 
   QString entries_note;
   if (g.unmeasured_train + g.unmeasured_test > 0)

@@ -33,6 +33,8 @@ class MeasuredView : public QWidget {
   /// "drifted", "accuracy", "psd". Empty for an unknown key.
   QString figure(const QString& key) const;
   QString headline() const;
+  /// Where the counts came from (and whether they were simulated), as shown.
+  QString sources() const;
   int outlier_rows() const;
   /// Number of z-scores in the histogram, and of reference steps in the drift charts.
   int histogram_count() const { return histogram_count_; }

@@ -51,6 +51,10 @@ std::string Rig::check(int photons) const {
       return where + ".axis_offset_sd_deg: must be within 0..5 deg";
     if (!(mo.repeatability_sd_deg >= 0.0 && mo.repeatability_sd_deg <= 1.0))
       return where + ".repeatability_sd_deg: must be within 0..1 deg";
+    if (mo.steps_per_deg && !(*mo.steps_per_deg > 0 && *mo.steps_per_deg <= 1e9))
+      return where + ".steps_per_deg: must be positive and at most 1e9";
+    if (!(std::abs(mo.zero_offset_deg) <= 1e6))
+      return where + ".zero_offset_deg: must be a finite number of degrees (at most 1e6 in size)";
     if (mo.range) {
       const double period = motor_period_deg(mo);
       if (!(mo.range->high_deg - mo.range->low_deg >= period)) {

@@ -1,5 +1,8 @@
 #pragma once
 // Runs the gramline-cli built beside the tests and collects its exit status and output.
+#include <QFile>
+#include <QJsonDocument>
+#include <QJsonObject>
 #include <QProcess>
 #include <QString>
 #include <QStringList>
@@ -26,6 +29,25 @@ inline CliRun run_cli(const QStringList& arguments) {
   run.out = process.readAllStandardOutput().toStdString();
   run.err = process.readAllStandardError().toStdString();
   return run;
+}
+
+/// The whole file, or empty when it cannot be read.
+inline std::string read_text(const QString& path) {
+  QFile f(path);
+  if (!f.open(QIODevice::ReadOnly)) return {};
+  return f.readAll().toStdString();
+}
+
+/// Writes the file whole; false when it cannot be written.
+inline bool write_text(const QString& path, const std::string& text) {
+  QFile f(path);
+  if (!f.open(QIODevice::WriteOnly)) return false;
+  return f.write(text.data(), static_cast<qint64>(text.size())) == static_cast<qint64>(text.size());
+}
+
+/// The JSON object in a file (empty when it is not one).
+inline QJsonObject read_json(const QString& path) {
+  return QJsonDocument::fromJson(QByteArray::fromStdString(read_text(path))).object();
 }
 
 }  // namespace cli_test

@@ -27,21 +27,9 @@ using namespace gramline;
 using cli_test::run_cli;
 using handoff_test::simulate_counts;
 
-std::string read_text(const QString& path) {
-  QFile f(path);
-  if (!f.open(QIODevice::ReadOnly)) return {};
-  return f.readAll().toStdString();
-}
-
-void write_text(const QString& path, const std::string& text) {
-  QFile f(path);
-  ASSERT_TRUE(f.open(QIODevice::WriteOnly));
-  f.write(text.data(), static_cast<qint64>(text.size()));
-}
-
-QJsonObject read_json(const QString& path) {
-  return QJsonDocument::fromJson(QByteArray::fromStdString(read_text(path))).object();
-}
+using cli_test::read_json;
+using cli_test::read_text;
+using cli_test::write_text;
 
 class Handoff : public ::testing::Test {
  protected:
@@ -64,8 +52,9 @@ class Handoff : public ::testing::Test {
   }
   static QString counts_file(const std::string& name, const std::vector<StepRecord>& records) {
     const QString path = dir_->filePath(QString::fromStdString(name));
-    write_text(path, formats::format_counts_csv(records, bundle_->steps.steps,
-                                                formats::counts_layout(bundle_->campaign)));
+    EXPECT_TRUE(
+        write_text(path, formats::format_counts_csv(records, bundle_->steps.steps,
+                                                    formats::counts_layout(bundle_->campaign))));
     return path;
   }
   static inline QTemporaryDir* dir_ = nullptr;
@@ -151,7 +140,7 @@ TEST_F(Handoff, ATamperedBundleIsRefusedNamingTheFile) {
   std::string& csv = entries["steps.csv"];
   csv[csv.size() / 2] = csv[csv.size() / 2] == '1' ? '2' : '1';
   const QString tampered = dir_->filePath("tampered.zip");
-  write_text(tampered, formats::zip_entries(entries, QDateTime::currentDateTimeUtc()));
+  ASSERT_TRUE(write_text(tampered, formats::zip_entries(entries, QDateTime::currentDateTimeUtc())));
   const QString counts =
       counts_file("few.csv", simulate_counts(bundle_->campaign, bundle_->steps.steps, 1));
   const auto run = run_cli({"ingest", tampered, counts, "--out", dir_->filePath("never")});
@@ -214,7 +203,7 @@ TEST_F(Handoff, ExportRefusesToOverwriteWithoutForce) {
   EXPECT_NE(run.err.find("night.zip"), std::string::npos) << run.err;
   EXPECT_EQ(read_text(bundle_path_), before);
   const QString other = dir_->filePath("other.zip");
-  write_text(other, "old");
+  ASSERT_TRUE(write_text(other, "old"));
   EXPECT_EQ(run_cli({"export", campaign_path_, "--out", other, "--force"}).status, 0);
   EXPECT_EQ(read_text(other).substr(0, 2), "PK");
 }
@@ -261,8 +250,8 @@ TEST_F(Handoff, ResumePlansTheRestFromTheLastPositionsAndNamesItsParent) {
   // Counts for the rest, then ingest the child: every entry measured, z-scores standard normal.
   const std::vector<StepRecord> rest = simulate_counts(c, child.steps.steps, 32);
   const QString rest_path = dir_->filePath("rest.csv");
-  write_text(rest_path,
-             formats::format_counts_csv(rest, child.steps.steps, formats::counts_layout(c)));
+  ASSERT_TRUE(write_text(
+      rest_path, formats::format_counts_csv(rest, child.steps.steps, formats::counts_layout(c))));
   const QString out = dir_->filePath("ingest child");
   const auto ingest = run_cli({"ingest", child_path, rest_path, "--out", out});
   ASSERT_EQ(ingest.status, 0) << ingest.err;

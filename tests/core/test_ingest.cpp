@@ -2,60 +2,25 @@
 #include <gtest/gtest.h>
 
 #include <cmath>
-#include <random>
 
 #include "gramline/demo.h"
 #include "gramline/detection.h"
 #include "gramline/ingest.h"
 #include "gramline/jones.h"
 #include "gramline/plan.h"
+#include "gramline/simulate.h"
 
 namespace gramline {
 namespace {
 
-// Draws the counts of every step from the rig model: the pass channel and the rest as
-// independent Poisson counts, which makes the pass count binomial given the total (the
-// standard Poisson-splitting fact, e.g. Feller, An Introduction to Probability Theory, vol. 1).
+// Counts of every step from the rig model, drawn by the engine's one simulator
+// (gramline/simulate.h); `fade_per_hour` lets the pair rate fall.
 std::vector<StepRecord> simulate(const Campaign& c, const Plan& plan, std::uint64_t seed,
-                                 double rate_scale_at_end = 1.0) {
-  std::mt19937_64 rng(seed);
-  const int photons = c.encoding.photon_count();
-  const double span = plan.summary.total_s > 0 ? plan.summary.total_s : 1.0;
-  std::vector<StepRecord> out;
-  for (size_t k = 0; k < plan.steps.size(); ++k) {
-    const Step& s = plan.steps[k];
-    if (s.kind == StepKind::dark || s.kind == StepKind::park) continue;
-    StepRecord r;
-    r.step = static_cast<int>(k);
-    r.start_s = s.start_s + s.move_s;
-    r.end_s = r.start_s + s.dwell_s;
-    std::vector<double> overlaps(photons, 1.0);
-    if (s.kind == StepKind::measure) {
-      const Eigen::VectorXd a = c.data.point(s.prep_point), b = c.data.point(s.analysis_point);
-      for (int p = 0; p < photons; ++p) {
-        const BlochAngles sa = c.encoding.angles(p, a), sb = c.encoding.angles(p, b);
-        overlaps[p] =
-            overlap(bloch_state(sa.theta_deg, sa.phi_deg), bloch_state(sb.theta_deg, sb.phi_deg));
-      }
-    }
-    double kappa = 1.0;
-    for (double o : overlaps) kappa *= o;
-    const SettingRates rates = setting_rates(c.rig, photons, kappa, overlaps);
-    // Optional slow drift of the pair rate, linear over the campaign.
-    const double scale = 1.0 + (rate_scale_at_end - 1.0) * (r.start_s / span);
-    const double r_pairs = rates.pair_detect_rate_per_s * scale;
-    const double t = s.dwell_s;
-    std::poisson_distribution<long> pass(t *
-                                         (r_pairs * rates.p_pass + rates.accidental_rate_per_s));
-    std::poisson_distribution<long> rest(t * (r_pairs * (1.0 - rates.p_pass) +
-                                              rates.accidental_total_rate_per_s -
-                                              rates.accidental_rate_per_s));
-    r.channel_counts.assign(channel_count(c.rig.scheme, photons), 0.0);
-    r.channel_counts[0] = static_cast<double>(pass(rng));
-    r.channel_counts[1] = static_cast<double>(rest(rng));
-    out.push_back(r);
-  }
-  return out;
+                                 double fade_per_hour = 0.0) {
+  CountSimulationOptions options;
+  options.seed = seed;
+  options.fade_per_hour = fade_per_hour;
+  return simulate_counts(c, plan.steps, options);
 }
 
 TEST(Ingest, SimulatedDemoCountsRecoverTheKernelWithStandardNormalZScores) {
@@ -80,7 +45,9 @@ TEST(Ingest, DriftingPairRateIsFlaggedAndTrackedByTheReferences) {
   Campaign c = make_demo_campaign();
   const Plan plan = plan_campaign(c);
   // The pair rate falls by 20 % over the campaign; the references must see it.
-  const IngestResult res = ingest_records(c, plan, simulate(c, plan, 12, 0.8));
+  const double hours = plan.summary.total_s / 3600.0;
+  const IngestResult res =
+      ingest_records(c, plan, simulate(c, plan, 12, 1.0 - std::pow(0.8, 1.0 / hours)));
   ASSERT_GE(res.drift.size(), 3u);
   EXPECT_TRUE(res.drift.back().drifted);
   EXPECT_LT(res.drift.back().pair_detect_rate_per_s,

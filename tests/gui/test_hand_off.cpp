@@ -169,6 +169,35 @@ class HandOffTest : public QObject {
     QCOMPARE(w.measured_view()->histogram_count(), static_cast<int>(expected));
   }
 
+  // File ▸ Rehearse with a Simulated Rig: the counts file is written beside the bundle, marked
+  // as simulated (docs/counts-format.md), and ingested into the Measured view, which says so.
+  void rehearse_with_a_simulated_rig() {
+    QTemporaryDir dir;
+    QVERIFY(dir.isValid());
+    MainWindow w;
+    make_quick(w);
+    w.load_demo();
+    QTRY_VERIFY_WITH_TIMEOUT(settled(w), kWaitMs);
+    const QString bundle_path = dir.filePath(QStringLiteral("rehearsal.zip"));
+    QVERIFY(w.hand_off()->export_bundle_to(bundle_path));
+    const QString counts_path = dir.filePath(QStringLiteral("rehearsal-simulated.csv"));
+    QVERIFY(w.hand_off()->rehearse_files(bundle_path, counts_path));
+    QTRY_VERIFY_WITH_TIMEOUT(!w.hand_off()->busy(), kWaitMs);
+    QVERIFY2(w.hand_off()->last_error().isEmpty(), qPrintable(w.hand_off()->last_error()));
+    const std::string text = read_text(counts_path);
+    QVERIFY(text.rfind("# bundle file: rehearsal.zip, manifest SHA-256 ", 0) == 0);
+    QVERIFY(text.find("\n# simulated: ") != std::string::npos);
+    QCOMPARE(w.views()->currentIndex(), static_cast<int>(MainWindow::kMeasured));
+    QVERIFY2(w.measured_view()->sources().contains(QStringLiteral("simulated")),
+             qPrintable(w.measured_view()->sources()));
+    QCOMPARE(w.measured_view()->figure(QStringLiteral("missing")), QStringLiteral("0"));
+    // A bundle that cannot be read writes nothing and says which file.
+    const QString nowhere = dir.filePath(QStringLiteral("none.csv"));
+    QVERIFY(!w.hand_off()->rehearse_files(dir.filePath(QStringLiteral("missing.zip")), nowhere));
+    QVERIFY(!QFile::exists(nowhere));
+    QVERIFY(close_error_box().contains(QStringLiteral("missing.zip")));
+  }
+
   void tampered_bundle_and_bad_counts_are_refused_naming_the_file() {
     QTemporaryDir dir;
     QVERIFY(dir.isValid());

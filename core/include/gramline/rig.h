@@ -36,6 +36,11 @@ struct Motor {
   double repeatability_sd_deg = 0.0;  ///< scatter of the reached position from move to move
   /// Actual retardance of the plate, degrees.
   double retardance_deg() const;
+  /// Motor units (docs/plan-files.md, "Motor units"): motor steps per degree; absent: the
+  /// controller takes degrees and no step column is written.
+  std::optional<double> steps_per_deg;
+  /// Motor position, in degrees, at which the plate's fast axis is horizontal (default 0).
+  double zero_offset_deg = 0.0;
 };
 
 /// The period of the motor's plate, degrees: positions x and x + k period act alike. 180 for a
