@@ -2066,7 +2066,7 @@ Bündel: %2</translation>
 <context>
     <name>gramline::gui::MotorDelegate</name>
     <message>
-        <location filename="../app/gui/rig_tables.cpp" line="+241"/>
+        <location filename="../app/gui/rig_tables.cpp" line="+276"/>
         <source> °/s</source>
         <translation> °/s</translation>
     </message>
@@ -2076,6 +2076,9 @@ Bündel: %2</translation>
         <translation> °/s²</translation>
     </message>
     <message>
+        <location line="+2"/>
+        <location line="+2"/>
+        <location line="+2"/>
         <location line="+2"/>
         <location line="+2"/>
         <source> °</source>
@@ -2090,7 +2093,7 @@ Bündel: %2</translation>
 <context>
     <name>gramline::gui::MotorsModel</name>
     <message>
-        <location line="-225"/>
+        <location line="-266"/>
         <location line="+6"/>
         <source>continuous</source>
         <translation>endlos</translation>
@@ -2101,7 +2104,7 @@ Bündel: %2</translation>
         <translation>%1 … %2</translation>
     </message>
     <message>
-        <location line="+136"/>
+        <location line="+157"/>
         <source>Largest angular speed of the mount</source>
         <translation>Höchste Winkelgeschwindigkeit der Halterung</translation>
     </message>
@@ -2124,6 +2127,21 @@ Bündel: %2</translation>
         <location line="+4"/>
         <source>Physical position at the start of the campaign</source>
         <translation>Physische Position zu Beginn der Kampagne</translation>
+    </message>
+    <message>
+        <location line="+2"/>
+        <source>Actual minus nominal retardance of the plate (nominal 180° for an HWP, 90° for a QWP)</source>
+        <translation>Tatsächliche minus nominelle Verzögerung der Platte (nominell 180° bei einer HWP, 90° bei einer QWP)</translation>
+    </message>
+    <message>
+        <location line="+4"/>
+        <source>Uncertainty (standard deviation) of the calibrated fast-axis zero</source>
+        <translation>Unsicherheit (Standardabweichung) des kalibrierten Nullpunkts der schnellen Achse</translation>
+    </message>
+    <message>
+        <location line="+2"/>
+        <source>Scatter (standard deviation) of the reached position from move to move</source>
+        <translation>Streuung (Standardabweichung) der erreichten Position von Fahrt zu Fahrt</translation>
     </message>
     <message>
         <location line="+8"/>
@@ -2174,6 +2192,21 @@ Bündel: %2</translation>
         <location line="+2"/>
         <source>Initial (°)</source>
         <translation>Anfang (°)</translation>
+    </message>
+    <message>
+        <location line="+2"/>
+        <source>Ret. error (°)</source>
+        <translation>Verz.-Fehler (°)</translation>
+    </message>
+    <message>
+        <location line="+2"/>
+        <source>Zero sd (°)</source>
+        <translation>Nullpunkt-SD (°)</translation>
+    </message>
+    <message>
+        <location line="+2"/>
+        <source>Repeat sd (°)</source>
+        <translation>Wiederh.-SD (°)</translation>
     </message>
 </context>
 <context>
@@ -2673,7 +2706,17 @@ Bündel: %2</translation>
         <translation>Doppelklicken Sie auf eine Zelle, um sie zu bearbeiten.</translation>
     </message>
     <message>
-        <location line="+9"/>
+        <location line="+6"/>
+        <source>Compensate the plates</source>
+        <translation>Platten kompensieren</translation>
+    </message>
+    <message>
+        <location line="+1"/>
+        <source>Solve the plate angles for the actual retardances, so the kernel the rig realises is the ideal one; off shows the bias of uncompensated plates</source>
+        <translation>Plattenwinkel für die tatsächlichen Verzögerungen berechnen, sodass der Aufbau den idealen Kernel erzeugt; aus zeigt den Fehler unkompensierter Platten</translation>
+    </message>
+    <message>
+        <location line="+10"/>
         <source>Controller</source>
         <translation>Steuerung</translation>
     </message>
@@ -2769,7 +2812,7 @@ Bündel: %2</translation>
         <translation>Welche PBS-Ausgänge Detektoren tragen</translation>
     </message>
     <message>
-        <location line="+6"/>
+        <location line="+7"/>
         <source>Efficiency (0–1)</source>
         <translation>Effizienz (0–1)</translation>
     </message>
@@ -2777,6 +2820,16 @@ Bündel: %2</translation>
         <location line="+0"/>
         <source>Dark counts (/s)</source>
         <translation>Dunkelzählrate (/s)</translation>
+    </message>
+    <message>
+        <location line="+0"/>
+        <source>PBS leakage (0–0.5)</source>
+        <translation>PBS-Leckage (0–0,5)</translation>
+    </message>
+    <message>
+        <location line="+2"/>
+        <source>Fraction of the orthogonal polarization that leaves by the pass port</source>
+        <translation>Anteil der orthogonalen Polarisation, der den Durchlassausgang verlässt</translation>
     </message>
     <message>
         <location line="+1"/>
@@ -3033,17 +3086,22 @@ Bündel: %2</translation>
     </message>
     <message>
         <location line="+1"/>
-        <location line="+124"/>
+        <location line="+140"/>
         <source>Margin check: not computed yet.</source>
         <translation>Margin-Prüfung: noch nicht berechnet.</translation>
     </message>
     <message>
-        <location line="-122"/>
+        <location line="-138"/>
         <source>Margin verdict</source>
         <translation>Margin-Urteil</translation>
     </message>
     <message>
-        <location line="+5"/>
+        <location line="+3"/>
+        <source>Plate warning</source>
+        <translation>Plattenwarnung</translation>
+    </message>
+    <message>
+        <location line="+6"/>
         <source>Nights</source>
         <translation>Nächte</translation>
     </message>
@@ -3134,6 +3192,16 @@ Bündel: %2</translation>
     </message>
     <message>
         <location line="+1"/>
+        <source>Plate bias</source>
+        <translation>Plattenfehler</translation>
+    </message>
+    <message>
+        <location line="+1"/>
+        <source>Largest difference between the kernel the real plates realise and the ideal one; more pairs do not reduce it</source>
+        <translation>Größte Abweichung zwischen dem Kernel der realen Platten und dem idealen; mehr Paare verringern sie nicht</translation>
+    </message>
+    <message>
+        <location line="+2"/>
         <source>Counting time</source>
         <translation>Zählzeit</translation>
     </message>
@@ -3168,7 +3236,7 @@ Bündel: %2</translation>
         <translation>Bericht des Rechenkerns</translation>
     </message>
     <message>
-        <location line="+13"/>
+        <location line="+14"/>
         <source>The same report as the command line prints:</source>
         <translation>Derselbe Bericht, den die Kommandozeile ausgibt:</translation>
     </message>
@@ -3255,7 +3323,17 @@ Bündel: %2</translation>
         <translation>erreichte Kernel-Halbbreite ±%1</translation>
     </message>
     <message>
+        <location line="+3"/>
+        <source>shot noise ±%1; random offsets add σ %2</source>
+        <translation>Schrotrauschen ±%1; zufällige Abweichungen fügen σ %2 hinzu</translation>
+    </message>
+    <message>
         <location line="+4"/>
+        <source>The plate bias %1 exceeds the target precision ±%2: more pairs will not help; calibrate the plates.</source>
+        <translation>Der Plattenfehler %1 übersteigt die Zielgenauigkeit ±%2: Mehr Paare helfen nicht; kalibrieren Sie die Platten.</translation>
+    </message>
+    <message>
+        <location line="+5"/>
         <source>%1 ms</source>
         <translation>%1 ms</translation>
     </message>

@@ -39,15 +39,22 @@ int point_from(const JsonField& f, int point_limit) {
 std::string steps_conventions_text() {
   return "Polarization: Jones vectors in the H/V basis, H = (1, 0), V = (0, 1); global phases "
          "are ignored. A waveplate whose fast axis is at angle t from horizontal with retardance "
-         "G acts as R(-t) diag(1, exp(iG)) R(t), R(t) = [[cos t, sin t], [-sin t, cos t]]; G is pi "
-         "for an HWP and pi/2 for a QWP. Every angle in this file is in degrees. A point's state "
-         "on photon p is cos(theta/2)|H> + exp(i phi) sin(theta/2)|V>. Preparation: |H> passes "
-         "the prep HWP, then the prep QWP. Analysis: the light passes the analysis QWP, then the "
-         "analysis HWP, then a polarizing beam splitter whose H output counts as pass. "
-         "kernel_ideal is the product over photons of the pass probability "
-         "|<H| HWP(h_an) QWP(q_an) QWP(q_prep) HWP(h_prep) |H>|^2 computed from position_deg; "
-         "p_pass adds global depolarization, V kernel + (1 - V) / 2^P for P photons. An HWP at "
-         "t and at t + 90 k, and a QWP at t and at t + 180 k, act alike. "
+         "G acts as R(-t) diag(1, exp(iG)) R(t), R(t) = [[cos t, sin t], [-sin t, cos t]]; G is "
+         "the plate's actual retardance: pi for an HWP and pi/2 for a QWP, plus the motor's "
+         "retardance_error_deg (listed with the motors below). Every angle in this file is in "
+         "degrees. A point's state on photon p is cos(theta/2)|H> + exp(i phi) sin(theta/2)|V>. "
+         "Preparation: |H> passes the prep HWP, then the prep QWP. Analysis: the light passes "
+         "the analysis QWP, then the analysis HWP, then a polarizing beam splitter whose H "
+         "output counts as pass. kernel_ideal is the product over photons of "
+         "|<psi(analysis point)|psi(prep point)>|^2. kernel_rig is the product over photons of "
+         "(1 - L) |<H|out>|^2 + L |<V|out>|^2, out = HWP(h_an) QWP(q_an) QWP(q_prep) HWP(h_prep) "
+         "|H> computed from position_deg with the actual retardances, L the photon's "
+         "pbs_leakage (the header's list, one per photon). When the campaign compensates the "
+         "plates (rig.compensate_plates, the default) the positions are solved for the actual "
+         "retardances, so kernel_rig equals kernel_ideal (apart from leakage) wherever the "
+         "plates can reach the state. p_pass adds global depolarization, V kernel + (1 - V) / "
+         "2^P for P photons. A QWP at t and at t + 180 k acts alike; an HWP at t and at t + 90 "
+         "k only when its retardance error is 0, otherwise only at t + 180 k. "
          "Motion: position_deg is the physical, unwrapped position each motor is commanded to. "
          "A move over distance d takes T(d) = d/v + v/a when d >= v^2/a, else 2 sqrt(d/a), and "
          "T(0) = 0, with v = speed_deg_per_s and a = accel_deg_per_s2. A motor with backlash "
@@ -69,10 +76,13 @@ void write_steps_json(const Rig& rig, const std::vector<Step>& steps, const Text
   // by hand, so half a million steps never exist as a JSON tree in memory at once.
   QJsonArray motors;
   for (const Motor& m : rig.motors) motors.append(motor_to_json(m));
+  QJsonArray leakage;
+  for (const Detector& d : rig.detectors) leakage.append(d.pbs_leakage);
   QJsonObject header{{"format", kStepsFormat},
                      {"version", kStepsVersion},
                      {"conventions", q(steps_conventions_text())},
                      {"motors", motors},
+                     {"pbs_leakage", leakage},
                      {"controller", controller_to_json(rig.controller)}};
   if (!set_id.empty()) header[kSetIdKey] = q(set_id);
   std::string head = json_text(header);
@@ -104,6 +114,7 @@ void write_steps_json(const Rig& rig, const std::vector<Step>& steps, const Text
       out += keys[m] + exact_number_text(st.position_deg[m]);
     }
     out += "},\"kernel_ideal\":" + exact_number_text(st.kernel_ideal) +
+           ",\"kernel_rig\":" + exact_number_text(st.kernel_rig) +
            ",\"p_pass\":" + exact_number_text(st.p_pass) +
            ",\"pairs\":" + exact_number_text(st.pairs) +
            ",\"dwell_s\":" + exact_number_text(st.dwell_s) +
@@ -127,7 +138,7 @@ void write_steps_csv(const Rig& rig, const std::vector<Step>& steps, const TextS
   for (const Motor& m : rig.motors) out += "," + csv_field(m.name + "_deg");
   for (const Motor& m : rig.motors)
     if (has_motor_units(m)) out += "," + csv_field(m.name + "_steps");
-  out += ",kernel_ideal,p_pass,pairs,dwell_s,move_s,start_s,night\n";
+  out += ",kernel_ideal,kernel_rig,p_pass,pairs,dwell_s,move_s,start_s,night\n";
   auto point = [](int index) { return index < 0 ? std::string() : std::to_string(index); };
   for (size_t i = 0; i < steps.size(); ++i) {
     if (out.size() >= kSinkChunk) {
@@ -147,7 +158,8 @@ void write_steps_csv(const Rig& rig, const std::vector<Step>& steps, const TextS
       if (m < s.position_deg.size())
         out += std::to_string(motor_steps(rig.motors[m], s.position_deg[m]));
     }
-    for (double v : {s.kernel_ideal, s.p_pass, s.pairs, s.dwell_s, s.move_s, s.start_s}) {
+    for (double v :
+         {s.kernel_ideal, s.kernel_rig, s.p_pass, s.pairs, s.dwell_s, s.move_s, s.start_s}) {
       out += "," + exact_number_text(v);
     }
     out += "," + std::to_string(s.night) + "\n";
@@ -216,6 +228,19 @@ std::string format_summary_json(const Campaign& campaign, const Plan& plan,
                 {"bound_ms", s.bound_ms},
                 {"gram_error_ms", s.gram_error_ms},
                 {"warnings", warnings}};
+  // Plate imperfections (docs/plan-files.md).
+  o["kernel_bias_max"] = s.kernel_bias_max;
+  o["kernel_bias_frobenius"] = s.kernel_bias_frobenius;
+  o["kernel_spread_max"] = s.kernel_spread_max;
+  o["kernel_spread_frobenius"] = s.kernel_spread_frobenius;
+  o["plate_bias_exceeds_target"] = s.plate_bias_exceeds_target();
+  QJsonArray unreachable;
+  for (const UnreachableSetting& u : s.unreachable)
+    unreachable.append(QJsonObject{{"point", u.point},
+                                   {"photon", u.photon},
+                                   {"stage", q(to_string(u.stage))},
+                                   {"kernel_error", u.kernel_error}});
+  o["plates_unreachable"] = unreachable;
   if (!set_id.empty()) {
     QJsonObject files;
     for (const auto& [name, bytes] : set_files) files[q(name)] = q(sha256_hex(bytes));
@@ -287,6 +312,8 @@ StepsFile parse_steps_json(const std::string& bytes, const std::string& file) {
       s.position_deg[m] = positions[out.rig.motors[m].name.c_str()].number();
     }
     s.kernel_ideal = r["kernel_ideal"].number();
+    // Optional (files written before plates were modelled): recomputed by plan_from_steps.
+    if (r.has("kernel_rig")) s.kernel_rig = r["kernel_rig"].number();
     s.p_pass = r["p_pass"].number();
     s.pairs = r["pairs"].number();
     s.dwell_s = r["dwell_s"].number();

@@ -259,6 +259,13 @@ std::string format_summary_html(const Campaign& campaign, const Plan& plan,
       fixed(s.measure_move_s, 1) + " s / " + fixed(s.move_lower_bound_s, 1) + " s");
   row("row-by-row order would move", fixed(s.move_naive_s, 1) + " s");
   row("worst entry half-width", general(s.epsilon_reached));
+  row("plate bias, largest entry / Frobenius",
+      general(s.kernel_bias_max) + " / " + general(s.kernel_bias_frobenius) +
+          (s.plate_bias_exceeds_target()
+               ? " (above the target precision: more pairs will not help; calibrate the plates)"
+               : ""));
+  row("plate spread from offsets, largest entry / Frobenius",
+      general(s.kernel_spread_max) + " / " + general(s.kernel_spread_frobenius));
   row("Gram error, Frobenius sigma", general(s.gram_sigma_frobenius));
   row("Gram error, largest entry sigma", general(plan.gram_error.sigma_max));
   row("P(negative eigenvalue)", general(plan.gram_error.p_negative_eigenvalue));

@@ -20,7 +20,10 @@ QJsonObject motor_to_json(const Motor& m) {
                 {"range_deg", range},
                 {"backlash", QString::fromStdString(to_string(m.backlash))},
                 {"overshoot_deg", m.overshoot_deg},
-                {"initial_deg", m.initial_deg}};
+                {"initial_deg", m.initial_deg},
+                {"retardance_error_deg", m.retardance_error_deg},
+                {"axis_offset_sd_deg", m.axis_offset_sd_deg},
+                {"repeatability_sd_deg", m.repeatability_sd_deg}};
   // Motor units (docs/plan-files.md): written only when used, so files without them stay as
   // they were.
   if (m.steps_per_deg) o["steps_per_deg"] = *m.steps_per_deg;
@@ -44,6 +47,12 @@ Motor motor_from_json(const JsonField& m) {
   motor.backlash = m["backlash"].choice({Backlash::shortest, Backlash::from_below});
   motor.overshoot_deg = m["overshoot_deg"].number();
   motor.initial_deg = m["initial_deg"].number();
+  // Plate imperfections: optional, 0 when absent (docs/plan-files.md).
+  if (m.has("retardance_error_deg"))
+    motor.retardance_error_deg = m["retardance_error_deg"].number();
+  if (m.has("axis_offset_sd_deg")) motor.axis_offset_sd_deg = m["axis_offset_sd_deg"].number();
+  if (m.has("repeatability_sd_deg"))
+    motor.repeatability_sd_deg = m["repeatability_sd_deg"].number();
   // Optional motor units (docs/plan-files.md): no steps_per_deg, no step column; offset 0.
   // Their limits are checked with the rest of the rig (Rig::check).
   if (m.has("steps_per_deg") && !m["steps_per_deg"].is_null())
@@ -71,8 +80,9 @@ QJsonObject rig_to_json(const Rig& rig) {
   for (const Motor& m : rig.motors) motors.append(motor_to_json(m));
   QJsonArray detectors;
   for (const Detector& d : rig.detectors) {
-    detectors.append(
-        QJsonObject{{"efficiency", d.efficiency}, {"dark_rate_per_s", d.dark_rate_per_s}});
+    detectors.append(QJsonObject{{"efficiency", d.efficiency},
+                                 {"dark_rate_per_s", d.dark_rate_per_s},
+                                 {"pbs_leakage", d.pbs_leakage}});
   }
   return QJsonObject{{"motors", motors},
                      {"controller", controller_to_json(rig.controller)},
@@ -80,7 +90,8 @@ QJsonObject rig_to_json(const Rig& rig) {
                                             {"visibility", rig.source.visibility}}},
                      {"detectors", detectors},
                      {"coincidence_window_s", rig.coincidence_window_s},
-                     {"scheme", QString::fromStdString(to_string(rig.scheme))}};
+                     {"scheme", QString::fromStdString(to_string(rig.scheme))},
+                     {"compensate_plates", rig.compensate_plates}};
 }
 
 Rig rig_from_json(const JsonField& f) {
@@ -92,9 +103,11 @@ Rig rig_from_json(const JsonField& f) {
   rig.source.visibility = s["visibility"].number();
   for (const JsonField& d : f["detectors"].items()) {
     rig.detectors.push_back(Detector{d["efficiency"].number(), d["dark_rate_per_s"].number()});
+    if (d.has("pbs_leakage")) rig.detectors.back().pbs_leakage = d["pbs_leakage"].number();
   }
   rig.coincidence_window_s = f["coincidence_window_s"].number();
   rig.scheme = f["scheme"].choice({DetectionScheme::pass_only, DetectionScheme::both_ports});
+  if (f.has("compensate_plates")) rig.compensate_plates = f["compensate_plates"].boolean();
   return rig;
 }
 

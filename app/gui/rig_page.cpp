@@ -91,6 +91,14 @@ RigPage::RigPage(CampaignDocument* campaign_document, QWidget* parent)
   auto* motor_hint = new QLabel(tr("Double-click a cell to edit it."));
   motor_hint->setForegroundRole(QPalette::PlaceholderText);
   ml->addWidget(motor_hint);
+  auto* plates_form = new QFormLayout;
+  ml->addLayout(plates_form);
+  flag(
+      plates_form, "rig/compensate", tr("Compensate the plates"),
+      tr("Solve the plate angles for the actual retardances, so the kernel the rig realises is "
+         "the ideal one; off shows the bias of uncompensated plates"),
+      [](const Campaign& c) { return c.rig.compensate_plates; },
+      [](Campaign& c, bool v) { c.rig.compensate_plates = v; });
   layout->addWidget(motors_box, 1);
   on_refresh([this] {
     motors_->set_motors(document()->campaign().rig.motors);
@@ -134,8 +142,11 @@ RigPage::RigPage(CampaignDocument* campaign_document, QWidget* parent)
       [](const Campaign& c) { return static_cast<int>(c.rig.scheme); },
       [](Campaign& c, int v) { c.rig.scheme = static_cast<DetectionScheme>(v); });
   detectors_ = new QTableWidget;
-  detectors_->setColumnCount(2);
-  detectors_->setHorizontalHeaderLabels({tr("Efficiency (0–1)"), tr("Dark counts (/s)")});
+  detectors_->setColumnCount(3);
+  detectors_->setHorizontalHeaderLabels(
+      {tr("Efficiency (0–1)"), tr("Dark counts (/s)"), tr("PBS leakage (0–0.5)")});
+  detectors_->horizontalHeaderItem(2)->setToolTip(
+      tr("Fraction of the orthogonal polarization that leaves by the pass port"));
   detectors_->setAccessibleName(tr("Detectors, one per photon"));
   detectors_->horizontalHeader()->setStretchLastSection(true);
   detectors_->setMaximumHeight(fontMetrics().height() * 7);
@@ -145,13 +156,13 @@ RigPage::RigPage(CampaignDocument* campaign_document, QWidget* parent)
     const double v = QLocale().toDouble(item->text(), &ok);
     const int row = item->row();
     const int col = item->column();
-    if (!ok || v < 0 || (col == 0 && v > 1)) {
+    if (!ok || v < 0 || (col == 0 && v > 1) || (col == 2 && v >= 0.5)) {
       refresh_detectors();
       return;
     }
     document()->edit(tr("Edit detector %1").arg(row), [row, col, v](Campaign& c) {
       Detector& d = c.rig.detectors[static_cast<std::size_t>(row)];
-      (col == 0 ? d.efficiency : d.dark_rate_per_s) = v;
+      (col == 0 ? d.efficiency : col == 1 ? d.dark_rate_per_s : d.pbs_leakage) = v;
     });
   });
   on_refresh([this] { refresh_detectors(); });
@@ -184,6 +195,7 @@ void RigPage::refresh_detectors() {
     rows << tr("Photon %1 (%2)").arg(r).arg(QChar(photon_letter(r)));
     detectors_->setItem(r, 0, new QTableWidgetItem(number_text(dets[i].efficiency, 3)));
     detectors_->setItem(r, 1, new QTableWidgetItem(number_text(dets[i].dark_rate_per_s, 0)));
+    detectors_->setItem(r, 2, new QTableWidgetItem(number_text(dets[i].pbs_leakage, 4)));
   }
   detectors_->setVerticalHeaderLabels(rows);
 }

@@ -114,8 +114,8 @@ QVariant MotorsModel::data(const QModelIndex& index, int role) const {
   const Motor& m = motors_[static_cast<std::size_t>(index.row())];
   const int col = index.column();
   if (role == Qt::TextAlignmentRole) {
-    const bool numeric =
-        col == kPhoton || col == kSpeed || col == kAccel || col == kOvershoot || col == kInitial;
+    const bool numeric = col == kPhoton || col == kSpeed || col == kAccel || col == kOvershoot ||
+                         col == kInitial || col >= kRetardanceError;
     return int((numeric ? Qt::AlignRight : Qt::AlignLeft) | Qt::AlignVCenter);
   }
   if (role == Qt::EditRole) {
@@ -140,6 +140,12 @@ QVariant MotorsModel::data(const QModelIndex& index, int role) const {
         return m.overshoot_deg;
       case kInitial:
         return m.initial_deg;
+      case kRetardanceError:
+        return m.retardance_error_deg;
+      case kAxisOffsetSd:
+        return m.axis_offset_sd_deg;
+      case kRepeatabilitySd:
+        return m.repeatability_sd_deg;
       default:
         return {};
     }
@@ -167,6 +173,12 @@ QVariant MotorsModel::data(const QModelIndex& index, int role) const {
                                                 : QStringLiteral("–");
     case kInitial:
       return number_text(m.initial_deg, 2);
+    case kRetardanceError:
+      return number_text(m.retardance_error_deg, 2);
+    case kAxisOffsetSd:
+      return number_text(m.axis_offset_sd_deg, 3);
+    case kRepeatabilitySd:
+      return number_text(m.repeatability_sd_deg, 3);
     default:
       return {};
   }
@@ -207,6 +219,15 @@ bool MotorsModel::setData(const QModelIndex& index, const QVariant& value, int r
     case kInitial:
       m.initial_deg = value.toDouble();
       break;
+    case kRetardanceError:
+      m.retardance_error_deg = value.toDouble();
+      break;
+    case kAxisOffsetSd:
+      m.axis_offset_sd_deg = value.toDouble();
+      break;
+    case kRepeatabilitySd:
+      m.repeatability_sd_deg = value.toDouble();
+      break;
     default:
       return false;
   }
@@ -233,6 +254,14 @@ QVariant MotorsModel::headerData(int section, Qt::Orientation orientation, int r
             "going past by the overshoot");
       case kInitial:
         return tr("Physical position at the start of the campaign");
+      case kRetardanceError:
+        return tr(
+            "Actual minus nominal retardance of the plate (nominal 180° for an HWP, 90° for a "
+            "QWP)");
+      case kAxisOffsetSd:
+        return tr("Uncertainty (standard deviation) of the calibrated fast-axis zero");
+      case kRepeatabilitySd:
+        return tr("Scatter (standard deviation) of the reached position from move to move");
       default:
         return {};
     }
@@ -259,6 +288,12 @@ QVariant MotorsModel::headerData(int section, Qt::Orientation orientation, int r
       return tr("Overshoot (°)");
     case kInitial:
       return tr("Initial (°)");
+    case kRetardanceError:
+      return tr("Ret. error (°)");
+    case kAxisOffsetSd:
+      return tr("Zero sd (°)");
+    case kRepeatabilitySd:
+      return tr("Repeat sd (°)");
     default:
       return {};
   }
@@ -304,6 +339,12 @@ QWidget* MotorDelegate::createEditor(QWidget* parent, const QStyleOptionViewItem
       return number(0.0, 90.0, 2, tr(" °"));
     case MotorsModel::kInitial:
       return number(-3600.0, 3600.0, 2, tr(" °"));
+    case MotorsModel::kRetardanceError:
+      return number(-30.0, 30.0, 2, tr(" °"));
+    case MotorsModel::kAxisOffsetSd:
+      return number(0.0, 5.0, 3, tr(" °"));
+    case MotorsModel::kRepeatabilitySd:
+      return number(0.0, 1.0, 3, tr(" °"));
     default: {
       auto* line = new QLineEdit(parent);
       line->setFrame(false);

@@ -42,6 +42,9 @@ class MotorsModel : public QAbstractTableModel {
     kBacklash,
     kOvershoot,
     kInitial,
+    kRetardanceError,  ///< plate imperfections (docs/conventions.md, "Real plates")
+    kAxisOffsetSd,
+    kRepeatabilitySd,
     kColumnCount
   };
   /// Called with the motor row and the edited motor; the owner turns it into an undoable edit.

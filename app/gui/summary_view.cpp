@@ -26,6 +26,10 @@ SummaryView::SummaryView(QWidget* parent) : QWidget(parent) {
   margin_verdict_ = new QLabel(tr("Margin check: not computed yet."));
   margin_verdict_->setWordWrap(true);
   margin_verdict_->setAccessibleName(tr("Margin verdict"));
+  plate_warning_ = new QLabel;
+  plate_warning_->setWordWrap(true);
+  plate_warning_->setAccessibleName(tr("Plate warning"));
+  plate_warning_->setVisible(false);
 
   figures_ = new FigureGrid(3, 1.6);
   figures_->grid()->setVerticalSpacing(14);
@@ -45,6 +49,9 @@ SummaryView::SummaryView(QWidget* parent) : QWidget(parent) {
   figures_->add("negative", tr("Chance of a negative eigenvalue"),
                 tr("Probability the measured Gram matrix is not positive semidefinite"));
   figures_->add("pairs", tr("Detected pairs"), tr("Pairs over all steps"));
+  figures_->add("plates", tr("Plate bias"),
+                tr("Largest difference between the kernel the real plates realise and the ideal "
+                   "one; more pairs do not reduce it"));
   figures_->add("counting", tr("Counting time"), tr("Dwell of the measure steps"));
   figures_->add("moving", tr("Moving time"), tr("Motor time of all steps, settle and overhead"));
   figures_->add("plan_ms", tr("Planning took"), tr("Wall time of the last planning run"));
@@ -59,6 +66,7 @@ SummaryView::SummaryView(QWidget* parent) : QWidget(parent) {
   auto* layout = new QVBoxLayout(inner);
   layout->addWidget(verdict_);
   layout->addWidget(margin_verdict_);
+  layout->addWidget(plate_warning_);
   auto* line = new QFrame;
   line->setFrameShape(QFrame::HLine);
   line->setFrameShadow(QFrame::Sunken);
@@ -140,6 +148,14 @@ void SummaryView::set_plan(std::shared_ptr<const Plan> plan, const Campaign& cam
       s.epsilon_reached > 0
           ? tr("kernel half-width reached ±%1").arg(number_text(s.epsilon_reached, 4))
           : QString());
+  set("plates", number_text(s.kernel_bias_max, 4),
+      tr("shot noise ±%1; random offsets add σ %2")
+          .arg(number_text(s.epsilon_reached, 4), number_text(s.kernel_spread_max, 4)));
+  plate_warning_->setVisible(s.plate_bias_exceeds_target());
+  plate_warning_->setText(
+      tr("The plate bias %1 exceeds the target precision ±%2: more pairs will not help; "
+         "calibrate the plates.")
+          .arg(number_text(s.kernel_bias_max, 4), number_text(s.target_epsilon, 4)));
   set("counting", duration_text(s.integration_s));
   set("moving", duration_text(s.move_s));
   set("plan_ms", tr("%1 ms").arg(number_text(s.plan_ms, 0)));

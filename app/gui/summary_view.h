@@ -30,6 +30,7 @@ class SummaryView : public QWidget {
  private:
   QLabel* verdict_;
   QLabel* margin_verdict_;
+  QLabel* plate_warning_;  // plate bias above the target precision
   FigureGrid* figures_;
   QPlainTextEdit* report_;
 };

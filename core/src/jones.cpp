@@ -57,6 +57,12 @@ double overlap(const JonesVector& a, const JonesVector& b) {
   return std::norm(a.dot(b)) / (na * nb);
 }
 
+Eigen::Vector3d stokes_vector(const JonesVector& s) {
+  const std::complex<double> c = std::conj(s(0)) * s(1);
+  return Eigen::Vector3d(std::norm(s(0)) - std::norm(s(1)), 2.0 * c.real(), 2.0 * c.imag()) /
+         s.squaredNorm();
+}
+
 JonesVector prepared_state(double hwp_deg, double qwp_deg) {
   const JonesVector h(1.0, 0.0);
   return qwp(qwp_deg) * (hwp(hwp_deg) * h);

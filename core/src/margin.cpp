@@ -10,6 +10,7 @@
 
 #include "gramline/field_check.h"
 #include "gramline/parallel.h"
+#include "gramline/plates.h"
 #include "gramline/random.h"
 
 namespace gramline {
@@ -77,6 +78,22 @@ MarginProblem make_margin_problem(const Campaign& campaign, const Plan& plan) {
   problem.noise_test.resize(static_cast<std::size_t>(m) * n);
   for (int t = 0; t < m; ++t)
     for (int j = 0; j < n; ++j) problem.noise_test[t * n + j] = entries.noise(n + t, j);
+  const Rig& rig = campaign.rig;
+  const bool leaks = std::any_of(rig.detectors.begin(), rig.detectors.end(),
+                                 [](const Detector& d) { return d.pbs_leakage > 0.0; });
+  if (has_retardance_errors(rig) || has_random_plate_terms(rig) || leaks) {
+    problem.plate_rig = rig;
+    problem.positions_train.resize(static_cast<std::size_t>(n) * n);
+    problem.positions_test.resize(static_cast<std::size_t>(m) * n);
+    for (int i = 0; i < n; ++i)
+      for (int j = i + 1; j < n; ++j)
+        if (const int k = plan.step_of_train(i, j); k >= 0)
+          problem.positions_train[i * n + j] = plan.steps[k].position_deg;
+    for (int t = 0; t < m; ++t)
+      for (int j = 0; j < n; ++j)
+        if (const int k = plan.step_of_test(t, j); k >= 0)
+          problem.positions_test[t * n + j] = plan.steps[k].position_deg;
+  }
   // The reference steps and the weights each measure step takes from them, by the middle of
   // the counting intervals (the rule of ingest, calibration_weights in entries.h).
   std::vector<std::pair<double, int>> refs;
@@ -124,6 +141,9 @@ struct EntrySampler {
   bool exact = true;  // pairs <= 0: the ideal value is used
   double ideal = 0.0;
   double dwell_s = 0.0;
+  double pass_rate_per_s = 0.0;                        // at the ideal kernel
+  double total_rate_per_s = 0.0;                       // both_ports: all channels
+  const std::vector<double>* positions_deg = nullptr;  // plate draws: the entry's positions
   const Calibration* calibration = nullptr;
   PoissonParam pass{1.0};
   PoissonParam other{1.0};  // both_ports: counts in all the other channels
@@ -136,17 +156,17 @@ class PreparedDraws {
   explicit PreparedDraws(const MarginProblem& problem) : problem_(problem) {
     const int n = problem.train_count(), m = problem.test_count();
     for (const MarginProblem::Reference& r : problem.references)
-      refs_.push_back(prepare(r.noise, 1.0, r.pairs));
+      refs_.push_back(prepare(r.noise, 1.0, r.pairs, {}, 0));
     train_.resize(static_cast<std::size_t>(n) * n);
     test_.resize(static_cast<std::size_t>(m) * n);
     for (int i = 0; i < n; ++i)
       for (int j = i + 1; j < n; ++j)
         train_[i * n + j] = prepare(problem.noise_train[i * n + j], problem.kernel_train(i, j),
-                                    problem.pairs_train(i, j));
+                                    problem.pairs_train(i, j), problem.positions_train, i * n + j);
     for (int t = 0; t < m; ++t)
       for (int j = 0; j < n; ++j)
         test_[t * n + j] = prepare(problem.noise_test[t * n + j], problem.kernel_test(t, j),
-                                   problem.pairs_test(t, j));
+                                   problem.pairs_test(t, j), problem.positions_test, t * n + j);
   }
 
   void draw(std::uint64_t trial_seed, Eigen::MatrixXd& train, Eigen::MatrixXd& test) const {
@@ -156,10 +176,16 @@ class PreparedDraws {
     // each gives (reference_calibration, detection.h).
     std::vector<Calibration> cal(refs_.size());
     for (size_t k = 0; k < refs_.size(); ++k) {
-      const SettingCounts counts = draw_counts(refs_[k], stream_seed(trial_seed, entries + k));
+      const SettingCounts counts =
+          draw_counts(refs_[k], stream_seed(trial_seed, entries + k), refs_[k].pass, refs_[k].other);
       cal[k] =
           reference_calibration(problem_.scheme, problem_.photons, *refs_[k].calibration, counts);
     }
+    // Plate draws use the streams after the references': one for the axis offsets of the
+    // trial, then one per entry for its repeatability.
+    const std::uint64_t plates = entries + refs_.size();
+    const std::vector<double> offsets = axis_offsets(stream_seed(trial_seed, plates));
+    const std::uint64_t repeat_seed = stream_seed(trial_seed, plates + 1);
     train.resize(n, n);
     test.resize(m, n);
     for (int i = 0; i < n; ++i) {
@@ -167,21 +193,25 @@ class PreparedDraws {
       for (int j = i + 1; j < n; ++j) {
         const std::size_t e = static_cast<std::size_t>(i) * n + j;
         train(i, j) = train(j, i) =
-            sample(train_[e], stream_seed(trial_seed, e), problem_.weights_train, e, cal);
+            sample(train_[e], stream_seed(trial_seed, e), problem_.weights_train, e, cal, offsets,
+                   stream_seed(repeat_seed, e));
       }
     }
     for (int t = 0; t < m; ++t)
       for (int j = 0; j < n; ++j) {
         const std::size_t e = static_cast<std::size_t>(t) * n + j;
-        test(t, j) = sample(test_[e], stream_seed(trial_seed, static_cast<std::size_t>(n) * n + e),
-                            problem_.weights_test, e, cal);
+        const std::size_t stream = static_cast<std::size_t>(n) * n + e;
+        test(t, j) = sample(test_[e], stream_seed(trial_seed, stream), problem_.weights_test, e,
+                            cal, offsets, stream_seed(repeat_seed, stream));
       }
   }
 
  private:
-  EntrySampler prepare(const EntryNoise& noise, double ideal, double pairs) const {
+  EntrySampler prepare(const EntryNoise& noise, double ideal, double pairs,
+                       const std::vector<std::vector<double>>& positions, std::size_t e) const {
     EntrySampler s;
     s.ideal = ideal;
+    if (e < positions.size()) s.positions_deg = &positions[e];
     if (!(pairs > 0)) return s;
     const Calibration& cal = noise.calibration;
     const double r = cal.pair_detect_rate_per_s;
@@ -190,24 +220,25 @@ class PreparedDraws {
     s.dwell_s = pairs / r;
     const double pass_rate = r * noise.p_pass + cal.accidental_pass_rate_per_s;
     s.pass = PoissonParam(std::max(pass_rate * s.dwell_s, 1e-300));
-    if (problem_.scheme == DetectionScheme::both_ports) {
-      const double total_rate = r + cal.accidental_total_rate_per_s;
-      s.other = PoissonParam(std::max((total_rate - pass_rate) * s.dwell_s, 1e-300));
-    }
+    s.pass_rate_per_s = pass_rate;
+    s.total_rate_per_s = r + cal.accidental_total_rate_per_s;
+    if (problem_.scheme == DetectionScheme::both_ports)
+      s.other = PoissonParam(std::max((s.total_rate_per_s - pass_rate) * s.dwell_s, 1e-300));
     return s;
   }
 
-  SettingCounts draw_counts(const EntrySampler& s, std::uint64_t seed) const {
+  SettingCounts draw_counts(const EntrySampler& s, std::uint64_t seed, const PoissonParam& pass,
+                            const PoissonParam& other) const {
     SplitMix64 rng(seed);
     std::poisson_distribution<long long> poisson;
     SettingCounts counts;
     counts.dwell_s = s.dwell_s;
-    counts.pass_counts = static_cast<double>(poisson(rng, s.pass));
+    counts.pass_counts = static_cast<double>(poisson(rng, pass));
     if (problem_.scheme == DetectionScheme::both_ports) {
       // The dwell is fixed, so the total over all channels is Poisson and, given the total, the
       // pass channel is binomial. Drawn here as two independent Poisson counts (pass, rest),
       // which has exactly that joint law (Poisson splitting; Kingman, Poisson Processes, 1993).
-      counts.total_counts = counts.pass_counts + static_cast<double>(poisson(rng, s.other));
+      counts.total_counts = counts.pass_counts + static_cast<double>(poisson(rng, other));
       // No coincidence at all carries no information: take the uninformative half.
       if (counts.total_counts == 0) {
         counts.total_counts = 2.0;
@@ -217,13 +248,48 @@ class PreparedDraws {
     return counts;
   }
 
-  // One entry's estimate: its counts, calibrated by the references of its weights when it has
-  // some (their rate and visibility interpolated), else by the rig model.
+  // One normal draw per motor: its axis offset in this trial (degrees); empty without plates.
+  std::vector<double> axis_offsets(std::uint64_t seed) const {
+    if (!problem_.plate_rig) return {};
+    SplitMix64 rng(seed);
+    std::normal_distribution<double> normal;
+    std::vector<double> out;
+    for (const Motor& mo : problem_.plate_rig->motors)
+      out.push_back(mo.axis_offset_sd_deg * normal(rng));
+    return out;
+  }
+
+  // The pass rate of the entry under the trial's plates: the pass probability moves by
+  // V (kernel_rig - kernel_ideal) (p = V kappa + (1 - V) / 2^P, docs/conventions.md).
+  double plate_pass_rate(const EntrySampler& s, const std::vector<double>& offsets,
+                         std::uint64_t repeat_seed) const {
+    const Rig& rig = *problem_.plate_rig;
+    SplitMix64 rng(repeat_seed);
+    std::normal_distribution<double> normal;
+    std::vector<double> shift = offsets;
+    for (std::size_t k = 0; k < shift.size(); ++k)
+      shift[k] += rig.motors[k].repeatability_sd_deg * normal(rng);
+    const double kernel = rig_kernel(rig, problem_.photons, *s.positions_deg, shift);
+    const Calibration& cal = *s.calibration;
+    return s.pass_rate_per_s + cal.pair_detect_rate_per_s * cal.visibility * (kernel - s.ideal);
+  }
+
+  // One entry's estimate: its counts (at the pass rate the trial's plates give), calibrated by
+  // the references of its weights when it has some (their rate and visibility interpolated),
+  // else by the rig model.
   double sample(const EntrySampler& s, std::uint64_t seed,
                 const std::vector<CalibrationWeights>& weights, std::size_t e,
-                const std::vector<Calibration>& refs) const {
+                const std::vector<Calibration>& refs, const std::vector<double>& offsets,
+                std::uint64_t repeat_seed) const {
     if (s.exact) return s.ideal;
-    const SettingCounts counts = draw_counts(s, seed);
+    PoissonParam pass = s.pass, other = s.other;
+    if (problem_.plate_rig && s.positions_deg && !s.positions_deg->empty()) {
+      const double rate =
+          std::clamp(plate_pass_rate(s, offsets, repeat_seed), 0.0, s.total_rate_per_s);
+      pass = PoissonParam(std::max(rate * s.dwell_s, 1e-300));
+      other = PoissonParam(std::max((s.total_rate_per_s - rate) * s.dwell_s, 1e-300));
+    }
+    const SettingCounts counts = draw_counts(s, seed, pass, other);
     const Calibration cal = weights.empty() || refs.empty()
                                 ? *s.calibration
                                 : interpolated_calibration(*s.calibration, weights[e], refs);

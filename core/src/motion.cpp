@@ -27,8 +27,6 @@ double motor_move_s(const Motor& motor, double from_deg, double to_deg) {
   return travel_time_s(from_deg - to_deg + o, v, a) + travel_time_s(o, v, a);
 }
 
-double plate_period_deg(Plate plate) { return plate == Plate::HWP ? 90.0 : 180.0; }
-
 double combine_motor_times_s(const Controller& controller, const double* motor_times_s, int count,
                              bool any_moved) {
   double t = 0.0;
@@ -63,7 +61,7 @@ double step_move_s(const Rig& rig, const std::vector<double>& from_deg,
 
 std::vector<double> equivalent_positions_deg(const Motor& motor, double target_deg,
                                              double near_deg) {
-  const double period = plate_period_deg(motor.plate);
+  const double period = motor_period_deg(motor);
   double lo = near_deg - period;
   double hi = near_deg + period;
   if (motor.range) {
@@ -83,7 +81,7 @@ std::vector<double> equivalent_positions_deg(const Motor& motor, double target_d
 }
 
 double nearest_equivalent_deg(const Motor& motor, double target_deg, double from_deg) {
-  const double period = plate_period_deg(motor.plate);
+  const double period = motor_period_deg(motor);
   if (!motor.range) {
     // The best position is the equivalent just below or just above the current one: any
     // other lies farther in both directions.

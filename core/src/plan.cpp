@@ -15,6 +15,8 @@
 #include "gramline/field_check.h"
 #include "gramline/kernel.h"
 #include "gramline/motion.h"
+#include "gramline/parallel.h"
+#include "gramline/plates.h"
 #include "gramline/schedule.h"
 #include "gramline/svm.h"
 #include "gramline/waveplates.h"
@@ -24,19 +26,34 @@ namespace gramline {
 namespace {
 
 // Waveplate settings of every point (training first, then test), each checked by the Jones
-// product before it is used.
-std::vector<PointTargets> synthesize_points(const Campaign& c) {
+// product before it is used. With retardance errors and compensation on, the angles are solved
+// for the actual plates (plates.h); stages they cannot realise are listed in `unreachable`.
+std::vector<PointTargets> synthesize_points(const Campaign& c,
+                                            std::vector<UnreachableSetting>& unreachable) {
   const int total = c.data.train_count() + c.data.test_count();
   const int photons = c.encoding.photon_count();
+  const bool compensate = c.rig.compensate_plates && has_retardance_errors(c.rig);
   std::vector<PointTargets> out(total);
   for (int i = 0; i < total; ++i) {
     const Eigen::VectorXd x = c.data.point(i);
     for (int p = 0; p < photons; ++p) {
       const BlochAngles a = c.encoding.angles(p, x);
+      if (compensate) {
+        for (Stage stage : {Stage::prep, Stage::analysis}) {
+          const CompensatedStage cs = compensated_stage(
+              c.rig.motors[c.rig.motor_index(p, stage, Plate::HWP)],
+              c.rig.motors[c.rig.motor_index(p, stage, Plate::QWP)], stage, a.theta_deg, a.phi_deg);
+          (stage == Stage::prep ? out[i].prep : out[i].analysis).push_back(cs.solutions);
+          // Reachable: every kernel built from these stages within 1e-10 of the ideal one.
+          if (!(cs.kernel_error <= 1e-10 / (2.0 * photons)))
+            unreachable.push_back({i, p, stage, cs.kernel_error});
+        }
+        continue;
+      }
       out[i].prep.push_back(preparation_solutions(a.theta_deg, a.phi_deg));
       out[i].analysis.push_back(analysis_solutions(a.theta_deg, a.phi_deg));
       // Every synthesized setting is checked by the Jones product before it is used: any
-      // kernel built from these positions stays within 1e-12 of the ideal one.
+      // kernel built from these positions stays within 1e-12 of the ideal one (ideal plates).
       const double error = synthesis_kernel_error(a.theta_deg, a.phi_deg);
       if (!(error <= 1e-12 / (2.0 * photons))) {
         std::ostringstream e;
@@ -307,7 +324,7 @@ Plan plan_campaign(const Campaign& campaign, const PlanOptions& options) {
 
   Plan plan;
   plan.warnings = c.warnings();
-  const std::vector<PointTargets> targets = synthesize_points(c);
+  const std::vector<PointTargets> targets = synthesize_points(c, plan.summary.unreachable);
   const EntryStatistics stats(c);
   plan.kernel_train = ideal_gram(c.encoding, c.data.train);
   plan.kernel_test =
@@ -411,6 +428,7 @@ Plan plan_campaign(const Campaign& campaign, const PlanOptions& options) {
   s.move_naive_s = sched.move_naive_s;
   s.truncation_cost_s = sched.truncation_cost_s;
   s.epsilon_reached = worst_half_width;
+  fill_rig_kernels(c, plan);
 
   plan.gram_error = describe_gram_noise(plan.kernel_train, plan_gram_noise(plan));
   s.gram_sigma_frobenius = plan.gram_error.sigma_frobenius;
@@ -445,6 +463,7 @@ Plan plan_from_steps(const Campaign& campaign, std::vector<Step> steps) {
   plan.kernel_test =
       m > 0 ? ideal_cross(c.encoding, c.data.test, c.data.train) : Eigen::MatrixXd(0, n);
   index_steps(n, m, plan);
+  fill_rig_kernels(c, plan);
   for (const Step& st : plan.steps) plan.summary.nights = std::max(plan.summary.nights, st.night);
   plan.summary.reference_interval_min = c.schedule.reference_interval_min;
   fill_entry_statistics(c, stats, plan, c.precision.budget);
@@ -471,6 +490,44 @@ std::vector<GramProgressPoint> gram_progress(const Plan& plan) {
                    std::sqrt(std::max(0.0, sum_sq)), s.night});
   }
   return out;
+}
+
+void fill_rig_kernels(const Campaign& campaign, Plan& plan) {
+  const Rig& rig = campaign.rig;
+  const int photons = campaign.encoding.photon_count();
+  const bool random_terms = has_random_plate_terms(rig);
+  PlanSummary& s = plan.summary;
+  s.target_epsilon = campaign.precision.budget.epsilon;
+  s.kernel_bias_max = s.kernel_bias_frobenius = 0.0;
+  s.kernel_spread_max = s.kernel_spread_frobenius = 0.0;
+  // Each step on its own (a large plan has half a million): kernel_rig, and the first-order
+  // spread when the motors have random terms; then the totals in step order.
+  std::vector<double> spread(plan.steps.size(), 0.0);
+  parallel_for(static_cast<int>(plan.steps.size()), 0, WorkHooks{}, [&](int k) {
+    Step& st = plan.steps[static_cast<std::size_t>(k)];
+    st.kernel_rig = 0.0;
+    if (st.kind != StepKind::measure && st.kind != StepKind::reference) return;
+    if (st.position_deg.size() != rig.motors.size()) return;
+    st.kernel_rig = rig_kernel(rig, photons, st.position_deg);
+    if (st.kind == StepKind::measure && random_terms)
+      spread[static_cast<std::size_t>(k)] =
+          kernel_spread_sd(rig, rig_kernel_gradient(rig, photons, st.position_deg));
+  });
+  double bias_sq = 0.0, spread_sq = 0.0;
+  for (std::size_t k = 0; k < plan.steps.size(); ++k) {
+    const Step& st = plan.steps[k];
+    if (st.kind != StepKind::measure) continue;
+    const double bias = std::abs(st.kernel_rig - st.kernel_ideal);
+    const double sd = spread[k];
+    s.kernel_bias_max = std::max(s.kernel_bias_max, bias);
+    s.kernel_spread_max = std::max(s.kernel_spread_max, sd);
+    if (st.block == Block::train) {
+      bias_sq += 2.0 * bias * bias;  // both triangles
+      spread_sq += 2.0 * sd * sd;
+    }
+  }
+  s.kernel_bias_frobenius = std::sqrt(bias_sq);
+  s.kernel_spread_frobenius = std::sqrt(spread_sq);
 }
 
 double recompute_moves(const Rig& rig, std::vector<Step>& steps) {
@@ -528,6 +585,22 @@ std::string Plan::report() const {
   o << "; row-by-row order " << s.move_naive_s << " s";
   if (s.measure_move_s > 0) o << " (" << s.move_naive_s / s.measure_move_s << "x)";
   o << "\n";
+  if (s.kernel_bias_max > 0 || s.kernel_spread_max > 0 || !s.unreachable.empty()) {
+    o << std::setprecision(4) << "Plates: kernel bias up to " << s.kernel_bias_max << " (Frobenius "
+      << s.kernel_bias_frobenius << "), random offsets add up to " << s.kernel_spread_max
+      << " (Frobenius " << s.kernel_spread_frobenius << "); shot noise half-width "
+      << s.epsilon_reached << "\n";
+    if (s.plate_bias_exceeds_target())
+      o << "  WARNING: the plate bias exceeds the target precision " << s.target_epsilon
+        << ": more pairs will not help; calibrate the plates\n";
+    if (!s.unreachable.empty()) {
+      o << "  " << s.unreachable.size()
+        << " stage setting(s) the actual plates cannot realise, e.g. point "
+        << s.unreachable.front().point << " photon " << s.unreachable.front().photon << " "
+        << to_string(s.unreachable.front().stage) << " (kernel error "
+        << s.unreachable.front().kernel_error << ")\n";
+    }
+  }
   o << gram_error.report();
   if (options) {
     o << "Options: seed " << options->seed << ", "

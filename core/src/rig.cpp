@@ -7,6 +7,14 @@
 
 namespace gramline {
 
+double Motor::retardance_deg() const {
+  return (plate == Plate::HWP ? 180.0 : 90.0) + retardance_error_deg;
+}
+
+double motor_period_deg(const Motor& motor) {
+  return motor.plate == Plate::HWP && motor.retardance_error_deg == 0.0 ? 90.0 : 180.0;
+}
+
 int Rig::motor_index(int photon, Stage stage, Plate plate) const {
   for (size_t m = 0; m < motors.size(); ++m) {
     const Motor& mo = motors[m];
@@ -34,12 +42,21 @@ std::string Rig::check(int photons) const {
       return where + ".accel_deg_per_s2: must be positive";
     if (!(mo.overshoot_deg >= 0)) return where + ".overshoot_deg: must be >= 0";
     if (!std::isfinite(mo.initial_deg)) return where + ".initial_deg: must be finite";
+    // Sane ranges of the imperfections (docs/conventions.md): a plate more than 30 degrees off
+    // its nominal retardance, a zero known to worse than 5 degrees or a motor scattering by
+    // more than 1 degree is a different instrument, and almost surely a typing error.
+    if (!(std::abs(mo.retardance_error_deg) <= 30.0))
+      return where + ".retardance_error_deg: must be within -30..30 deg";
+    if (!(mo.axis_offset_sd_deg >= 0.0 && mo.axis_offset_sd_deg <= 5.0))
+      return where + ".axis_offset_sd_deg: must be within 0..5 deg";
+    if (!(mo.repeatability_sd_deg >= 0.0 && mo.repeatability_sd_deg <= 1.0))
+      return where + ".repeatability_sd_deg: must be within 0..1 deg";
     if (mo.steps_per_deg && !(*mo.steps_per_deg > 0 && *mo.steps_per_deg <= 1e9))
       return where + ".steps_per_deg: must be positive and at most 1e9";
     if (!(std::abs(mo.zero_offset_deg) <= 1e6))
       return where + ".zero_offset_deg: must be a finite number of degrees (at most 1e6 in size)";
     if (mo.range) {
-      const double period = mo.plate == Plate::HWP ? 90.0 : 180.0;
+      const double period = motor_period_deg(mo);
       if (!(mo.range->high_deg - mo.range->low_deg >= period)) {
         err << where << ".range_deg: spans " << mo.range->high_deg - mo.range->low_deg
             << " deg, less than the plate period " << period << " deg";
@@ -78,6 +95,8 @@ std::string Rig::check(int photons) const {
     if (!(detectors[d].efficiency > 0 && detectors[d].efficiency <= 1))
       return where + ".efficiency: must be in (0, 1]";
     if (!(detectors[d].dark_rate_per_s >= 0)) return where + ".dark_rate_per_s: must be >= 0";
+    if (!(detectors[d].pbs_leakage >= 0.0 && detectors[d].pbs_leakage < 0.5))
+      return where + ".pbs_leakage: must be in [0, 0.5)";
   }
   if (!(source.pair_rate_per_s > 0)) return "rig.source.pair_rate_per_s: must be positive";
   if (!(source.visibility > 0 && source.visibility <= 1))

@@ -75,7 +75,7 @@ const PlatePair& MoveModel::target(int point, int group, int sol) const {
 
 double MoveModel::motor_angle_s(int motor, double from_deg, double to_deg) const {
   const Motor& m = input_->rig->motors[motor];
-  const double period = plate_period_deg(m.plate);
+  const double period = motor_period_deg(m);
   double up = std::fmod(to_deg - from_deg, period);
   if (up < 0.0) up += period;
   if (up >= period || std::abs(up) <= 1e-9 || std::abs(up - period) <= 1e-9) return 0.0;

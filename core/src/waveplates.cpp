@@ -15,13 +15,6 @@ Eigen::Vector3d target_stokes(double theta_deg, double phi_deg) {
   const double phi = deg_to_rad(phi_deg);
   return {std::cos(theta), std::sin(theta) * std::cos(phi), std::sin(theta) * std::sin(phi)};
 }
-
-// Stokes vector of a Jones vector (h, v): (|h|^2 - |v|^2, 2 Re(h* v), 2 Im(h* v)) / norm^2.
-Eigen::Vector3d stokes(const JonesVector& s) {
-  const std::complex<double> c = std::conj(s(0)) * s(1);
-  return Eigen::Vector3d(std::norm(s(0)) - std::norm(s(1)), 2.0 * c.real(), 2.0 * c.imag()) /
-         s.squaredNorm();
-}
 }  // namespace
 
 StageSolutions preparation_solutions(double theta_deg, double phi_deg) {
@@ -74,11 +67,12 @@ double synthesis_kernel_error(double theta_deg, double phi_deg) {
   const JonesVector h(1.0, 0.0);
   double worst = 0.0;
   for (const PlatePair& p : preparation_solutions(theta_deg, phi_deg))
-    worst = std::max(worst, (stokes(prepared_state(p.hwp_deg, p.qwp_deg)) - target).norm() / 2.0);
+    worst = std::max(worst,
+                     (stokes_vector(prepared_state(p.hwp_deg, p.qwp_deg)) - target).norm() / 2.0);
   for (const PlatePair& p : analysis_solutions(theta_deg, phi_deg)) {
     // The pass port passes (HWP QWP)^dagger |H>.
     const JonesVector passed = (hwp(p.hwp_deg) * qwp(p.qwp_deg)).adjoint() * h;
-    worst = std::max(worst, (stokes(passed) - target).norm() / 2.0);
+    worst = std::max(worst, (stokes_vector(passed) - target).norm() / 2.0);
   }
   return worst;
 }

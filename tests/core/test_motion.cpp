@@ -75,9 +75,15 @@ TEST(Motion, StepCombinesSimultaneousAndSequential) {
 }
 
 TEST(Motion, EquivalentPositions) {
-  EXPECT_EQ(plate_period_deg(Plate::HWP), 90.0);
-  EXPECT_EQ(plate_period_deg(Plate::QWP), 180.0);
   Motor h = motor(Plate::HWP, 10.0, 20.0);
+  // Common practice: an exact half-wave plate repeats every 90 deg, a quarter-wave plate every
+  // 180 deg; a half-wave plate off its nominal retardance only every 180 deg.
+  EXPECT_EQ(motor_period_deg(h), 90.0);
+  EXPECT_EQ(motor_period_deg(motor(Plate::QWP, 10.0, 20.0)), 180.0);
+  Motor h_off = h;
+  h_off.retardance_error_deg = -2.0;
+  EXPECT_EQ(motor_period_deg(h_off), 180.0);
+  EXPECT_EQ(equivalent_positions_deg(h_off, 10.0, 50.0), (std::vector<double>{10.0, 190.0}));
   // Continuous: 10 + 90k within [50 - 90, 50 + 90] = [-40, 140]: 10 and 100.
   EXPECT_EQ(equivalent_positions_deg(h, 10.0, 50.0), (std::vector<double>{10.0, 100.0}));
   Motor q = motor(Plate::QWP, 10.0, 20.0);

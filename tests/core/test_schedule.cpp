@@ -126,7 +126,7 @@ void expect_positions_on_target(const Rig& rig, const ScheduleInput& in,
       const int point = mo.stage == Stage::prep ? s.prep_point : s.analysis_point;
       const auto& sols = mo.stage == Stage::prep ? in.points[point].prep[mo.photon]
                                                  : in.points[point].analysis[mo.photon];
-      const double period = plate_period_deg(mo.plate);
+      const double period = motor_period_deg(mo);
       bool hit = false;
       for (const PlatePair& pp : sols) {
         const double want = mo.plate == Plate::HWP ? pp.hwp_deg : pp.qwp_deg;

@@ -59,15 +59,19 @@ Campaign awkward_campaign() {
         m.backlash = c.rig.motors.size() % 3 == 0 ? Backlash::from_below : Backlash::shortest;
         m.overshoot_deg = 2.0 / 3.0;
         m.initial_deg = -0.1 * static_cast<double>(c.rig.motors.size());
+        m.retardance_error_deg = -1.0 / 3.0 + static_cast<double>(c.rig.motors.size()) / 7.0;
+        m.axis_offset_sd_deg = 0.1 + 1.0 / 30.0;
+        m.repeatability_sd_deg = 0.01 / 3.0;
         c.rig.motors.push_back(m);
       }
     }
-    c.rig.detectors.push_back(Detector{0.1 + 0.01 * p, 123.456 + p});
+    c.rig.detectors.push_back(Detector{0.1 + 0.01 * p, 123.456 + p, 0.001 / 3.0 + 0.01 * p});
   }
   c.rig.controller = Controller{MoveMode::sequential, 0.7000000000000001, 0.12345};
   c.rig.source = Source{76543.21, 0.9731};
   c.rig.coincidence_window_s = 1.7e-9;
   c.rig.scheme = DetectionScheme::pass_only;
+  c.rig.compensate_plates = false;
   c.precision.budget = BudgetOptions{BudgetMethod::hoeffding, 0.0123, 0.987, true};
   c.precision.fixed_pairs = 4321.5;
   c.precision.allocation = Allocation::neyman;
@@ -130,7 +134,11 @@ void expect_same_campaign(const Campaign& a, const Campaign& b) {
     EXPECT_EQ(x.backlash, y.backlash);
     EXPECT_EQ(x.overshoot_deg, y.overshoot_deg);
     EXPECT_EQ(x.initial_deg, y.initial_deg);
+    EXPECT_EQ(x.retardance_error_deg, y.retardance_error_deg);
+    EXPECT_EQ(x.axis_offset_sd_deg, y.axis_offset_sd_deg);
+    EXPECT_EQ(x.repeatability_sd_deg, y.repeatability_sd_deg);
   }
+  EXPECT_EQ(a.rig.compensate_plates, b.rig.compensate_plates);
   EXPECT_EQ(a.rig.controller.moves, b.rig.controller.moves);
   EXPECT_EQ(a.rig.controller.settle_s, b.rig.controller.settle_s);
   EXPECT_EQ(a.rig.controller.overhead_s, b.rig.controller.overhead_s);
@@ -140,6 +148,7 @@ void expect_same_campaign(const Campaign& a, const Campaign& b) {
   for (size_t d = 0; d < a.rig.detectors.size(); ++d) {
     EXPECT_EQ(a.rig.detectors[d].efficiency, b.rig.detectors[d].efficiency);
     EXPECT_EQ(a.rig.detectors[d].dark_rate_per_s, b.rig.detectors[d].dark_rate_per_s);
+    EXPECT_EQ(a.rig.detectors[d].pbs_leakage, b.rig.detectors[d].pbs_leakage);
   }
   EXPECT_EQ(a.rig.coincidence_window_s, b.rig.coincidence_window_s);
   EXPECT_EQ(a.rig.scheme, b.rig.scheme);
@@ -379,6 +388,51 @@ TEST(CampaignJson, NewKeysAreOptionalAndUnknownKeysAreRefused) {
   } catch (const InputError& e) {
     EXPECT_NE(std::string(e.what()).find("x.json: rig.foo"), std::string::npos) << e.what();
   }
+}
+
+TEST(CampaignJson, PlateImperfectionsAreOptionalAndDefaultToExactPlates) {
+  // A campaign written before plates were modelled opens with exact plates, a leak-free PBS and
+  // compensation on (docs/conventions.md, "Real plates").
+  QJsonObject root = good_object();
+  QJsonObject rig = root["rig"].toObject();
+  QJsonArray motors = rig["motors"].toArray();
+  for (int m = 0; m < motors.size(); ++m) {
+    QJsonObject o = motors[m].toObject();
+    o.remove("retardance_error_deg");
+    o.remove("axis_offset_sd_deg");
+    o.remove("repeatability_sd_deg");
+    motors[m] = o;
+  }
+  rig["motors"] = motors;
+  QJsonArray detectors = rig["detectors"].toArray();
+  for (int d = 0; d < detectors.size(); ++d) {
+    QJsonObject o = detectors[d].toObject();
+    o.remove("pbs_leakage");
+    detectors[d] = o;
+  }
+  rig["detectors"] = detectors;
+  rig.remove("compensate_plates");
+  root["rig"] = rig;
+  const Campaign c = formats::parse_campaign(QJsonDocument(root).toJson().toStdString(), "x");
+  for (const Motor& m : c.rig.motors) {
+    EXPECT_EQ(m.retardance_error_deg, 0.0);
+    EXPECT_EQ(m.axis_offset_sd_deg, 0.0);
+    EXPECT_EQ(m.repeatability_sd_deg, 0.0);
+  }
+  for (const Detector& d : c.rig.detectors) EXPECT_EQ(d.pbs_leakage, 0.0);
+  EXPECT_TRUE(c.rig.compensate_plates);
+
+  // A wrong type names the path.
+  QJsonObject bad = good_object();
+  QJsonObject bad_rig = bad["rig"].toObject();
+  QJsonArray bad_detectors = bad_rig["detectors"].toArray();
+  QJsonObject first = bad_detectors[1].toObject();
+  first["pbs_leakage"] = "some";
+  bad_detectors[1] = first;
+  bad_rig["detectors"] = bad_detectors;
+  bad["rig"] = bad_rig;
+  EXPECT_EQ(load_error(bad),
+            "bad.json: rig.detectors[1].pbs_leakage: expected a number (found a string)");
 }
 
 TEST(CampaignJson, UnwritablePathIsAnInputErrorNamingTheFile) {

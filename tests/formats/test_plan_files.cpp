@@ -32,6 +32,9 @@ Rig two_motor_rig() {
   a.backlash = Backlash::from_below;
   a.overshoot_deg = 1.25;
   a.initial_deg = 0.1;
+  a.retardance_error_deg = -2.0 / 3.0;
+  a.axis_offset_sd_deg = 0.25;
+  a.repeatability_sd_deg = 0.02;
   Motor b;
   b.name = "B,quarter";  // a comma: steps.csv must quote the column name
   b.photon = 1;
@@ -58,6 +61,7 @@ std::vector<Step> three_steps() {
   train.analysis_point = 5;
   train.position_deg = {1.0 / 3.0, -179.99999999999997};
   train.kernel_ideal = 0.8123456789012345;
+  train.kernel_rig = 0.8123456789012345 - 1.0 / 3e3;
   train.p_pass = 0.79;
   train.pairs = 5200.5;
   train.dwell_s = 2.6;
@@ -92,6 +96,9 @@ TEST(StepsJson, WriteThenReadGivesTheSameRigAndSteps) {
     EXPECT_EQ(x.backlash, y.backlash);
     EXPECT_EQ(x.overshoot_deg, y.overshoot_deg);
     EXPECT_EQ(x.initial_deg, y.initial_deg);
+    EXPECT_EQ(x.retardance_error_deg, y.retardance_error_deg);
+    EXPECT_EQ(x.axis_offset_sd_deg, y.axis_offset_sd_deg);
+    EXPECT_EQ(x.repeatability_sd_deg, y.repeatability_sd_deg);
   }
   EXPECT_EQ(back.rig.motors[0].range->low_deg, -10.0);
   EXPECT_EQ(back.rig.motors[0].range->high_deg, 350.0);
@@ -108,6 +115,7 @@ TEST(StepsJson, WriteThenReadGivesTheSameRigAndSteps) {
     EXPECT_EQ(x.analysis_point, y.analysis_point);
     EXPECT_EQ(x.position_deg, y.position_deg);
     EXPECT_EQ(x.kernel_ideal, y.kernel_ideal);
+    EXPECT_EQ(x.kernel_rig, y.kernel_rig);
     EXPECT_EQ(x.p_pass, y.p_pass);
     EXPECT_EQ(x.pairs, y.pairs);
     EXPECT_EQ(x.dwell_s, y.dwell_s);
@@ -225,18 +233,18 @@ TEST(StepsCsv, OneRowPerStepOneColumnPerMotorUnitsInHeader) {
   while (std::getline(in, line)) rows.push_back(split(line));
   ASSERT_EQ(rows.size(), 4u);
   const std::vector<std::string> header = rows[0];
-  EXPECT_EQ(header,
-            (std::vector<std::string>{"index", "kind", "block", "prep_point", "analysis_point",
-                                      "arm A half-wave_deg", "B,quarter_deg", "kernel_ideal",
-                                      "p_pass", "pairs", "dwell_s", "move_s", "start_s", "night"}));
+  EXPECT_EQ(header, (std::vector<std::string>{
+                        "index", "kind", "block", "prep_point", "analysis_point",
+                        "arm A half-wave_deg", "B,quarter_deg", "kernel_ideal", "kernel_rig",
+                        "p_pass", "pairs", "dwell_s", "move_s", "start_s", "night"}));
   for (size_t r = 1; r < rows.size(); ++r) EXPECT_EQ(rows[r].size(), header.size());
   EXPECT_EQ(rows[1][3], "");  // null prep_point
   EXPECT_EQ(rows[2][3], "0");
   EXPECT_EQ(rows[2][4], "5");
   EXPECT_EQ(std::stod(rows[2][5]), 1.0 / 3.0);
   EXPECT_EQ(std::stod(rows[2][6]), -179.99999999999997);
-  EXPECT_EQ(rows[3][13], "2");
-  EXPECT_EQ(std::stod(rows[3][12]), 1e5 + 0.1);
+  EXPECT_EQ(rows[3][14], "2");
+  EXPECT_EQ(std::stod(rows[3][13]), 1e5 + 0.1);
 }
 
 TEST(KernelCsv, NoHeaderCommaSeparatedAtLeastFifteenDigits) {

@@ -31,6 +31,10 @@ BlochAngles bloch_angles(const JonesVector& state);
 /// |<a|b>|^2 / (|a|^2 |b|^2): the overlap of two pure states, in [0, 1].
 double overlap(const JonesVector& a, const JonesVector& b);
 
+/// Stokes vector (S1, S2, S3) of a Jones vector, normalised: (|h|^2 - |v|^2, 2 Re(h* v),
+/// 2 Im(h* v)) / (|h|^2 + |v|^2) (docs/conventions.md).
+Eigen::Vector3d stokes_vector(const JonesVector& state);
+
 /// State made from |H> by HWP(hwp_deg) then QWP(qwp_deg) (the preparation stage).
 JonesVector prepared_state(double hwp_deg, double qwp_deg);
 

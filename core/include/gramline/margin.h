@@ -5,6 +5,7 @@
 // statistics, the unbiased kernel estimator of detection.h, PSD repair (kernel.h), retraining.
 #include <Eigen/Core>
 #include <cstdint>
+#include <optional>
 #include <string>
 #include <vector>
 
@@ -47,6 +48,13 @@ struct MarginProblem {
   /// calibration is exact (no references, or a problem made by hand).
   std::vector<CalibrationWeights> weights_train;
   std::vector<CalibrationWeights> weights_test;
+  /// Plate imperfections (plates.h, docs/conventions.md "Real plates"). When `plate_rig` has
+  /// any, every trial draws each motor's axis offset once (shared by all entries) and each
+  /// entry's repeatability, and the counts follow the kernel the rig realises at the entry's
+  /// motor positions so shifted (retardance bias and leakage included). Empty: ideal plates.
+  std::optional<Rig> plate_rig;
+  std::vector<std::vector<double>> positions_train;  ///< N x N, row-major (upper triangle)
+  std::vector<std::vector<double>> positions_test;   ///< M x N, row-major
 
   int train_count() const { return static_cast<int>(kernel_train.rows()); }
   int test_count() const { return static_cast<int>(kernel_test.rows()); }

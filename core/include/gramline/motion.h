@@ -14,9 +14,6 @@ double travel_time_s(double distance_deg, double speed_deg_per_s, double accel_d
 /// policy (`from-below`: y >= x takes T(y - x), else T(x - y + o) + T(o)).
 double motor_move_s(const Motor& motor, double from_deg, double to_deg);
 
-/// Period of the plate (90 for an HWP, 180 for a QWP), degrees.
-double plate_period_deg(Plate plate);
-
 /// Step move time: max (simultaneous) or sum (sequential) of motor times, plus settle_s if any
 /// motor moved, plus overhead_s. `from` and `to` hold one physical position per motor.
 double step_move_s(const Rig& rig, const std::vector<double>& from_deg,
@@ -27,8 +24,9 @@ double step_move_s(const Rig& rig, const std::vector<double>& from_deg,
 double combine_motor_times_s(const Controller& controller, const double* motor_times_s, int count,
                              bool any_moved);
 
-/// Physical positions equivalent to `target_deg` (target + k period) inside the motor's range,
-/// within one period either side of `near_deg` for continuous motors. Sorted ascending.
+/// Physical positions equivalent to `target_deg` (target + k motor_period_deg, rig.h) inside the
+/// motor's range, within one period either side of `near_deg` for continuous motors. Sorted
+/// ascending.
 std::vector<double> equivalent_positions_deg(const Motor& motor, double target_deg,
                                              double near_deg);
 

@@ -24,6 +24,9 @@ struct Step {
   int analysis_point = -1;
   std::vector<double> position_deg;  ///< physical position per motor (rig.motors order)
   double kernel_ideal = 0.0;
+  /// The kernel the actual plates and PBS realise at position_deg (rig_kernel, plates.h);
+  /// measure and reference steps only, 0 for the others.
+  double kernel_rig = 0.0;
   double p_pass = 0.0;
   double pairs = 0.0;
   double dwell_s = 0.0;
@@ -40,6 +43,14 @@ struct NightUse {
   double reference_s = 0.0;    ///< dwell of reference, dark and park steps (moves in move_s)
   double window_s = 0.0;
   double fill() const { return window_s > 0 ? busy_s / window_s : 0.0; }
+};
+
+/// One stage of one point whose state the actual plates cannot realise (compensation on).
+struct UnreachableSetting {
+  int point = 0;  ///< global index
+  int photon = 0;
+  Stage stage = Stage::prep;
+  double kernel_error = 0.0;  ///< largest error of the photon's kernel factor it causes
 };
 
 struct PlanSummary {
@@ -71,6 +82,19 @@ struct PlanSummary {
   double reference_interval_min = 0.0;
   double calibration_share_target = 0.0;
   double calibration_share_max = 0.0;
+  /// Plate imperfections (docs/conventions.md, "Real plates"): the largest |kernel_rig -
+  /// kernel_ideal| over measure steps, its Frobenius norm over the training Gram matrix (both
+  /// triangles), and the standard deviation the random axis offsets and repeatability add (the
+  /// largest over measure steps, and the root mean square Frobenius norm over the training Gram
+  /// matrix), to first order.
+  double kernel_bias_max = 0.0;
+  double kernel_bias_frobenius = 0.0;
+  double kernel_spread_max = 0.0;
+  double kernel_spread_frobenius = 0.0;
+  double target_epsilon = 0.0;  ///< the campaign's target half-width, for the warning below
+  /// True when the plate bias exceeds the target precision: more pairs cannot remove it.
+  bool plate_bias_exceeds_target() const { return kernel_bias_max > target_epsilon; }
+  std::vector<UnreachableSetting> unreachable;  ///< stages compensation could not realise
   std::vector<NightUse> night_use;
 };
 
@@ -157,6 +181,10 @@ std::vector<GramProgressPoint> gram_progress(const Plan& plan);
 /// summary totals that follow from the steps. Bound and naive figures are left at 0. Throws
 /// std::invalid_argument for a step naming a point the data set does not have.
 Plan plan_from_steps(const Campaign& campaign, std::vector<Step> steps);
+
+/// Sets kernel_rig of every measure and reference step from its positions (rig_kernel,
+/// plates.h) and the plate figures of the summary (kernel_bias_*, kernel_spread_*).
+void fill_rig_kernels(const Campaign& campaign, Plan& plan);
 
 /// Recomputes every step's move_s from positions alone (docs/motion-model.md); used by tests and
 /// the resume path. Returns the total.

@@ -29,12 +29,25 @@ struct Motor {
   Backlash backlash = Backlash::shortest;
   double overshoot_deg = 0.0;  ///< used by from_below
   double initial_deg = 0.0;    ///< physical position at the start of the campaign
+  /// Plate imperfections (docs/conventions.md, "Real plates"). Actual minus nominal retardance
+  /// (nominal 180 for an HWP, 90 for a QWP), degrees.
+  double retardance_error_deg = 0.0;
+  double axis_offset_sd_deg = 0.0;    ///< uncertainty of the calibrated fast-axis zero
+  double repeatability_sd_deg = 0.0;  ///< scatter of the reached position from move to move
+  /// Actual retardance of the plate, degrees.
+  double retardance_deg() const;
   /// Motor units (docs/plan-files.md, "Motor units"): motor steps per degree; absent: the
   /// controller takes degrees and no step column is written.
   std::optional<double> steps_per_deg;
   /// Motor position, in degrees, at which the plate's fast axis is horizontal (default 0).
   double zero_offset_deg = 0.0;
 };
+
+/// The period of the motor's plate, degrees: positions x and x + k period act alike. 180 for a
+/// QWP and for an HWP whose retardance is not exactly 180 degrees; 90 for an exact HWP (its fast
+/// and slow axes swap at x + 90, which only a half-wave retardance leaves unchanged). Every
+/// period in Gramline (rig checks, equivalent positions, the scheduler) comes from here.
+double motor_period_deg(const Motor& motor);
 
 struct Controller {
   MoveMode moves = MoveMode::simultaneous;
@@ -51,6 +64,8 @@ struct Source {
 struct Detector {
   double efficiency = 0.2;       ///< per-arm detection efficiency (coupling x detector), 0..1
   double dark_rate_per_s = 100;  ///< dark counts per second
+  /// Fraction of the orthogonal (V) polarization that leaves by the PBS pass port, 0..0.5.
+  double pbs_leakage = 0.0;
 };
 
 enum class DetectionScheme {
@@ -66,6 +81,9 @@ struct Rig {
   std::vector<Detector> detectors;     ///< one per photon (per arm)
   double coincidence_window_s = 2e-9;  ///< full coincidence window tau
   DetectionScheme scheme = DetectionScheme::both_ports;
+  /// Synthesise the plate angles for the actual retardances (plates.h); false keeps the angles
+  /// of ideal plates, to see the uncompensated bias.
+  bool compensate_plates = true;
 
   /// Index of the motor for (photon, stage, plate), or -1.
   int motor_index(int photon, Stage stage, Plate plate) const;
