@@ -157,6 +157,10 @@ DataSet parse_data_csv(const std::string& text, const std::string& source_name) 
     } else if (key == "set") {
       set_column = c;
     } else {
+      // One name rule for every reader (docs/parameter-ranges.md): a quoted " label " is a
+      // feature column here but would collide with the class column once written back.
+      if (const std::string why = feature_name_problem(name); !why.empty())
+        source.fail(header.line, column_text(c, name) + ": " + why);
       feature_columns.push_back(c);
     }
   }
@@ -303,11 +307,8 @@ std::string format_data_csv(const DataSet& data) {
     for (int f = 0; f < d; ++f) names.push_back("x" + std::to_string(f + 1));
   }
   for (const std::string& name : names) {
-    const std::string key = lower(trim(name));
-    if (key.empty() || key == "label" || key == "set") {
-      throw std::invalid_argument("data CSV: feature name '" + name +
-                                  "' cannot be a column name (empty, 'label' or 'set')");
-    }
+    if (const std::string why = feature_name_problem(name); !why.empty())
+      throw std::invalid_argument("data CSV: feature name '" + name + "': " + why);
   }
   std::string out;
   for (const std::string& name : names) out += csv_field(name) + ",";
