@@ -42,6 +42,7 @@ struct ExportRequest {
   std::string out_path;
   bool force = false;
   std::optional<std::uint64_t> seed;
+  std::optional<std::string> lab_key_path;  ///< sign the bundle (docs/bundle-integrity.md)
 };
 
 struct IngestRequest {
@@ -49,6 +50,7 @@ struct IngestRequest {
   std::string counts_path;
   std::string out_dir;
   bool force = false;
+  std::optional<std::string> lab_key_path;  ///< refuse the bundle unless signed with this key
 };
 
 struct ResumeRequest {
@@ -56,6 +58,8 @@ struct ResumeRequest {
   std::string counts_path;
   std::string out_path;
   bool force = false;
+  /// Refuse the bundle unless signed with this key, and sign the new one with it.
+  std::optional<std::string> lab_key_path;
 };
 
 int run_demo(const DemoRequest& request);

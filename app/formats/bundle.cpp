@@ -22,6 +22,7 @@
 #include "formats/input_error.h"
 #include "formats/json_field.h"
 #include "formats/report_html.h"
+#include "formats/signature.h"
 #include "formats/text_io.h"
 #include "gramline/detection.h"
 #include "gramline/jones.h"
@@ -117,7 +118,7 @@ BundleWritten write_bundle(const Campaign& campaign, const Plan& plan, const QSt
   refuse_existing(path, options.overwrite);
   std::map<std::string, std::string> entries = bundle_entries(campaign, plan);
   for (const auto& [name, bytes] : options.extra_entries) {
-    if (!is_safe_entry_name(name) || name == kManifestEntry)
+    if (!is_safe_entry_name(name) || name == kManifestEntry || name == kSignatureEntry)
       throw std::invalid_argument("write_bundle: unusable entry name " + name);
     entries[name] = bytes;
   }
@@ -125,6 +126,7 @@ BundleWritten write_bundle(const Campaign& campaign, const Plan& plan, const QSt
   if (!o.created_utc.isValid()) o.created_utc = QDateTime::currentDateTimeUtc();
   const std::string manifest = format_manifest(entries, campaign.seed, o);
   entries[kManifestEntry] = manifest;
+  if (o.lab_key) entries[kSignatureEntry] = format_signature(manifest, *o.lab_key);
   const std::string zip = zip_entries(entries, o.created_utc);
   save_atomically(path, zip, options.overwrite);
   BundleWritten w;
@@ -313,8 +315,9 @@ Bundle parse_bundle(const std::string& zip_bytes, const std::string& source,
   std::set<std::string> listed;
   for (const ManifestFile& f : b.manifest.files) {
     const std::string where = source + ": " + f.name;
-    if (f.name == kManifestEntry || !listed.insert(f.name).second)
-      throw InputError(source + ": manifest.json lists '" + f.name + "' twice or lists itself");
+    if (f.name == kManifestEntry || f.name == kSignatureEntry || !listed.insert(f.name).second)
+      throw InputError(source + ": manifest.json lists '" + f.name +
+                       "' twice, lists itself or lists " + kSignatureEntry);
     const auto it = b.entries.find(f.name);
     if (it == b.entries.end()) throw InputError(where + ": listed in the manifest but missing");
     if (static_cast<std::int64_t>(it->second.size()) != f.bytes ||
@@ -324,7 +327,7 @@ Bundle parse_bundle(const std::string& zip_bytes, const std::string& source,
                        "changed after export, the bundle is refused");
   }
   for (const auto& [name, bytes] : b.entries)
-    if (name != kManifestEntry && !listed.count(name))
+    if (name != kManifestEntry && name != kSignatureEntry && !listed.count(name))
       throw InputError(source + ": " + name + ": not listed in the manifest; refused");
   for (const char* needed : {kCampaignEntry, kStepsJsonEntry})
     if (!b.entries.count(needed))
@@ -362,6 +365,12 @@ Bundle read_bundle(const QString& path, const BundleReadLimits& limits) {
     throw InputError(path_text(path) + ": larger than the bundle limit of " +
                      std::to_string(limits.total_bytes) + " bytes");
   return parse_bundle(read_whole_file(path), path_text(path), limits);
+}
+
+Bundle read_bundle_checked(const QString& path, const std::optional<std::string>& lab_key) {
+  Bundle bundle = read_bundle(path);
+  if (lab_key) verify_signature(bundle.entries, *lab_key, bundle.source);
+  return bundle;
 }
 
 Plan plan_from_bundle(const Bundle& bundle) {

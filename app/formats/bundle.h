@@ -10,6 +10,8 @@
 //   data.csv        its points in the data CSV format
 //   steps.json, steps.csv, summary.json, kernel.csv   as `plan --out` (docs/plan-files.md)
 //   summary.html    printable summary with the timeline, Gram error maps and cautions
+//   signature.json  only when exported with a lab key: HMAC-SHA-256 of manifest.json
+//                   (docs/bundle-integrity.md); the one entry the manifest does not list
 //   resumed bundles also: measured_steps.json and measured_counts.csv (what earlier bundles
 //   measured, counts renumbered onto those steps) and resume.json (where the motors stopped)
 #include <QDateTime>
@@ -62,6 +64,9 @@ struct BundleWriteOptions {
   std::map<std::string, std::string> extra_entries;
   /// Creation time written in the manifest; invalid: now.
   QDateTime created_utc;
+  /// With a lab key, signature.json (HMAC-SHA-256 of the manifest, formats/signature.h) is
+  /// added; it is the one entry the manifest does not list.
+  std::optional<std::string> lab_key;
 };
 
 struct BundleWritten {
@@ -141,6 +146,10 @@ struct Bundle {
 Bundle parse_bundle(const std::string& zip_bytes, const std::string& source,
                     const BundleReadLimits& limits = {});
 Bundle read_bundle(const QString& path, const BundleReadLimits& limits = {});
+/// read_bundle, then with a lab key: refuses the bundle (InputError) unless its signature.json
+/// was made with that key over its manifest (docs/bundle-integrity.md). The commands that
+/// read bundles (ingest, resume) come through here.
+Bundle read_bundle_checked(const QString& path, const std::optional<std::string>& lab_key);
 
 /// gramline::plan_from_steps (plan.h) of the bundle's campaign and steps.json.
 Plan plan_from_bundle(const Bundle& bundle);
