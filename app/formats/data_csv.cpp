@@ -313,9 +313,15 @@ std::string format_data_csv(const DataSet& data) {
   std::string out;
   for (const std::string& name : names) out += csv_field(name) + ",";
   out += "label,set\n";
+  long line = 1;
   auto write_rows = [&](const Eigen::MatrixXd& x, const Eigen::VectorXi& y, const char* set) {
     for (long i = 0; i < x.rows(); ++i) {
-      for (long f = 0; f < x.cols(); ++f) out += exact_number_text(x(i, f)) + ",";
+      ++line;
+      for (long f = 0; f < x.cols(); ++f) {
+        out += finite_number_text(x(i, f), "data CSV: line " + std::to_string(line) + ", column " +
+                                               std::to_string(f + 1)) +
+               ",";
+      }
       out += (y(i) > 0 ? "+1," : "-1,");
       out += set;
       out += "\n";

@@ -213,9 +213,7 @@ void write_ingest_files(const IngestRun& run, const QString& dir, Overwrite over
                                          "drift.csv: step " + std::to_string(x.step) + ", time_s") +
              "," + estimate(x.pair_detect_rate_per_s) + "," + estimate(x.pair_detect_rate_sigma) +
              "," + estimate(x.visibility) + "," + estimate(x.visibility_sigma) + "," +
-             (x.drifted ? "1" : "0") +
-             "
-             ";
+             (x.drifted ? "1" : "0") + "\n";
   }
   Eigen::MatrixXd sigma = r.gram_sigma;
   for (int i = 0; i < n; ++i)

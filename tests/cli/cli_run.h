@@ -1,5 +1,6 @@
 #pragma once
 // Runs the gramline-cli built beside the tests and collects its exit status and output.
+#include <QFile>
 #include <QProcess>
 #include <QString>
 #include <QStringList>
@@ -26,6 +27,20 @@ inline CliRun run_cli(const QStringList& arguments) {
   run.out = process.readAllStandardOutput().toStdString();
   run.err = process.readAllStandardError().toStdString();
   return run;
+}
+
+/// The whole file as bytes; empty when it cannot be read.
+inline std::string read_text(const QString& path) {
+  QFile f(path);
+  if (!f.open(QIODevice::ReadOnly)) return {};
+  return f.readAll().toStdString();
+}
+
+/// Writes `text` as the whole file; false when it cannot.
+inline bool write_text(const QString& path, const std::string& text) {
+  QFile f(path);
+  return f.open(QIODevice::WriteOnly) &&
+         f.write(text.data(), static_cast<qint64>(text.size())) == static_cast<qint64>(text.size());
 }
 
 }  // namespace cli_test

@@ -23,16 +23,10 @@ namespace {
 using namespace gramline;
 using cli_test::run_cli;
 
-std::string read_text(const QString& path) {
-  QFile f(path);
-  if (!f.open(QIODevice::ReadOnly)) return {};
-  return f.readAll().toStdString();
-}
+using cli_test::read_text;
 
 void write_text(const QString& path, const std::string& text) {
-  QFile f(path);
-  ASSERT_TRUE(f.open(QIODevice::WriteOnly));
-  f.write(text.data(), static_cast<qint64>(text.size()));
+  ASSERT_TRUE(cli_test::write_text(path, text)) << path.toStdString();
 }
 
 class DataSafetyCli : public ::testing::Test {
