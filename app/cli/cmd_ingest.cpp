@@ -9,6 +9,7 @@
 #include "formats/counts_csv.h"
 #include "formats/file_set.h"
 #include "formats/ingest_run.h"
+#include "formats/signature.h"
 
 namespace gramline::cli {
 
@@ -21,7 +22,11 @@ int run_ingest(const IngestRequest& request) {
   for (const std::string& name : formats::ingest_file_names()) {
     formats::refuse_existing(QDir(out).filePath(QString::fromStdString(name)), overwrite);
   }
-  const formats::Bundle bundle = formats::read_bundle(QString::fromStdString(request.bundle_path));
+  std::optional<std::string> key;
+  if (request.lab_key_path)
+    key = formats::read_lab_key(QString::fromStdString(*request.lab_key_path));
+  const formats::Bundle bundle =
+      formats::read_bundle_checked(QString::fromStdString(request.bundle_path), key);
   const formats::CountsFile counts = formats::read_counts_csv(
       QString::fromStdString(request.counts_path), formats::counts_layout(bundle.campaign));
   formats::IngestRun run;

@@ -8,6 +8,7 @@
 #include "formats/cautions_text.h"
 #include "formats/counts_csv.h"
 #include "formats/resume_run.h"
+#include "formats/signature.h"
 
 namespace gramline::cli {
 
@@ -17,7 +18,10 @@ int run_resume(const ResumeRequest& request) {
   const formats::Overwrite overwrite =
       request.force ? formats::Overwrite::allow : formats::Overwrite::refuse;
   formats::refuse_existing(out, overwrite);
-  const formats::Bundle bundle = formats::read_bundle(parent_path);
+  std::optional<std::string> key;
+  if (request.lab_key_path)
+    key = formats::read_lab_key(QString::fromStdString(*request.lab_key_path));
+  const formats::Bundle bundle = formats::read_bundle_checked(parent_path, key);
   const formats::CountsFile counts = formats::read_counts_csv(
       QString::fromStdString(request.counts_path), formats::counts_layout(bundle.campaign));
   formats::ResumeRun run;
@@ -31,7 +35,7 @@ int run_resume(const ResumeRequest& request) {
     std::cerr << "gramline-cli resume: warning: " << run.bundle_warning << "\n";
   std::cout << run.report();
   const formats::BundleWritten written =
-      formats::write_resumed_bundle(run, bundle, parent_path, out, overwrite);
+      formats::write_resumed_bundle(run, bundle, parent_path, out, overwrite, key);
   std::cout << "wrote the bundle " << request.out_path << " (" << written.entries.size()
             << " files; parent " << bundle.manifest_sha256.substr(0, 12) << "...; manifest SHA-256 "
             << written.manifest_sha256 << "; bundle id " << written.bundle_id << ")\n\n"

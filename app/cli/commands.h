@@ -55,6 +55,7 @@ struct ExportRequest {
   std::string out_path;
   bool force = false;
   std::optional<std::uint64_t> seed;
+  std::optional<std::string> lab_key_path;  ///< sign the bundle (docs/bundle-integrity.md)
 };
 
 struct IngestRequest {
@@ -62,6 +63,7 @@ struct IngestRequest {
   std::string counts_path;
   std::string out_dir;
   bool force = false;
+  std::optional<std::string> lab_key_path;  ///< refuse the bundle unless signed with this key
 };
 
 struct ResumeRequest {
@@ -70,6 +72,8 @@ struct ResumeRequest {
   std::string out_path;
   bool force = false;
   std::optional<std::string> first_night;  ///< YYYY-MM-DD; absent: the day after the last night
+  /// Refuse the bundle unless signed with this key, and sign the new one with it.
+  std::optional<std::string> lab_key_path;
 };
 
 struct SimulateRequest {

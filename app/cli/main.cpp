@@ -66,6 +66,11 @@ const OptionEntry kOptions[] = {
      "               last night counted)\n"},
     {"force", "",
      "  --force      replace existing output files (otherwise they are left untouched)\n"},
+    {"lab-key", "FILE",
+     "  --lab-key FILE\n"
+     "               a file holding the lab's secret key (at least 16 bytes): export and resume\n"
+     "               sign their bundle with it; ingest and resume accept only a bundle signed\n"
+     "               with it\n"},
 };
 
 const char* const kVersionHelp = "  --version    print the version\n";
@@ -116,22 +121,22 @@ const std::vector<CommandEntry>& commands() {
        {"data", "out", "seed", "trials", "force"},
        "the file for the check JSON (without it: standard output)"},
       {"export",
-       "export CAMPAIGN --out FILE.zip [--data CSV] [--seed N] [--force]",
+       "export CAMPAIGN --out FILE.zip [--data CSV] [--seed N] [--force] [--lab-key FILE]",
        "Plan the campaign and write the hand-off bundle for the rig: steps, campaign, data,\n"
        "summary, printable summary.html and a manifest with the SHA-256 of every file.\n",
-       {"data", "out", "seed", "force"},
+       {"data", "out", "seed", "force", "lab-key"},
        "the bundle (a zip file) to write"},
       {"ingest",
-       "ingest BUNDLE COUNTS --out DIR [--force]",
+       "ingest BUNDLE COUNTS --out DIR [--force] [--lab-key FILE]",
        "Check the bundle and the rig's counts file against each other, build the measured\n"
        "Gram matrix, compare it with the prediction, track drift, train the classifier.\n",
-       {"out", "force"},
+       {"out", "force", "lab-key"},
        "the folder for the results (created if needed)"},
       {"resume",
-       "resume BUNDLE COUNTS --out FILE.zip [--first-night YYYY-MM-DD] [--force]",
+       "resume BUNDLE COUNTS --out FILE.zip [--first-night YYYY-MM-DD] [--force] [--lab-key FILE]",
        "Keep what the counts file measured and plan the rest from where the motors stopped;\n"
        "the new bundle names its parent.\n",
-       {"out", "first-night", "force"},
+       {"out", "first-night", "force", "lab-key"},
        "the new bundle (a zip file) to write"},
       {"simulate",
        "simulate BUNDLE --out COUNTS [--seed N] [--fade-per-hour F] [--stop-after-hours H]\n"
@@ -446,6 +451,7 @@ int dispatch(const QStringList& argv) {
     request.data_path = line.value("data");
     request.out_path = line.required("out", "FILE.zip");
     request.seed = line.seed();
+    request.lab_key_path = line.value("lab-key");
     return gramline::cli::run_export(request);
   }
   if (name == "simulate") {
@@ -465,11 +471,13 @@ int dispatch(const QStringList& argv) {
   // ingest and resume: a bundle and a counts file in.
   const std::vector<std::string> inputs = line.positional(2, "the bundle and the counts file");
   const bool force = line.flag("force");
+  const std::optional<std::string> lab_key = line.value("lab-key");
   if (name == "ingest") {
-    return gramline::cli::run_ingest({inputs[0], inputs[1], line.required("out", "DIR"), force});
+    return gramline::cli::run_ingest(
+        {inputs[0], inputs[1], line.required("out", "DIR"), force, lab_key});
   }
   gramline::cli::ResumeRequest resume{inputs[0], inputs[1], line.required("out", "FILE.zip"), force,
-                                      line.value("first-night")};
+                                      line.value("first-night"), lab_key};
   return gramline::cli::run_resume(resume);
 }
 

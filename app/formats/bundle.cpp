@@ -24,6 +24,7 @@
 #include "formats/input_error.h"
 #include "formats/json_field.h"
 #include "formats/report_html.h"
+#include "formats/signature.h"
 #include "formats/text_io.h"
 #include "gramline/detection.h"
 #include "gramline/jones.h"
@@ -143,6 +144,7 @@ BundleWritten write_bundle(const Campaign& campaign, const Plan& plan, const QSt
   if (o.bundle_id.empty()) o.bundle_id = new_bundle_id();
   const std::string manifest = format_manifest(entries, campaign.seed, o);
   entries[kManifestEntry] = manifest;
+  if (o.lab_key) entries[kSignatureEntry] = format_signature(manifest, *o.lab_key);
   const std::string zip = zip_entries(entries, o.created_utc);
   save_atomically(path, zip, options.overwrite);
   BundleWritten w;
@@ -183,7 +185,9 @@ std::int64_t bundle_entry_limit(std::string_view name) {
       {kSummaryHtmlEntry, kSummaryHtmlBytes},
       {kMeasuredStepsEntry, kStepsJsonBytes},
       {kMeasuredCountsEntry, kCountsBytes},
-      {kResumeEntry, kSmallJsonBytes}};
+      {kResumeEntry, kSmallJsonBytes},
+      {kCautionsEntry, kSmallJsonBytes},
+      {kSignatureEntry, kSmallJsonBytes}};
   const auto it = known.find(name);
   return it == known.end() ? -1 : it->second;
 }
@@ -385,8 +389,9 @@ Bundle parse_bundle(const std::string& zip_bytes, const std::string& source,
   std::set<std::string> listed;
   for (const ManifestFile& f : b.manifest.files) {
     const std::string where = source + ": " + f.name;
-    if (f.name == kManifestEntry || !listed.insert(f.name).second)
-      throw InputError(source + ": manifest.json lists '" + f.name + "' twice or lists itself");
+    if (f.name == kManifestEntry || f.name == kSignatureEntry || !listed.insert(f.name).second)
+      throw InputError(source + ": manifest.json lists '" + f.name +
+                       "' twice, lists itself or lists " + kSignatureEntry);
     const auto it = b.entries.find(f.name);
     if (it == b.entries.end()) throw InputError(where + ": listed in the manifest but missing");
     if (static_cast<std::int64_t>(it->second.size()) != f.bytes ||
@@ -396,7 +401,7 @@ Bundle parse_bundle(const std::string& zip_bytes, const std::string& source,
                        "changed after export, the bundle is refused");
   }
   for (const auto& [name, bytes] : b.entries)
-    if (name != kManifestEntry && !listed.count(name))
+    if (name != kManifestEntry && name != kSignatureEntry && !listed.count(name))
       throw InputError(source + ": " + name + ": not listed in the manifest; refused");
   for (const char* needed : {kCampaignEntry, kStepsJsonEntry})
     if (!b.entries.count(needed))
@@ -449,6 +454,12 @@ std::string check_counts_bundle(const Bundle& bundle, const CountsFile& counts) 
                      ", but " + bundle.source + " is bundle " + ours +
                      "; counts of another bundle are refused");
   return {};
+}
+
+Bundle read_bundle_checked(const QString& path, const std::optional<std::string>& lab_key) {
+  Bundle bundle = read_bundle(path);
+  if (lab_key) verify_signature(bundle.entries, *lab_key, bundle.source);
+  return bundle;
 }
 
 Plan plan_from_bundle(const Bundle& bundle) {

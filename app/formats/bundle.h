@@ -12,6 +12,8 @@
 //   steps.json, steps.csv, summary.json, kernel.csv   as `plan --out` (docs/plan-files.md)
 //   summary.html    printable summary with the timeline, Gram error maps and cautions
 //   CAUTIONS.txt    the cautions in plain text, for whoever runs the rig
+//   signature.json  only when exported with a lab key: HMAC-SHA-256 of manifest.json
+//                   (docs/bundle-integrity.md); the one entry the manifest does not list
 //   resumed bundles also: measured_steps.json and measured_counts.csv (what earlier bundles
 //   measured, counts renumbered onto those steps) and resume.json (where the motors stopped)
 #include <QDateTime>
@@ -72,6 +74,9 @@ struct BundleWriteOptions {
   std::string bundle_id;
   /// A resumed bundle: what was measured before, for summary.html (docs/plan-files.md).
   std::optional<ResumeSummary> resume;
+  /// With a lab key, signature.json (HMAC-SHA-256 of the manifest, formats/signature.h) is
+  /// added; it is the one entry the manifest does not list.
+  std::optional<std::string> lab_key;
 };
 
 /// 32 random lowercase hexadecimal digits (128 bits from the system's random source).
@@ -165,6 +170,10 @@ struct Bundle {
 Bundle parse_bundle(const std::string& zip_bytes, const std::string& source,
                     const BundleReadLimits& limits = {});
 Bundle read_bundle(const QString& path, const BundleReadLimits& limits = {});
+/// read_bundle, then with a lab key: refuses the bundle (InputError) unless its signature.json
+/// was made with that key over its manifest (docs/bundle-integrity.md). The commands that
+/// read bundles (ingest, resume) come through here.
+Bundle read_bundle_checked(const QString& path, const std::optional<std::string>& lab_key);
 
 /// Whether `counts` answer `bundle`: throws InputError naming both ids when the counts file
 /// names another bundle. Returns a warning when the counts file names no bundle (a file written

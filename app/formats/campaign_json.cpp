@@ -66,7 +66,12 @@ DataSet data_from_json(const JsonField& f) {
   if (static_cast<std::int64_t>(names.size()) > limits::kFeatures)
     f["feature_names"].fail(std::to_string(names.size()) + " features, more than the limit of " +
                             std::to_string(limits::kFeatures) + " (docs/limits.md)");
-  for (const JsonField& n : names) data.feature_names.push_back(n.text());
+  for (const JsonField& n : names) {
+    data.feature_names.push_back(n.text());
+    // The same name rule as the data CSV reader (docs/parameter-ranges.md).
+    if (const std::string why = feature_name_problem(data.feature_names.back()); !why.empty())
+      n.fail(why);
+  }
   data.positive_name = f["positive_name"].text();
   data.negative_name = f["negative_name"].text();
   const long d = static_cast<long>(data.feature_names.size());
@@ -348,8 +353,9 @@ Campaign parse_campaign(const std::string& bytes, const std::string& file) {
 }
 
 std::string format_campaign(const Campaign& campaign) {
-  const QByteArray bytes =
-      QJsonDocument(campaign_to_json(campaign)).toJson(QJsonDocument::Indented);
+  const QJsonObject object = campaign_to_json(campaign);
+  require_finite_json(object, "campaign " + campaign.name);
+  const QByteArray bytes = QJsonDocument(object).toJson(QJsonDocument::Indented);
   return std::string(bytes.constData(), static_cast<size_t>(bytes.size()));
 }
 

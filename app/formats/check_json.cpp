@@ -146,9 +146,10 @@ QJsonObject check_json(const Campaign& campaign, const MarginCheck& check, std::
 
 std::string format_check_json(const Campaign& campaign, const MarginCheck& check,
                               std::uint64_t seed, double confidence) {
-  return QJsonDocument(check_json(campaign, check, seed, confidence))
-      .toJson(QJsonDocument::Indented)
-      .toStdString();
+  const QJsonObject o = check_json(campaign, check, seed, confidence);
+  // Figures that may be infinite are already null above; anything else non-finite is refused.
+  require_finite_json(o, "check JSON");
+  return QJsonDocument(o).toJson(QJsonDocument::Indented).toStdString();
 }
 
 void write_check_json(const Campaign& campaign, const MarginCheck& check, std::uint64_t seed,

@@ -159,6 +159,10 @@ DataSet parse_data_csv(const std::string& text, const std::string& source_name) 
     } else if (key == "set") {
       set_column = c;
     } else {
+      // One name rule for every reader (docs/parameter-ranges.md): a quoted " label " is a
+      // feature column here but would collide with the class column once written back.
+      if (const std::string why = feature_name_problem(name); !why.empty())
+        source.fail(header.line, column_text(c, name) + ": " + why);
       feature_columns.push_back(c);
     }
   }
@@ -325,18 +329,21 @@ std::string format_data_csv(const DataSet& data) {
     for (int f = 0; f < d; ++f) names.push_back("x" + std::to_string(f + 1));
   }
   for (const std::string& name : names) {
-    const std::string key = lower(trim(name));
-    if (key.empty() || key == "label" || key == "set") {
-      throw std::invalid_argument("data CSV: feature name '" + name +
-                                  "' cannot be a column name (empty, 'label' or 'set')");
-    }
+    if (const std::string why = feature_name_problem(name); !why.empty())
+      throw std::invalid_argument("data CSV: feature name '" + name + "': " + why);
   }
   std::string out;
   for (const std::string& name : names) out += csv_field(name) + ",";
   out += "label,set\n";
+  long line = 1;
   auto write_rows = [&](const Eigen::MatrixXd& x, const Eigen::VectorXi& y, const char* set) {
     for (long i = 0; i < x.rows(); ++i) {
-      for (long f = 0; f < x.cols(); ++f) out += exact_number_text(x(i, f)) + ",";
+      ++line;
+      for (long f = 0; f < x.cols(); ++f) {
+        out += finite_number_text(x(i, f), "data CSV: line " + std::to_string(line) + ", column " +
+                                               std::to_string(f + 1)) +
+               ",";
+      }
       out += (y(i) > 0 ? "+1," : "-1,");
       out += set;
       out += "\n";

@@ -181,6 +181,7 @@ std::string format_ingest_json(const IngestRun& run, const std::string& set_id,
     o[kSetIdKey] = q(set_id);
     o[kSetFilesKey] = files;
   }
+  require_finite_json(o, "ingest.json");
   const QByteArray text = QJsonDocument(o).toJson(QJsonDocument::Indented);
   return std::string(text.constData(), static_cast<size_t>(text.size()));
 }
@@ -200,10 +201,13 @@ void write_ingest_files(const IngestRun& run, const QString& dir, Overwrite over
   std::string z = "block,row,col,step,measured,predicted,sigma_measured,z\n";
   auto add = [&](const char* block, long row, long col, int step, double measured, double predicted,
                  double sigma, double zz) {
+    const std::string at = "zscores.csv: " + std::string(block) + " entry (" + std::to_string(row) +
+                           ", " + std::to_string(col) + "), ";
     z += std::string(block) + "," + std::to_string(row) + "," + std::to_string(col) + "," +
-         std::to_string(step) + "," + seventeen_digit_text(measured) + "," +
-         seventeen_digit_text(predicted) + "," + seventeen_digit_text(sigma) + "," +
-         seventeen_digit_text(zz) + "\n";
+         std::to_string(step) + "," + finite_seventeen_digit_text(measured, at + "measured") + "," +
+         finite_seventeen_digit_text(predicted, at + "predicted") + "," +
+         finite_seventeen_digit_text(sigma, at + "sigma_measured") + "," +
+         finite_seventeen_digit_text(zz, at + "z") + "\n";
   };
   for (int i = 0; i < n; ++i)
     for (int j = i + 1; j < n; ++j)
@@ -218,12 +222,18 @@ void write_ingest_files(const IngestRun& run, const QString& dir, Overwrite over
   std::string drift =
       "step,time_s,pair_detect_rate_per_s,pair_detect_rate_sigma,visibility,"
       "visibility_sigma,drifted\n";
+  // A reference step without an estimate (no counts) leaves its figures empty, as the matrices
+  // do for unmeasured entries: no NaN is written.
+  auto estimate = [](double v) {
+    return std::isfinite(v) ? seventeen_digit_text(v) : std::string();
+  };
   for (const DriftPoint& x : r.drift) {
-    drift += std::to_string(x.step) + "," + seventeen_digit_text(x.time_s) + "," +
-             seventeen_digit_text(x.pair_detect_rate_per_s) + "," +
-             seventeen_digit_text(x.pair_detect_rate_sigma) + "," +
-             seventeen_digit_text(x.visibility) + "," + seventeen_digit_text(x.visibility_sigma) +
-             "," + (x.drifted ? "1" : "0") + "\n";
+    drift += std::to_string(x.step) + "," +
+             finite_seventeen_digit_text(x.time_s,
+                                         "drift.csv: step " + std::to_string(x.step) + ", time_s") +
+             "," + estimate(x.pair_detect_rate_per_s) + "," + estimate(x.pair_detect_rate_sigma) +
+             "," + estimate(x.visibility) + "," + estimate(x.visibility_sigma) + "," +
+             (x.drifted ? "1" : "0") + "\n";
   }
   Eigen::MatrixXd sigma = r.gram_sigma;
   for (int i = 0; i < n; ++i)

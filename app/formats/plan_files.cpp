@@ -24,7 +24,10 @@ constexpr std::size_t kSinkChunk = 1 << 16;
 
 QString q(const std::string& text) { return QString::fromStdString(text); }
 
-std::string json_text(const QJsonObject& object) {
+// Every JSON file goes through here: no NaN or infinity is ever written (they would become
+// null, which our own readers refuse).
+std::string json_text(const QJsonObject& object, const std::string& file) {
+  require_finite_json(object, file);
   const QByteArray bytes = QJsonDocument(object).toJson(QJsonDocument::Indented);
   return std::string(bytes.constData(), static_cast<size_t>(bytes.size()));
 }
@@ -85,7 +88,7 @@ void write_steps_json(const Rig& rig, const std::vector<Step>& steps, const Text
                      {"pbs_leakage", leakage},
                      {"controller", controller_to_json(rig.controller)}};
   if (!set_id.empty()) header[kSetIdKey] = q(set_id);
-  std::string head = json_text(header);
+  std::string head = json_text(header, "steps.json");
   // Drop the closing brace and newline of the header object to append "steps".
   head.erase(head.find_last_of('}'));
   while (!head.empty() && (head.back() == '\n' || head.back() == ' ')) head.pop_back();
@@ -96,6 +99,10 @@ void write_steps_json(const Rig& rig, const std::vector<Step>& steps, const Text
                    ":");
   }
   auto point = [](int index) { return index < 0 ? std::string("null") : std::to_string(index); };
+  std::string at;  // "steps.json: steps[i]." for messages about a figure that is not finite
+  auto num = [&at](double value, const char* field) {
+    return finite_number_text(value, at + field);
+  };
   std::string out = std::move(head);
   out += ",\n    \"steps\": [";
   for (size_t i = 0; i < steps.size(); ++i) {
@@ -105,22 +112,23 @@ void write_steps_json(const Rig& rig, const std::vector<Step>& steps, const Text
       out.clear();
     }
     const Step& st = steps[i];
+    at = "steps.json: steps[" + std::to_string(i) + "].";
     out += i == 0 ? "\n      {" : ",\n      {";
     out += "\"index\":" + std::to_string(i) + ",\"kind\":\"" + to_string(st.kind) +
            "\",\"block\":\"" + to_string(st.block) + "\",\"prep_point\":" + point(st.prep_point) +
            ",\"analysis_point\":" + point(st.analysis_point) + ",\"position_deg\":{";
     for (size_t m = 0; m < keys.size() && m < st.position_deg.size(); ++m) {
       if (m > 0) out += ",";
-      out += keys[m] + exact_number_text(st.position_deg[m]);
+      out += keys[m] +
+             finite_number_text(st.position_deg[m], at + "position_deg." + rig.motors[m].name);
     }
-    out += "},\"kernel_ideal\":" + exact_number_text(st.kernel_ideal) +
-           ",\"kernel_rig\":" + exact_number_text(st.kernel_rig) +
-           ",\"p_pass\":" + exact_number_text(st.p_pass) +
-           ",\"pairs\":" + exact_number_text(st.pairs) +
-           ",\"dwell_s\":" + exact_number_text(st.dwell_s) +
-           ",\"move_s\":" + exact_number_text(st.move_s) +
-           ",\"start_s\":" + exact_number_text(st.start_s) +
-           ",\"night\":" + std::to_string(st.night) + "}";
+    out += "},\"kernel_ideal\":" + num(st.kernel_ideal, "kernel_ideal") +
+           ",\"kernel_rig\":" + num(st.kernel_rig, "kernel_rig") +
+           ",\"p_pass\":" + num(st.p_pass, "p_pass") + ",\"pairs\":" + num(st.pairs, "pairs") +
+           ",\"dwell_s\":" + num(st.dwell_s, "dwell_s") +
+           ",\"move_s\":" + num(st.move_s, "move_s") +
+           ",\"start_s\":" + num(st.start_s, "start_s") + ",\"night\":" + std::to_string(st.night) +
+           "}";
   }
   out += steps.empty() ? "]\n}\n" : "\n    ]\n}\n";
   sink(out);
@@ -148,9 +156,11 @@ void write_steps_csv(const Rig& rig, const std::vector<Step>& steps, const TextS
     const Step& s = steps[i];
     out += std::to_string(i) + "," + to_string(s.kind) + "," + to_string(s.block) + "," +
            point(s.prep_point) + "," + point(s.analysis_point);
+    const std::string at = "steps.csv: line " + std::to_string(i + 2) + ", ";
     for (size_t m = 0; m < rig.motors.size(); ++m) {
       out += ",";
-      if (m < s.position_deg.size()) out += exact_number_text(s.position_deg[m]);
+      if (m < s.position_deg.size())
+        out += finite_number_text(s.position_deg[m], at + rig.motors[m].name + "_deg");
     }
     for (size_t m = 0; m < rig.motors.size(); ++m) {
       if (!has_motor_units(rig.motors[m])) continue;
@@ -158,10 +168,10 @@ void write_steps_csv(const Rig& rig, const std::vector<Step>& steps, const TextS
       if (m < s.position_deg.size())
         out += std::to_string(motor_steps(rig.motors[m], s.position_deg[m]));
     }
-    for (double v :
-         {s.kernel_ideal, s.kernel_rig, s.p_pass, s.pairs, s.dwell_s, s.move_s, s.start_s}) {
-      out += "," + exact_number_text(v);
-    }
+    const std::pair<const char*, double> figures[] = {
+        {"kernel_ideal", s.kernel_ideal}, {"kernel_rig", s.kernel_rig}, {"p_pass", s.p_pass}, {"pairs", s.pairs},
+        {"dwell_s", s.dwell_s},           {"move_s", s.move_s}, {"start_s", s.start_s}};
+    for (const auto& [name, v] : figures) out += "," + finite_number_text(v, at + name);
     out += "," + std::to_string(s.night) + "\n";
   }
   sink(out);
@@ -247,7 +257,7 @@ std::string format_summary_json(const Campaign& campaign, const Plan& plan,
     o[kSetIdKey] = q(set_id);
     o[kSetFilesKey] = files;
   }
-  return json_text(o);
+  return json_text(o, "summary.json");
 }
 
 std::string format_kernel_csv(const Eigen::MatrixXd& kernel) {
@@ -255,7 +265,8 @@ std::string format_kernel_csv(const Eigen::MatrixXd& kernel) {
   for (long i = 0; i < kernel.rows(); ++i) {
     for (long j = 0; j < kernel.cols(); ++j) {
       if (j > 0) out += ",";
-      out += seventeen_digit_text(kernel(i, j));
+      out += finite_seventeen_digit_text(kernel(i, j), "kernel.csv: row " + std::to_string(i + 1) +
+                                                           ", column " + std::to_string(j + 1));
     }
     out += "\n";
   }

@@ -11,6 +11,7 @@
 
 #include "formats/input_error.h"
 #include "formats/plan_files.h"
+#include "formats/text_io.h"
 
 namespace gramline::formats {
 
@@ -138,9 +139,10 @@ std::string ResumeRun::report() const {
 
 BundleWritten write_resumed_bundle(const ResumeRun& run, const Bundle& parent,
                                    const QString& parent_path, const QString& path,
-                                   Overwrite overwrite) {
+                                   Overwrite overwrite, const std::optional<std::string>& lab_key) {
   BundleWriteOptions options;
   options.overwrite = overwrite;
+  options.lab_key = lab_key;
   options.parent =
       BundleParent{QFileInfo(parent_path).fileName().toStdString(), parent.manifest_sha256};
   const Rig& rig = run.campaign.rig;
@@ -162,6 +164,7 @@ BundleWritten write_resumed_bundle(const ResumeRun& run, const Bundle& parent,
       {"simulated_counts", !run.simulated_note.empty()},
       {"start_position_deg", positions},
       {"measured", measured}};
+  require_finite_json(resume, "resume.json");
   const QByteArray text = QJsonDocument(resume).toJson(QJsonDocument::Indented);
   options.extra_entries[kResumeEntry] = text.toStdString();
   ResumeSummary summary;

@@ -46,9 +46,11 @@ ResumeRun plan_resume(const Bundle& bundle, const CountsFile& counts, const Work
                       const ResumeOptions& options = {});
 
 /// Writes the new bundle: the remaining plan plus measured_steps.json, measured_counts.csv and
-/// resume.json; its manifest names the parent (file name and manifest SHA-256).
+/// resume.json; its manifest names the parent (file name and manifest SHA-256). With a lab key
+/// the new bundle is signed (signature.json).
 BundleWritten write_resumed_bundle(const ResumeRun& run, const Bundle& parent,
                                    const QString& parent_path, const QString& path,
-                                   Overwrite overwrite);
+                                   Overwrite overwrite,
+                                   const std::optional<std::string>& lab_key = std::nullopt);
 
 }  // namespace gramline::formats

@@ -3,8 +3,12 @@
 #include <QFile>
 #include <QFileInfo>
 #include <algorithm>
+#include <QJsonArray>
+#include <QJsonObject>
+#include <QSaveFile>
 #include <array>
 #include <charconv>
+#include <cmath>
 #include <cstdio>
 
 #include "formats/atomic_file.h"
@@ -22,6 +26,42 @@ std::string seventeen_digit_text(double value) {
   std::array<char, 64> buffer{};
   const int length = std::snprintf(buffer.data(), buffer.size(), "%.17g", value);
   return std::string(buffer.data(), static_cast<size_t>(length));
+}
+
+namespace {
+
+[[noreturn]] void refuse_non_finite(double value, const std::string& field) {
+  throw NonFiniteOutput(field + ": " + seventeen_digit_text(value) +
+                        " is not a finite number; nothing was written");
+}
+
+}  // namespace
+
+std::string finite_number_text(double value, const std::string& field) {
+  if (!std::isfinite(value)) refuse_non_finite(value, field);
+  return exact_number_text(value);
+}
+
+std::string finite_seventeen_digit_text(double value, const std::string& field) {
+  if (!std::isfinite(value)) refuse_non_finite(value, field);
+  return seventeen_digit_text(value);
+}
+
+void require_finite_json(const QJsonValue& value, const std::string& file,
+                         const std::string& path) {
+  if (value.isDouble()) {
+    if (!std::isfinite(value.toDouble())) refuse_non_finite(value.toDouble(), file + ": " + path);
+  } else if (value.isArray()) {
+    const QJsonArray array = value.toArray();
+    for (qsizetype i = 0; i < array.size(); ++i)
+      require_finite_json(array.at(i), file, path + "[" + std::to_string(i) + "]");
+  } else if (value.isObject()) {
+    const QJsonObject object = value.toObject();
+    for (auto it = object.begin(); it != object.end(); ++it) {
+      require_finite_json(it.value(), file,
+                          path + (path.empty() ? "" : ".") + it.key().toStdString());
+    }
+  }
 }
 
 bool parse_number(std::string_view text, double& out) {

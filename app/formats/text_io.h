@@ -1,8 +1,10 @@
 #pragma once
 // Small text helpers shared by the file formats: numbers that read back exactly, CSV fields,
 // and whole-file reads and atomic writes.
+#include <QJsonValue>
 #include <QString>
 #include <cstdint>
+#include <stdexcept>
 #include <string>
 #include <string_view>
 
@@ -13,6 +15,23 @@ std::string exact_number_text(double value);
 
 /// `value` with 17 significant digits (printf %.17g): enough to read back exactly.
 std::string seventeen_digit_text(double value);
+
+/// exact_number_text, for writers: a value that is not finite is never written (no output file
+/// holds NaN or an infinity, docs/parameter-ranges.md). Throws NonFiniteOutput naming `field`.
+std::string finite_number_text(double value, const std::string& field);
+/// seventeen_digit_text with the same refusal as finite_number_text.
+std::string finite_seventeen_digit_text(double value, const std::string& field);
+/// Throws NonFiniteOutput naming the file and the path (e.g. `summary.json: gram_sigma_max`)
+/// of the first number inside `value` that is not finite.
+void require_finite_json(const QJsonValue& value, const std::string& file,
+                         const std::string& path = {});
+
+/// A figure about to be written is NaN or infinite: an internal failure (exit status 1), since
+/// the inputs that could cause it are refused by the readers.
+class NonFiniteOutput : public std::runtime_error {
+ public:
+  using std::runtime_error::runtime_error;
+};
 
 /// Parses a whole decimal number (optional sign, no surrounding text). False on anything else.
 /// NaN and infinities parse (the caller decides whether they are allowed).

@@ -1,6 +1,7 @@
 #include "gramline/dataset.h"
 
 #include <algorithm>
+#include <cctype>
 #include <cmath>
 #include <numeric>
 #include <sstream>
@@ -10,6 +11,35 @@ namespace gramline {
 Eigen::VectorXd DataSet::point(int global_index) const {
   if (global_index < train_count()) return train.row(global_index).transpose();
   return test.row(global_index - train_count()).transpose();
+}
+
+namespace {
+
+std::string folded_name(const std::string& name) {
+  size_t begin = 0;
+  size_t end = name.size();
+  auto blank = [](char c) { return c == ' ' || c == '\t'; };
+  while (begin < end && blank(name[begin])) ++begin;
+  while (end > begin && blank(name[end - 1])) --end;
+  std::string out = name.substr(begin, end - begin);
+  std::transform(out.begin(), out.end(), out.begin(),
+                 [](unsigned char c) { return static_cast<char>(std::tolower(c)); });
+  return out;
+}
+
+}  // namespace
+
+std::string feature_name_problem(const std::string& name) {
+  for (unsigned char c : name) {
+    if (c < 0x20 || c == 0x7f) return "a feature name may not hold control characters";
+  }
+  const std::string key = folded_name(name);
+  if (key.empty()) return "a feature name may not be blank";
+  if (key == "label" || key == "set") {
+    return "'" + key +
+           "' is reserved for the class and set columns of the data CSV; rename the feature";
+  }
+  return {};
 }
 
 std::string validate(const DataSet& data) {
@@ -26,6 +56,15 @@ std::string validate(const DataSet& data) {
   if (!data.feature_names.empty() &&
       static_cast<int>(data.feature_names.size()) != data.feature_count())
     return "data set: feature name count differs from feature count";
+  for (size_t f = 0; f < data.feature_names.size(); ++f) {
+    if (auto e = feature_name_problem(data.feature_names[f]); !e.empty())
+      return "feature " + std::to_string(f) + " name: " + e;
+    for (size_t g = 0; g < f; ++g) {
+      if (folded_name(data.feature_names[g]) == folded_name(data.feature_names[f]))
+        return "feature " + std::to_string(f) + " name: '" + data.feature_names[f] +
+               "' is the name of feature " + std::to_string(g) + " (names ignore case)";
+    }
+  }
   auto check_block = [&](const Eigen::MatrixXd& x, const Eigen::VectorXi& y, int offset,
                          const char* what) -> std::string {
     for (int i = 0; i < x.rows(); ++i) {

@@ -36,6 +36,16 @@ FieldCheck& FieldCheck::inside(const char* field, double value, double low, doub
   return *this;
 }
 
+FieldCheck& FieldCheck::within(const char* field, double value, const SaneRange& range) {
+  if (!(value >= range.low && value <= range.high)) {
+    std::ostringstream rule;
+    rule << "must lie in [" << range.low << ", " << range.high << "]";
+    if (*range.unit) rule << " " << range.unit;
+    fail(field, rule.str(), value);
+  }
+  return *this;
+}
+
 FieldCheck& FieldCheck::require(bool holds, const char* field, const std::string& requirement) {
   if (!holds && ok()) message_ = owner_ + "." + field + ": " + requirement;
   return *this;

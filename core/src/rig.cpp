@@ -4,6 +4,7 @@
 #include <sstream>
 
 #include "gramline/enum_names.h"
+#include "gramline/field_check.h"
 
 namespace gramline {
 
@@ -36,12 +37,17 @@ std::string Rig::check(int photons) const {
           << " photon(s)";
       return err.str();
     }
-    if (!(mo.speed_deg_per_s > 0) || !std::isfinite(mo.speed_deg_per_s))
-      return where + ".speed_deg_per_s: must be positive";
-    if (!(mo.accel_deg_per_s2 > 0) || !std::isfinite(mo.accel_deg_per_s2))
-      return where + ".accel_deg_per_s2: must be positive";
-    if (!(mo.overshoot_deg >= 0)) return where + ".overshoot_deg: must be >= 0";
-    if (!std::isfinite(mo.initial_deg)) return where + ".initial_deg: must be finite";
+    // Sane ranges (docs/parameter-ranges.md): no move time may become 0, infinite or NaN.
+    FieldCheck motor(where);
+    motor.within("speed_deg_per_s", mo.speed_deg_per_s, sane::speed_deg_per_s)
+        .within("accel_deg_per_s2", mo.accel_deg_per_s2, sane::accel_deg_per_s2)
+        .within("overshoot_deg", mo.overshoot_deg, sane::overshoot_deg)
+        .within("initial_deg", mo.initial_deg, sane::position_deg);
+    if (mo.range) {
+      motor.within("range_deg[0]", mo.range->low_deg, sane::position_deg)
+          .within("range_deg[1]", mo.range->high_deg, sane::position_deg);
+    }
+    if (!motor.ok()) return motor.message();
     // Sane ranges of the imperfections (docs/conventions.md): a plate more than 30 degrees off
     // its nominal retardance, a zero known to worse than 5 degrees or a motor scattering by
     // more than 1 degree is a different instrument, and almost surely a typing error.
@@ -91,20 +97,20 @@ std::string Rig::check(int photons) const {
     return err.str();
   }
   for (size_t d = 0; d < detectors.size(); ++d) {
-    const std::string where = "rig.detectors[" + std::to_string(d) + "]";
-    if (!(detectors[d].efficiency > 0 && detectors[d].efficiency <= 1))
-      return where + ".efficiency: must be in (0, 1]";
-    if (!(detectors[d].dark_rate_per_s >= 0)) return where + ".dark_rate_per_s: must be >= 0";
+    FieldCheck detector("rig.detectors[" + std::to_string(d) + "]");
+    detector.within("efficiency", detectors[d].efficiency, sane::efficiency)
+        .within("dark_rate_per_s", detectors[d].dark_rate_per_s, sane::dark_rate_per_s);
+    if (!detector.ok()) return detector.message();
     if (!(detectors[d].pbs_leakage >= 0.0 && detectors[d].pbs_leakage < 0.5))
-      return where + ".pbs_leakage: must be in [0, 0.5)";
+      return "rig.detectors[" + std::to_string(d) + "].pbs_leakage: must be in [0, 0.5)";
   }
-  if (!(source.pair_rate_per_s > 0)) return "rig.source.pair_rate_per_s: must be positive";
-  if (!(source.visibility > 0 && source.visibility <= 1))
-    return "rig.source.visibility: must be in (0, 1]";
-  if (!(coincidence_window_s >= 0)) return "rig.coincidence_window_s: must be >= 0";
-  if (!(controller.settle_s >= 0)) return "rig.controller.settle_s: must be >= 0";
-  if (!(controller.overhead_s >= 0)) return "rig.controller.overhead_s: must be >= 0";
-  return {};
+  FieldCheck rest("rig");
+  rest.within("source.pair_rate_per_s", source.pair_rate_per_s, sane::pair_rate_per_s)
+      .within("source.visibility", source.visibility, sane::visibility)
+      .within("coincidence_window_s", coincidence_window_s, sane::coincidence_window_s)
+      .within("controller.settle_s", controller.settle_s, sane::settle_s)
+      .within("controller.overhead_s", controller.overhead_s, sane::overhead_s);
+  return rest.message();
 }
 
 namespace {

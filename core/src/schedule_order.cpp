@@ -520,7 +520,9 @@ std::vector<Code> optimized_order(const MoveModel& model, const SideCosts& costs
         if (tdir) std::reverse(tt.begin(), tt.end());
         std::vector<Code> order = sweep_order(layout, row_side, tr, tt, truncation_safe, costs);
         const double c = relaxed_order_s(model, costs, order);
-        if (c < best_cost) {
+        // The first candidate is always kept: with every cost infinite (or NaN) no candidate
+        // compares smaller, and an empty order would silently drop every entry.
+        if (best.empty() || c < best_cost) {
           best_cost = c;
           best.swap(order);
         }

@@ -39,7 +39,7 @@ inline CliRun run_cli(const QStringList& arguments) {
   return run_cli_in(arguments, QProcessEnvironment::systemEnvironment());
 }
 
-/// The whole file, or empty when it cannot be read.
+/// The whole file as bytes; empty when it cannot be read.
 inline std::string read_text(const QString& path) {
   QFile f(path);
   if (!f.open(QIODevice::ReadOnly)) return {};

@@ -753,3 +753,20 @@ TEST(Schedule, SearchBudgetIsCountedNotTimed) {
   expect_moves_recomputable(rig, c.steps);
   expect_positions_on_target(rig, in, c.steps);
 }
+TEST(Schedule, EveryEntryKeepsItsStepWhenEveryMoveCostIsInfinite) {
+  // A motor speed of 4.9e-324 deg/s (refused by Campaign::check_consistency, but the scheduler
+  // must not rely on that) makes every move cost infinite; the order search used to keep an
+  // empty best order then, and the plan lost all its measure steps while claiming to fit.
+  Rig rig = make_rig(RigShape{1});
+  for (Motor& m : rig.motors) m.speed_deg_per_s = 4.9e-324;
+  const ScheduleInput in = make_input(rig, 1, 5, 2, 3);
+  try {
+    const ScheduleResult r = build_schedule(in, ScheduleOptions{});
+    long measures = 0;
+    for (const Step& s : r.steps) measures += s.kind == StepKind::measure ? 1 : 0;
+    EXPECT_EQ(measures, static_cast<long>(in.entries.size()));
+  } catch (const std::invalid_argument& e) {
+    // Refusing is as good as planning every entry; an empty plan is not.
+    SUCCEED() << e.what();
+  }
+}

@@ -22,8 +22,15 @@ struct DataSet {
   Eigen::VectorXd point(int global_index) const;
 };
 
+/// The one rule for feature names, applied by every reader (docs/parameter-ranges.md):
+/// not blank, no control characters, and, ignoring case and surrounding white space, not
+/// `label` or `set` (the data CSV's reserved columns). Returns an empty string when `name` is
+/// usable, otherwise the reason.
+std::string feature_name_problem(const std::string& name);
+
 /// Checks the invariants every consumer relies on (both classes present among training points,
-/// labels +-1, finite features, equal widths, no duplicate training points). Returns an empty
+/// labels +-1, finite features, equal widths, no duplicate training points, usable and
+/// distinct feature names). Returns an empty
 /// string when valid, otherwise a message naming the offending point and feature.
 std::string validate(const DataSet& data);
 

@@ -5,6 +5,8 @@
 #include <string>
 #include <utility>
 
+#include "gramline/sane_ranges.h"
+
 namespace gramline {
 
 class FieldCheck {
@@ -19,6 +21,8 @@ class FieldCheck {
   FieldCheck& at_least(const char* field, double value, double low);
   /// low < value < high.
   FieldCheck& inside(const char* field, double value, double low, double high);
+  /// range.low <= value <= range.high (docs/parameter-ranges.md); NaN fails.
+  FieldCheck& within(const char* field, double value, const SaneRange& range);
   /// Any other rule: `holds` false fails with "Owner.field: `requirement`".
   FieldCheck& require(bool holds, const char* field, const std::string& requirement);
 
