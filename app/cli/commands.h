@@ -58,6 +58,13 @@ struct ResumeRequest {
   bool force = false;
 };
 
+struct CompareRequest {
+  std::string path_a;
+  std::string path_b;
+  std::optional<std::string> out_path;  ///< the comparison JSON (the table always goes to stdout)
+  bool force = false;
+};
+
 int run_demo(const DemoRequest& request);
 int run_plan(const PlanRequest& request);
 /// The margin check (cmd_check.cpp).
@@ -66,6 +73,8 @@ int run_check(const CheckRequest& request);
 int run_export(const ExportRequest& request);
 int run_ingest(const IngestRequest& request);
 int run_resume(const ResumeRequest& request);
+/// Two campaigns planned side by side (cmd_compare.cpp).
+int run_compare(const CompareRequest& request);
 
 /// Loads the campaign file and, with `data_path`, replaces its points by the data CSV. Throws
 /// formats::InputError naming the file, line or field; also when the campaign's encoding does

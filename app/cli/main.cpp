@@ -37,7 +37,8 @@ const OptionEntry kOptions[] = {
     {"seed", "N", "  --seed N     seed of the random choices (default: the campaign's seed)\n"},
     {"trials", "N", "  --trials N   simulated repetitions of the margin check\n"},
     {"out", "PATH",
-     "  --out        output file (demo, check, export, resume) or directory (plan, ingest)\n"},
+     "  --out        output file (demo, check, export, resume, compare) or directory (plan,\n"
+     "               ingest)\n"},
     {"force", "",
      "  --force      replace existing output files (otherwise they are left untouched)\n"},
 };
@@ -101,6 +102,13 @@ const std::vector<CommandEntry>& commands() {
        "the new bundle names its parent.\n",
        {"out", "force"},
        "the new bundle (a zip file) to write"},
+      {"compare",
+       "compare A B [--out FILE] [--force]",
+       "Plan two campaigns and set their figures side by side: nights, calendar span, busy,\n"
+       "move and counting time, worst kernel half-width, Gram error, pairs. The table goes to\n"
+       "standard output; with --out the comparison is also written as JSON (a, b, difference).\n",
+       {"out", "force"},
+       "the file for the comparison JSON"},
   };
   return table;
 }
@@ -362,6 +370,15 @@ int dispatch(const QStringList& argv) {
     request.out_path = line.required("out", "FILE.zip");
     request.seed = line.seed();
     return gramline::cli::run_export(request);
+  }
+  if (name == "compare") {
+    const std::vector<std::string> files = line.positional(2, "the two campaign files");
+    gramline::cli::CompareRequest request;
+    request.path_a = files[0];
+    request.path_b = files[1];
+    request.out_path = line.value("out");
+    request.force = line.flag("force");
+    return gramline::cli::run_compare(request);
   }
   // ingest and resume: a bundle and a counts file in.
   const std::vector<std::string> inputs = line.positional(2, "the bundle and the counts file");

@@ -248,17 +248,17 @@ QVariant MotorsModel::headerData(int section, Qt::Orientation orientation, int r
     case kPlate:
       return tr("Plate");
     case kSpeed:
-      return tr("Speed (°/s)");
+      return tr("Speed\n°/s");
     case kAccel:
-      return tr("Accel. (°/s²)");
+      return tr("Accel.\n°/s²");
     case kRange:
-      return tr("Range (°)");
+      return tr("Range\n°");
     case kBacklash:
       return tr("Approach");
     case kOvershoot:
-      return tr("Overshoot (°)");
+      return tr("Over-\nshoot °");
     case kInitial:
-      return tr("Initial (°)");
+      return tr("Initial\n°");
     default:
       return {};
   }
