@@ -714,8 +714,8 @@
     </message>
     <message>
         <location line="+35"/>
-        <source>noiseless decision value f (solid: boundary f = 0; dashed: margin f = ±1)</source>
-        <translation>rauschfreier Entscheidungswert f (durchgezogen: Grenze f = 0; gestrichelt: Margin f = ±1)</translation>
+        <source>noiseless decision value f</source>
+        <translation>rauschfreier Entscheidungswert f</translation>
     </message>
     <message>
         <location line="+10"/>

@@ -103,7 +103,7 @@ MainWindow::MainWindow(QWidget* parent) : QMainWindow(parent) {
   tabs_->setCurrentIndex(settings.value(QStringLiteral("window/view"), 0).toInt());
   if (!settings.contains(QStringLiteral("window/geometry"))) {
     resize(1400, 860);
-    resizeDocks({dock}, {560}, Qt::Horizontal);
+    resizeDocks({dock}, {640}, Qt::Horizontal);
   }
   update_title();
   set_all_stale(false, QString());

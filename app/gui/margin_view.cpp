@@ -306,8 +306,8 @@ void DecisionMap::paint_decision_values(QPainter& p) {
   p.drawText(axis, Qt::AlignRight, number_text(hi, 1));
   p.drawText(QRectF(x_of(0) - 40, plot.bottom() + 2, 80, fh), Qt::AlignHCenter,
              QStringLiteral("0"));
-  p.drawText(QRectF(plot.left(), plot.bottom() + fh + 2, plot.width(), fh), Qt::AlignHCenter,
-             tr("noiseless decision value f (solid: boundary f = 0; dashed: margin f = ±1)"));
+  p.drawText(QRectF(0, plot.bottom() + fh + 2, width(), fh), Qt::AlignHCenter,
+             tr("noiseless decision value f"));
 }
 
 void DecisionMap::mouseMoveEvent(QMouseEvent* event) {

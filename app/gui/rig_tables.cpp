@@ -150,8 +150,8 @@ QVariant MotorsModel::data(const QModelIndex& index, int role) const {
       return QString::fromStdString(m.name);
     case kPhoton:
       return m.photon + 1;
-    case kStage:
-      return stage_text(m.stage);
+    case kStage:  // short words keep the table within the editor's width
+      return m.stage == Stage::prep ? tr("prep.") : tr("analysis");
     case kPlate:
       return plate_text(m.plate);
     case kSpeed:
@@ -161,7 +161,7 @@ QVariant MotorsModel::data(const QModelIndex& index, int role) const {
     case kRange:
       return range_text(m.range);
     case kBacklash:
-      return backlash_text(m.backlash);
+      return m.backlash == Backlash::shortest ? tr("shortest") : tr("from below");
     case kOvershoot:
       return m.backlash == Backlash::from_below ? number_text(m.overshoot_deg, 2)
                                                 : QStringLiteral("–");

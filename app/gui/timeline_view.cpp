@@ -345,10 +345,10 @@ void NightStrips::mouseMoveEvent(QMouseEvent* event) {
 
 TimelineView::TimelineView(QWidget* parent) : QWidget(parent) {
   strips_ = new NightStrips;
-  auto* strips_scroll = new QScrollArea;
-  strips_scroll->setWidget(strips_);
-  strips_scroll->setWidgetResizable(true);
-  strips_scroll->setFrameShape(QFrame::NoFrame);
+  strips_scroll_ = new QScrollArea;
+  strips_scroll_->setWidget(strips_);
+  strips_scroll_->setWidgetResizable(true);
+  strips_scroll_->setFrameShape(QFrame::NoFrame);
   progress_view_ = new QChartView;
   progress_view_->setRenderHint(QPainter::Antialiasing);
   progress_view_->setAccessibleName(tr("Gram matrix progress over the night"));
@@ -371,7 +371,7 @@ TimelineView::TimelineView(QWidget* parent) : QWidget(parent) {
   ll->addWidget(note_);
 
   auto* split = new QSplitter(Qt::Vertical);
-  split->addWidget(strips_scroll);
+  split->addWidget(strips_scroll_);
   split->addWidget(lower);
   split->setStretchFactor(0, 2);
   split->setStretchFactor(1, 3);
@@ -416,7 +416,12 @@ void TimelineView::draw() {
   drawn_ = ever_drawn_ = true;
 }
 
-void TimelineView::draw_nights() { strips_->set_plan(plan_, campaign_.nights); }
+void TimelineView::draw_nights() {
+  strips_->set_plan(plan_, campaign_.nights);
+  // Every night's strip in view up to a dozen nights; more scroll.
+  strips_scroll_->setMinimumHeight(
+      std::min(strips_->sizeHint().height(), strips_->fontMetrics().height() * 34) + 4);
+}
 
 void TimelineView::draw_progress() {
   auto* chart = new QChart;

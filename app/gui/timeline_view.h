@@ -11,6 +11,7 @@
 class QChartView;
 class QComboBox;
 class QLabel;
+class QScrollArea;
 
 namespace gramline::gui {
 
@@ -86,6 +87,7 @@ class TimelineView : public QWidget {
   Campaign campaign_;
   std::vector<GramProgressPoint> progress_;
   NightStrips* strips_;
+  QScrollArea* strips_scroll_;
   QChartView* progress_view_;
   QComboBox* night_;
   QLabel* note_;
