@@ -483,7 +483,7 @@
         <translation>Aktuell − angeheftet</translation>
     </message>
     <message>
-        <location line="+64"/>
+        <location line="+63"/>
         <source>%1 pairs per entry</source>
         <translation>%1 Paare pro Eintrag</translation>
     </message>
@@ -521,7 +521,7 @@
         <translation>%1 (größte Kipp-Wahrscheinlichkeit %2 %)</translation>
     </message>
     <message>
-        <location line="+23"/>
+        <location line="+24"/>
         <source>The margin check&apos;s advice: %1 pairs per entry pass (%2 of counting); the current plan counts %3.</source>
         <translation>Rat der Margin-Prüfung: %1 Paare pro Eintrag bestehen (%2 Zählzeit); der aktuelle Plan zählt %3.</translation>
     </message>
@@ -536,17 +536,17 @@
         <translation>Der Rat der Margin-Prüfung erscheint, sobald sie fertig ist.</translation>
     </message>
     <message>
-        <location line="+3"/>
+        <location line="+4"/>
         <source>&lt;b&gt;Pinned&lt;/b&gt; %1</source>
         <translation>&lt;b&gt;Angeheftet&lt;/b&gt; %1</translation>
     </message>
     <message>
-        <location line="+1"/>
+        <location line="+2"/>
         <source>&lt;b&gt;Pinned&lt;/b&gt;: nothing yet.</source>
         <translation>&lt;b&gt;Angeheftet&lt;/b&gt;: noch nichts.</translation>
     </message>
     <message>
-        <location line="+1"/>
+        <location line="+2"/>
         <source>&lt;b&gt;Current&lt;/b&gt; %1</source>
         <translation>&lt;b&gt;Aktuell&lt;/b&gt; %1</translation>
     </message>
@@ -561,7 +561,7 @@
         <translation>schlechter als der angeheftete Plan</translation>
     </message>
     <message>
-        <location line="+8"/>
+        <location line="+9"/>
         <source>Fits its nights</source>
         <translation>Passt in seine Nächte</translation>
     </message>
@@ -576,13 +576,13 @@
         <translation>nein</translation>
     </message>
     <message>
-        <location line="+5"/>
-        <location line="+8"/>
+        <location line="+6"/>
+        <location line="+9"/>
         <source>same</source>
         <translation>gleich</translation>
     </message>
     <message>
-        <location line="-7"/>
+        <location line="-8"/>
         <location line="+8"/>
         <source>changed</source>
         <translation>geändert</translation>
@@ -688,12 +688,12 @@
         <translation>Daten und Entscheidungsgrenze</translation>
     </message>
     <message>
-        <location line="+120"/>
+        <location line="+119"/>
         <source>feature %1</source>
         <translation>Merkmal %1</translation>
     </message>
     <message numerus="yes">
-        <location line="+42"/>
+        <location line="+41"/>
         <source>With %n feature(s) the boundary is not a line in a plane. Each point will be placed at its decision value once the margin check is done.</source>
         <translation>
             <numerusform>Mit %n Merkmal ist die Grenze keine Linie in einer Ebene. Jeder Punkt wird an seinen Entscheidungswert gesetzt, sobald die Margin-Prüfung fertig ist.</numerusform>
@@ -707,13 +707,12 @@
         <translation>%1, Training</translation>
     </message>
     <message>
-        <location line="-2"/>
-        <location line="+1"/>
+        <location line="-1"/>
         <source>%1, test</source>
         <translation>%1, Test</translation>
     </message>
     <message>
-        <location line="+35"/>
+        <location line="+36"/>
         <source>noiseless decision value f</source>
         <translation>rauschfreier Entscheidungswert f</translation>
     </message>
@@ -996,12 +995,12 @@
         <translation>Reihenfolge der Punkte in den Karten</translation>
     </message>
     <message>
-        <location line="+7"/>
+        <location line="+6"/>
         <source>Rows: the point prepared; columns: the training point analysed. “Grouped by class” puts all points of one class first, a line between the classes; the pale diagonal of σ and pairs is not measured (it is 1 by construction). Darker is larger on every map.</source>
         <translation>Zeilen: der präparierte Punkt; Spalten: der analysierte Trainingspunkt. „Nach Klasse gruppiert“ stellt alle Punkte einer Klasse voran, mit einer Linie zwischen den Klassen; die helle Diagonale von σ und Paaren wird nicht gemessen (sie ist per Konstruktion 1). Dunkler heißt auf jeder Karte größer.</translation>
     </message>
     <message>
-        <location line="+35"/>
+        <location line="+36"/>
         <source>Hover over an entry to see its values, the step that measures it and when.</source>
         <translation>Zeigen Sie auf einen Eintrag, um seine Werte, den Schritt, der ihn misst, und dessen Zeitpunkt zu sehen.</translation>
     </message>
@@ -1453,7 +1452,7 @@
         <translation>&amp;Kampagnen-Editor anzeigen</translation>
     </message>
     <message>
-        <location line="+171"/>
+        <location line="+170"/>
         <source>Recomputing: the figures below belong to the campaign before your last edit.</source>
         <translation>Neuberechnung: Die Zahlen unten gehören zur Kampagne vor Ihrer letzten Änderung.</translation>
     </message>
@@ -1508,7 +1507,7 @@
         <translation>Margin-Prüfung: abgebrochen.</translation>
     </message>
     <message>
-        <location line="-133"/>
+        <location line="-132"/>
         <source>&amp;File</source>
         <translation>&amp;Datei</translation>
     </message>
@@ -1628,13 +1627,13 @@
         <translation>&amp;Margin</translation>
     </message>
     <message>
-        <location line="+1"/>
+        <location line="+0"/>
         <location line="+9"/>
         <source>&amp;Cautions</source>
         <translation>Sicherheits&amp;hinweise</translation>
     </message>
     <message>
-        <location line="-10"/>
+        <location line="-9"/>
         <source>M&amp;easured</source>
         <translation>Gem&amp;essen</translation>
     </message>
@@ -1664,7 +1663,7 @@
         <translation>&amp;Vergleich</translation>
     </message>
     <message>
-        <location line="+9"/>
+        <location line="+8"/>
         <source>&amp;User Guide</source>
         <translation>&amp;Benutzerhandbuch</translation>
     </message>
@@ -1719,7 +1718,7 @@
         <translation>Noch keine Daten: Importieren Sie eine CSV-Datei (Strg+I) oder öffnen Sie die Demo, um zu planen.</translation>
     </message>
     <message>
-        <location line="+1"/>
+        <location line="+2"/>
         <source>This campaign has no points yet, so nothing is planned. The figures of the previous campaign are not shown.</source>
         <translation>Diese Kampagne hat noch keine Punkte, daher ist nichts geplant. Die Zahlen der vorigen Kampagne werden nicht gezeigt.</translation>
     </message>
@@ -1770,7 +1769,7 @@
         <translation>Diese Kampagne kann nicht geplant werden: %1</translation>
     </message>
     <message>
-        <location line="+2"/>
+        <location line="+3"/>
         <source>There is no plan for this campaign, so there is nothing to show here. Correct the campaign as the message above says; the figures of the previous campaign are not shown.</source>
         <translation>Für diese Kampagne gibt es keinen Plan, daher ist hier nichts zu zeigen. Korrigieren Sie die Kampagne, wie die Meldung oben sagt; die Zahlen der vorigen Kampagne werden nicht gezeigt.</translation>
     </message>
@@ -1831,7 +1830,7 @@
         <translation>&lt;h3&gt;Nicht bestanden: Das Rauschen würde Entscheidungen ändern.&lt;/h3&gt;</translation>
     </message>
     <message>
-        <location line="+9"/>
+        <location line="+10"/>
         <source>Over %1 simulated runs with the planned pairs: largest flip probability of a test point %2 (allowed %3); median accuracy %4; median margin ratio %5 (required %6); PSD repair needed in %7 of runs. Classifier C = %8%9.</source>
         <translation>Über %1 simulierte Läufe mit den geplanten Paaren: größte Kippwahrscheinlichkeit eines Testpunkts %2 (erlaubt %3); Median der Genauigkeit %4; Median des Margin-Verhältnisses %5 (verlangt %6); PSD-Reparatur nötig in %7 der Läufe. Klassifikator C = %8%9.</translation>
     </message>
@@ -2322,7 +2321,27 @@ Bündel: %2</translation>
         <translation>%1 … %2</translation>
     </message>
     <message>
-        <location line="+136"/>
+        <location line="+67"/>
+        <source>prep.</source>
+        <translation>Präp.</translation>
+    </message>
+    <message>
+        <location line="+0"/>
+        <source>analysis</source>
+        <translation>Analyse</translation>
+    </message>
+    <message>
+        <location line="+10"/>
+        <source>shortest</source>
+        <translation>kürzester</translation>
+    </message>
+    <message>
+        <location line="+0"/>
+        <source>from below</source>
+        <translation>von unten</translation>
+    </message>
+    <message>
+        <location line="+59"/>
         <source>Largest angular speed of the mount</source>
         <translation>Höchste Winkelgeschwindigkeit der Halterung</translation>
     </message>
@@ -2416,28 +2435,28 @@ fahrt °</translation>
     </message>
     <message>
         <location line="+11"/>
-        <location line="+144"/>
+        <location line="+147"/>
         <source>Night %1</source>
         <translation>Nacht %1</translation>
     </message>
     <message>
-        <location line="-129"/>
-        <location line="+139"/>
+        <location line="-131"/>
+        <location line="+142"/>
         <source>%1 % busy</source>
         <translation>%1 % belegt</translation>
     </message>
     <message>
-        <location line="-53"/>
+        <location line="-56"/>
         <source>Each night as it runs: every step at its time, coloured by what the rig does</source>
         <translation>Jede Nacht in ihrem Ablauf: jeder Schritt zu seiner Zeit, gefärbt nach dem, was der Aufbau tut</translation>
     </message>
     <message>
-        <location line="+70"/>
+        <location line="+73"/>
         <source>%1 %2 %</source>
         <translation>%1 %2 %</translation>
     </message>
     <message>
-        <location line="+13"/>
+        <location line="+14"/>
         <source>Shares of the busy time; the strips span the window from %1 to %2.</source>
         <translation>Anteile an der belegten Zeit; die Streifen umfassen das Fenster von %1 bis %2.</translation>
     </message>
@@ -2731,7 +2750,7 @@ fahrt °</translation>
         <translation>Margin-Verhältnis pro simuliertem Lauf (verrauschte Margin ÷ rauschfreie)</translation>
     </message>
     <message>
-        <location line="+9"/>
+        <location line="+8"/>
         <source>No runs yet</source>
         <translation>Noch keine Läufe</translation>
     </message>
@@ -3132,12 +3151,12 @@ fahrt °</translation>
     </message>
     <message>
         <location line="+1"/>
-        <location line="+127"/>
+        <location line="+128"/>
         <source>Margin check: not computed yet.</source>
         <translation>Margin-Prüfung: noch nicht berechnet.</translation>
     </message>
     <message>
-        <location line="-125"/>
+        <location line="-126"/>
         <source>Margin verdict</source>
         <translation>Margin-Urteil</translation>
     </message>
@@ -3295,7 +3314,7 @@ fahrt °</translation>
         </translation>
     </message>
     <message numerus="yes">
-        <location line="+4"/>
+        <location line="+5"/>
         <source>Does not fit in %n night(s): more nights, fewer pairs or a looser precision are needed.</source>
         <translation>
             <numerusform>Passt nicht in %n Nacht: Mehr Nächte, weniger Paare oder eine gröbere Präzision sind nötig.</numerusform>
@@ -3401,7 +3420,7 @@ fahrt °</translation>
         <translation>Nacht %1 (%2)</translation>
     </message>
     <message>
-        <location line="-302"/>
+        <location line="-307"/>
         <source>moving</source>
         <translation>Bewegung</translation>
     </message>
@@ -3431,7 +3450,7 @@ fahrt °</translation>
         <translation>ungenutztes Fenster</translation>
     </message>
     <message>
-        <location line="+323"/>
+        <location line="+333"/>
         <source>Night %1: share of the training Gram matrix measured, and its predicted error</source>
         <translation>Nacht %1: gemessener Anteil der Trainings-Gram-Matrix und ihr vorhergesagter Fehler</translation>
     </message>
