@@ -74,7 +74,8 @@ QLocale ui_locale(UiLanguage language, const QLocale& system_locale) {
 bool install_translators(QCoreApplication* app, const QLocale& locale) {
   // English is the source language: only its plural forms need a translator.
   if (locale.language() == QLocale::English || locale.language() == QLocale::C) {
-    QCoreApplication::installTranslator(new EnglishPlurals(app));
+    static EnglishPlurals plurals;  // no file behind it: nothing to load, nothing to own
+    QCoreApplication::installTranslator(&plurals);
     return false;
   }
   auto* own = new QTranslator(app);
