@@ -179,9 +179,9 @@ void MainWindow::build_actions() {
   action(file, tr("&Quit"), QKeySequence::Quit, [this] { close(); });
 
   QAction* undo = document_->undo_stack()->createUndoAction(this, tr("&Undo"));
-  undo->setShortcut(QKeySequence::Undo);
+  undo->setShortcuts(QKeySequence::Undo);
   QAction* redo = document_->undo_stack()->createRedoAction(this, tr("&Redo"));
-  redo->setShortcut(QKeySequence::Redo);
+  redo->setShortcuts(QKeySequence::Redo);  // every binding of the desktop (Ctrl+Y, Ctrl+Shift+Z)
   edit->addAction(undo);
   edit->addAction(redo);
   edit->addSeparator();
