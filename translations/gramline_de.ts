@@ -244,7 +244,7 @@
         <translation>Gramline-Kampagne (*.json);;Alle Dateien (*)</translation>
     </message>
     <message>
-        <location filename="../app/gui/margin_view.cpp" line="+36"/>
+        <location filename="../app/gui/margin_view.cpp" line="+35"/>
         <source>%1 %</source>
         <translation>%1 %</translation>
     </message>
@@ -355,12 +355,12 @@
         <translation>Warten Sie, bis der Plan aktuell ist, und exportieren Sie ihn dann.</translation>
     </message>
     <message>
-        <location line="+5"/>
+        <location line="+7"/>
         <source>Export Plan Files To</source>
         <translation>Plandateien exportieren nach</translation>
     </message>
     <message>
-        <location line="+5"/>
+        <location line="+6"/>
         <source>Wrote steps.json, steps.csv, summary.json and kernel.csv to %1</source>
         <translation>steps.json, steps.csv, summary.json und kernel.csv nach %1 geschrieben</translation>
     </message>
@@ -368,6 +368,234 @@
         <location line="+4"/>
         <source>Cannot export</source>
         <translation>Export nicht möglich</translation>
+    </message>
+</context>
+<context>
+    <name>gramline::gui::CompareView</name>
+    <message>
+        <location filename="../app/gui/compare_view.cpp" line="+33"/>
+        <source>Nights</source>
+        <translation>Nächte</translation>
+    </message>
+    <message>
+        <location line="+1"/>
+        <source>Calendar span</source>
+        <translation>Kalenderspanne</translation>
+    </message>
+    <message>
+        <location line="+1"/>
+        <source>Busy time</source>
+        <translation>Belegte Zeit</translation>
+    </message>
+    <message>
+        <location line="+1"/>
+        <source>Move time</source>
+        <translation>Fahrzeit</translation>
+    </message>
+    <message>
+        <location line="+1"/>
+        <source>Counting time</source>
+        <translation>Zählzeit</translation>
+    </message>
+    <message>
+        <location line="+1"/>
+        <source>Reference, dark and park time</source>
+        <translation>Zeit für Referenz, Dunkel und Parken</translation>
+    </message>
+    <message>
+        <location line="+1"/>
+        <source>Worst half-width</source>
+        <translation>Größte Halbbreite</translation>
+    </message>
+    <message>
+        <location line="+1"/>
+        <source>Gram error (Frobenius σ)</source>
+        <translation>Gram-Fehler (Frobenius-σ)</translation>
+    </message>
+    <message>
+        <location line="+1"/>
+        <source>Detected pairs</source>
+        <translation>Detektierte Paare</translation>
+    </message>
+    <message>
+        <location line="+1"/>
+        <source>Settings</source>
+        <translation>Einstellungen</translation>
+    </message>
+    <message>
+        <location line="+1"/>
+        <source>Steps</source>
+        <translation>Schritte</translation>
+    </message>
+    <message>
+        <location line="+8"/>
+        <source>Pin the current plan, change the campaign (precision, sharing of pairs, rig speed, nights…), and both plans stand side by side here with their differences.</source>
+        <translation>Heften Sie den aktuellen Plan an, ändern Sie die Kampagne (Präzision, Verteilung der Paare, Geschwindigkeit des Aufbaus, Nächte …), und beide Pläne stehen hier nebeneinander, mit ihren Unterschieden.</translation>
+    </message>
+    <message>
+        <location line="+6"/>
+        <source>Plans compared</source>
+        <translation>Verglichene Pläne</translation>
+    </message>
+    <message>
+        <location line="+1"/>
+        <source>&amp;Pin the Current Plan</source>
+        <translation>Aktuellen Plan &amp;anheften</translation>
+    </message>
+    <message>
+        <location line="+1"/>
+        <source>Clear the Pin</source>
+        <translation>Angehefteten Plan lösen</translation>
+    </message>
+    <message>
+        <location line="+1"/>
+        <source>Use the Minimum Budget That Passes</source>
+        <translation>Kleinstes bestehendes Budget verwenden</translation>
+    </message>
+    <message>
+        <location line="+2"/>
+        <source>Pins the current plan, then sets fixed pairs per entry to the smallest budget the margin check found passing; the comparison shows the nights it then needs.</source>
+        <translation>Heftet den aktuellen Plan an und setzt dann feste Paare pro Eintrag auf das kleinste Budget, das die Margin-Prüfung bestehen sah; der Vergleich zeigt die Nächte, die es dann braucht.</translation>
+    </message>
+    <message>
+        <location line="+2"/>
+        <source>Use Margin-Aware Sharing</source>
+        <translation>Margin-bewusst verteilen</translation>
+    </message>
+    <message>
+        <location line="+2"/>
+        <source>Pins the current plan, then shares pairs where the decision is (margin-aware allocation).</source>
+        <translation>Heftet den aktuellen Plan an und verteilt dann die Paare dorthin, wo die Entscheidung fällt (margin-bewusste Verteilung).</translation>
+    </message>
+    <message>
+        <location line="+5"/>
+        <source>Pinned and current plan</source>
+        <translation>Angehefteter und aktueller Plan</translation>
+    </message>
+    <message>
+        <location line="+3"/>
+        <source>Pinned</source>
+        <translation>Angeheftet</translation>
+    </message>
+    <message>
+        <location line="+0"/>
+        <source>Current</source>
+        <translation>Aktuell</translation>
+    </message>
+    <message>
+        <location line="+0"/>
+        <source>Current − pinned</source>
+        <translation>Aktuell − angeheftet</translation>
+    </message>
+    <message>
+        <location line="+63"/>
+        <source>%1 pairs per entry</source>
+        <translation>%1 Paare pro Eintrag</translation>
+    </message>
+    <message>
+        <location line="+1"/>
+        <source>ε %1</source>
+        <translation>ε %1</translation>
+    </message>
+    <message numerus="yes">
+        <location line="+1"/>
+        <source>%1: %2, %3, up to %n night(s)</source>
+        <translation>
+            <numerusform>%1: %2, %3, bis zu %n Nacht</numerusform>
+            <numerusform>%1: %2, %3, bis zu %n Nächte</numerusform>
+        </translation>
+    </message>
+    <message>
+        <location line="+7"/>
+        <source>not checked yet</source>
+        <translation>noch nicht geprüft</translation>
+    </message>
+    <message>
+        <location line="+1"/>
+        <source>pass</source>
+        <translation>bestanden</translation>
+    </message>
+    <message>
+        <location line="+0"/>
+        <source>fail</source>
+        <translation>nicht bestanden</translation>
+    </message>
+    <message>
+        <location line="+1"/>
+        <source>%1 (largest flip %2 %)</source>
+        <translation>%1 (größte Kipp-Wahrscheinlichkeit %2 %)</translation>
+    </message>
+    <message>
+        <location line="+24"/>
+        <source>The margin check&apos;s advice: %1 pairs per entry pass (%2 of counting); the current plan counts %3.</source>
+        <translation>Rat der Margin-Prüfung: %1 Paare pro Eintrag bestehen (%2 Zählzeit); der aktuelle Plan zählt %3.</translation>
+    </message>
+    <message>
+        <location line="+6"/>
+        <source>The margin check found no smaller passing budget.</source>
+        <translation>Die Margin-Prüfung fand kein kleineres bestehendes Budget.</translation>
+    </message>
+    <message>
+        <location line="+1"/>
+        <source>The margin check&apos;s advice appears when it is done.</source>
+        <translation>Der Rat der Margin-Prüfung erscheint, sobald sie fertig ist.</translation>
+    </message>
+    <message>
+        <location line="+4"/>
+        <source>&lt;b&gt;Pinned&lt;/b&gt; %1</source>
+        <translation>&lt;b&gt;Angeheftet&lt;/b&gt; %1</translation>
+    </message>
+    <message>
+        <location line="+2"/>
+        <source>&lt;b&gt;Pinned&lt;/b&gt;: nothing yet.</source>
+        <translation>&lt;b&gt;Angeheftet&lt;/b&gt;: noch nichts.</translation>
+    </message>
+    <message>
+        <location line="+2"/>
+        <source>&lt;b&gt;Current&lt;/b&gt; %1</source>
+        <translation>&lt;b&gt;Aktuell&lt;/b&gt; %1</translation>
+    </message>
+    <message>
+        <location line="+30"/>
+        <source>better than the pinned plan</source>
+        <translation>besser als der angeheftete Plan</translation>
+    </message>
+    <message>
+        <location line="+1"/>
+        <source>worse than the pinned plan</source>
+        <translation>schlechter als der angeheftete Plan</translation>
+    </message>
+    <message>
+        <location line="+9"/>
+        <source>Fits its nights</source>
+        <translation>Passt in seine Nächte</translation>
+    </message>
+    <message>
+        <location line="+1"/>
+        <source>yes</source>
+        <translation>ja</translation>
+    </message>
+    <message>
+        <location line="+0"/>
+        <source>no</source>
+        <translation>nein</translation>
+    </message>
+    <message>
+        <location line="+6"/>
+        <location line="+9"/>
+        <source>same</source>
+        <translation>gleich</translation>
+    </message>
+    <message>
+        <location line="-8"/>
+        <location line="+8"/>
+        <source>changed</source>
+        <translation>geändert</translation>
+    </message>
+    <message>
+        <location line="-6"/>
+        <source>Margin verdict</source>
+        <translation>Margin-Urteil</translation>
     </message>
 </context>
 <context>
@@ -460,17 +688,41 @@
 <context>
     <name>gramline::gui::DecisionMap</name>
     <message>
-        <location filename="../app/gui/margin_view.cpp" line="+9"/>
+        <location filename="../app/gui/margin_view.cpp" line="+38"/>
         <source>Data and decision boundary</source>
         <translation>Daten und Entscheidungsgrenze</translation>
     </message>
     <message>
-        <location line="+106"/>
+        <location line="+119"/>
         <source>feature %1</source>
         <translation>Merkmal %1</translation>
     </message>
+    <message numerus="yes">
+        <location line="+41"/>
+        <source>With %n feature(s) the boundary is not a line in a plane. Each point will be placed at its decision value once the margin check is done.</source>
+        <translation>
+            <numerusform>Mit %n Merkmal ist die Grenze keine Linie in einer Ebene. Jeder Punkt wird an seinen Entscheidungswert gesetzt, sobald die Margin-Prüfung fertig ist.</numerusform>
+            <numerusform>Mit %n Merkmalen ist die Grenze keine Linie in einer Ebene. Jeder Punkt wird an seinen Entscheidungswert gesetzt, sobald die Margin-Prüfung fertig ist.</numerusform>
+        </translation>
+    </message>
     <message>
-        <location line="+57"/>
+        <location line="+40"/>
+        <location line="+2"/>
+        <source>%1, training</source>
+        <translation>%1, Training</translation>
+    </message>
+    <message>
+        <location line="-1"/>
+        <source>%1, test</source>
+        <translation>%1, Test</translation>
+    </message>
+    <message>
+        <location line="+36"/>
+        <source>noiseless decision value f</source>
+        <translation>rauschfreier Entscheidungswert f</translation>
+    </message>
+    <message>
+        <location line="+10"/>
         <source>&lt;b&gt;Test point %1&lt;/b&gt; (point %2), class %3</source>
         <translation>&lt;b&gt;Testpunkt %1&lt;/b&gt; (Punkt %2), Klasse %3</translation>
     </message>
@@ -723,7 +975,7 @@
 <context>
     <name>gramline::gui::GramView</name>
     <message>
-        <location filename="../app/gui/gram_view.cpp" line="+123"/>
+        <location filename="../app/gui/gram_view.cpp" line="+141"/>
         <source>Training × training (the Gram matrix)</source>
         <translation>Training × Training (die Gram-Matrix)</translation>
     </message>
@@ -768,22 +1020,22 @@
         <translation>Reihenfolge der Punkte in den Karten</translation>
     </message>
     <message>
-        <location line="+2"/>
+        <location line="+6"/>
+        <source>Rows: the point prepared; columns: the training point analysed. “Grouped by class” puts all points of one class first, a line between the classes; the pale diagonal of σ and pairs is not measured (it is 1 by construction). Darker is larger on every map.</source>
+        <translation>Zeilen: der präparierte Punkt; Spalten: der analysierte Trainingspunkt. „Nach Klasse gruppiert“ stellt alle Punkte einer Klasse voran, mit einer Linie zwischen den Klassen; die helle Diagonale von σ und Paaren wird nicht gemessen (sie ist per Konstruktion 1). Dunkler heißt auf jeder Karte größer.</translation>
+    </message>
+    <message>
+        <location line="+36"/>
         <source>Hover over an entry to see its values, the step that measures it and when.</source>
         <translation>Zeigen Sie auf einen Eintrag, um seine Werte, den Schritt, der ihn misst, und dessen Zeitpunkt zu sehen.</translation>
     </message>
     <message>
-        <location line="+4"/>
+        <location line="-38"/>
         <source>Entry under the pointer</source>
         <translation>Eintrag unter dem Zeiger</translation>
     </message>
     <message>
-        <location line="+3"/>
-        <source>Rows: the point prepared; columns: the training point analysed. “Grouped by class” puts all points of one class first; the dark diagonal of σ and pairs is not measured (it is 1 by construction).</source>
-        <translation>Zeilen: der präparierte Punkt; Spalten: der analysierte Trainingspunkt. „Nach Klasse gruppiert“ stellt alle Punkte einer Klasse an den Anfang; die dunkle Diagonale von σ und Paaren wird nicht gemessen (sie ist per Konstruktion 1).</translation>
-    </message>
-    <message>
-        <location line="+7"/>
+        <location line="+11"/>
         <source>Show</source>
         <translation>Anzeigen</translation>
     </message>
@@ -793,7 +1045,7 @@
         <translation>Punkte in</translation>
     </message>
     <message>
-        <location line="+55"/>
+        <location line="+60"/>
         <source>&lt;b&gt;Entry (%1, %2)&lt;/b&gt;&lt;br&gt;kernel %3&lt;br&gt;σ %4&lt;br&gt;%5 pairs</source>
         <translation>&lt;b&gt;Eintrag (%1, %2)&lt;/b&gt;&lt;br&gt;Kernel %3&lt;br&gt;σ %4&lt;br&gt;%5 Paare</translation>
     </message>
@@ -1037,6 +1289,7 @@
     </message>
     <message>
         <location line="+26"/>
+        <location line="+170"/>
         <source>Resume from Counts</source>
         <translation>Aus Zähldaten fortsetzen</translation>
     </message>
@@ -1205,7 +1458,7 @@
 <context>
     <name>gramline::gui::MainWindow</name>
     <message>
-        <location filename="../app/gui/main_window.cpp" line="+105"/>
+        <location filename="../app/gui/main_window.cpp" line="+122"/>
         <source>Views of the plan</source>
         <translation>Ansichten des Plans</translation>
     </message>
@@ -1270,7 +1523,7 @@
         <translation>Die Zähldaten einer Nacht gegen die Vorhersage und die Drift der Nacht</translation>
     </message>
     <message>
-        <location line="+1"/>
+        <location line="+3"/>
         <source>Cautions</source>
         <translation>Sicherheitshinweise</translation>
     </message>
@@ -1280,12 +1533,12 @@
         <translation>Lasersicherheit und unbeaufsichtigter Betrieb</translation>
     </message>
     <message>
-        <location line="-67"/>
+        <location line="-84"/>
         <source>Campaign</source>
         <translation>Kampagne</translation>
     </message>
     <message>
-        <location line="+19"/>
+        <location line="+20"/>
         <source>Show &amp;Campaign Editor</source>
         <translation>&amp;Kampagnen-Editor anzeigen</translation>
     </message>
@@ -1396,6 +1649,7 @@
     </message>
     <message>
         <location line="+12"/>
+        <location line="+104"/>
         <source>&amp;Save</source>
         <translation>&amp;Speichern</translation>
     </message>
@@ -1481,6 +1735,31 @@
         <translation>Gem&amp;essen</translation>
     </message>
     <message>
+        <location line="-108"/>
+        <source>Use the minimum budget that passes</source>
+        <translation>Kleinstes bestehendes Budget verwenden</translation>
+    </message>
+    <message>
+        <location line="+6"/>
+        <source>Use margin-aware sharing</source>
+        <translation>Margin-bewusst verteilen</translation>
+    </message>
+    <message>
+        <location line="+42"/>
+        <source>Compare</source>
+        <translation>Vergleich</translation>
+    </message>
+    <message>
+        <location line="+1"/>
+        <source>A pinned plan beside the current one: what a change costs or gains</source>
+        <translation>Ein angehefteter Plan neben dem aktuellen: was eine Änderung kostet oder bringt</translation>
+    </message>
+    <message>
+        <location line="+59"/>
+        <source>C&amp;ompare</source>
+        <translation>&amp;Vergleich</translation>
+    </message>
+    <message>
         <location line="+8"/>
         <source>&amp;User Guide</source>
         <translation>&amp;Benutzerhandbuch</translation>
@@ -1536,12 +1815,17 @@
         <translation>Noch keine Daten: Importieren Sie eine CSV-Datei (Strg+I) oder öffnen Sie die Demo, um zu planen.</translation>
     </message>
     <message>
-        <location line="+1"/>
+        <location line="+2"/>
+        <source>This campaign has no points yet, so nothing is planned. The figures of the previous campaign are not shown.</source>
+        <translation>Diese Kampagne hat noch keine Punkte, daher ist nichts geplant. Die Zahlen der vorigen Kampagne werden nicht gezeigt.</translation>
+    </message>
+    <message>
+        <location line="+2"/>
         <source>No data.</source>
         <translation>Keine Daten.</translation>
     </message>
     <message>
-        <location line="+15"/>
+        <location line="+17"/>
         <source>The plan needs more nights than allowed (%1). Allow more nights, loosen ε, or turn on “Scale pairs to fit”.</source>
         <translation>Der Plan braucht mehr Nächte als erlaubt (%1). Erlauben Sie mehr Nächte, lockern Sie ε oder schalten Sie „Paare an die erlaubten Nächte anpassen“ ein.</translation>
     </message>
@@ -1551,7 +1835,7 @@
         <translation>%1 Schritte in %2 ms geplant.</translation>
     </message>
     <message>
-        <location line="+10"/>
+        <location line="+11"/>
         <source>Margin check: pass</source>
         <translation>Margin-Prüfung: bestanden</translation>
     </message>
@@ -1582,7 +1866,12 @@
         <translation>Diese Kampagne kann nicht geplant werden: %1</translation>
     </message>
     <message>
-        <location line="+13"/>
+        <location line="+3"/>
+        <source>There is no plan for this campaign, so there is nothing to show here. Correct the campaign as the message above says; the figures of the previous campaign are not shown.</source>
+        <translation>Für diese Kampagne gibt es keinen Plan, daher ist hier nichts zu zeigen. Korrigieren Sie die Kampagne, wie die Meldung oben sagt; die Zahlen der vorigen Kampagne werden nicht gezeigt.</translation>
+    </message>
+    <message>
+        <location line="+21"/>
         <source>%1[*] — Gramline</source>
         <translation>%1[*] — Gramline</translation>
     </message>
@@ -1600,17 +1889,35 @@
         <translation>Paarverteilung nach Strategie</translation>
     </message>
     <message>
-        <location line="+9"/>
-        <source>Circles and squares: training points of each class. Diamonds: test points, outlined by class, filled pale when they keep their side and dark when noise flips them. The line is the noiseless decision boundary.</source>
-        <translation>Kreise und Quadrate: Trainingspunkte jeder Klasse. Rauten: Testpunkte, nach Klasse umrandet, hell gefüllt, wenn sie auf ihrer Seite bleiben, und dunkel, wenn das Rauschen sie umkippt. Die Linie ist die rauschfreie Entscheidungsgrenze.</translation>
+        <location line="+11"/>
+        <source>Legend of the margin plot</source>
+        <translation>Legende des Margin-Diagramms</translation>
     </message>
     <message>
-        <location line="+34"/>
+        <location line="+30"/>
         <source>The margin check runs after each plan.</source>
         <translation>Die Margin-Prüfung läuft nach jedem Plan.</translation>
     </message>
     <message>
-        <location line="+32"/>
+        <location line="+11"/>
+        <source>%1 %2 and %3 %4: training points of each class. %5 Test points, outlined by their class, filled pale when they keep their side and dark when noise flips them.</source>
+        <translation>%1 %2 und %3 %4: Trainingspunkte jeder Klasse. %5 Testpunkte, umrandet in der Farbe ihrer Klasse, hell gefüllt, wenn sie ihre Seite behalten, und dunkel, wenn das Rauschen sie kippt.</translation>
+    </message>
+    <message>
+        <location line="+6"/>
+        <source>Solid line: the noiseless decision boundary f = 0; dashed: the margin f = ±1; the faint wash shows each class&apos;s side.</source>
+        <translation>Durchgezogene Linie: die rauschfreie Entscheidungsgrenze f = 0; gestrichelt: die Margin f = ±1; die blasse Tönung zeigt die Seite jeder Klasse.</translation>
+    </message>
+    <message numerus="yes">
+        <location line="+4"/>
+        <source>With %n feature(s) no plane shows the boundary honestly: every point sits at its noiseless decision value f, the boundary is f = 0 (solid) and the margin f = ±1 (dashed); bars on test points span ± 2 noise sd of f.</source>
+        <translation>
+            <numerusform>Mit %n Merkmal zeigt keine Ebene die Grenze ehrlich: Jeder Punkt sitzt an seinem rauschfreien Entscheidungswert f, die Grenze ist f = 0 (durchgezogen) und die Margin f = ±1 (gestrichelt); Balken an Testpunkten umfassen ± 2 Rausch-Standardabweichungen von f.</numerusform>
+            <numerusform>Mit %n Merkmalen zeigt keine Ebene die Grenze ehrlich: Jeder Punkt sitzt an seinem rauschfreien Entscheidungswert f, die Grenze ist f = 0 (durchgezogen) und die Margin f = ±1 (gestrichelt); Balken an Testpunkten umfassen ± 2 Rausch-Standardabweichungen von f.</numerusform>
+        </translation>
+    </message>
+    <message>
+        <location line="+38"/>
         <source>&lt;h3&gt;Pass: the measured kernel keeps every decision.&lt;/h3&gt;</source>
         <translation>&lt;h3&gt;Bestanden: Der gemessene Kernel behält jede Entscheidung.&lt;/h3&gt;</translation>
     </message>
@@ -1620,7 +1927,7 @@
         <translation>&lt;h3&gt;Nicht bestanden: Das Rauschen würde Entscheidungen ändern.&lt;/h3&gt;</translation>
     </message>
     <message>
-        <location line="+9"/>
+        <location line="+10"/>
         <source>Over %1 simulated runs with the planned pairs: largest flip probability of a test point %2 (allowed %3); median accuracy %4; median margin ratio %5 (required %6); PSD repair needed in %7 of runs. Classifier C = %8%9.</source>
         <translation>Über %1 simulierte Läufe mit den geplanten Paaren: größte Kippwahrscheinlichkeit eines Testpunkts %2 (erlaubt %3); Median der Genauigkeit %4; Median des Margin-Verhältnisses %5 (verlangt %6); PSD-Reparatur nötig in %7 der Läufe. Klassifikator C = %8%9.</translation>
     </message>
@@ -1693,6 +2000,21 @@
         <location line="+5"/>
         <source>not found</source>
         <translation>nicht gefunden</translation>
+    </message>
+    <message>
+        <location line="+14"/>
+        <source>test point %1 (point %2): the label flips in %3 of runs (%4 – %5), above %6; noiseless f = %7, noise sd of f = %8</source>
+        <translation>Testpunkt %1 (Punkt %2): Das Label kippt in %3 der Läufe (%4 – %5), mehr als %6; rauschfreies f = %7, Rausch-Standardabweichung von f = %8</translation>
+    </message>
+    <message>
+        <location line="+11"/>
+        <source> (%1 sd from the boundary)</source>
+        <translation> (%1 Standardabweichungen von der Grenze)</translation>
+    </message>
+    <message>
+        <location line="+5"/>
+        <source>median margin ratio %1 is below %2: the measured Gram matrix shrinks the margin</source>
+        <translation>Median des Margin-Verhältnisses %1 liegt unter %2: Die gemessene Gram-Matrix verkleinert die Margin</translation>
     </message>
 </context>
 <context>
@@ -2105,6 +2427,27 @@ Bündel: %2</translation>
     </message>
     <message>
         <location line="+157"/>
+        <location line="+67"/>
+        <source>prep.</source>
+        <translation>Präp.</translation>
+    </message>
+    <message>
+        <location line="+0"/>
+        <source>analysis</source>
+        <translation>Analyse</translation>
+    </message>
+    <message>
+        <location line="+10"/>
+        <source>shortest</source>
+        <translation>kürzester</translation>
+    </message>
+    <message>
+        <location line="+0"/>
+        <source>from below</source>
+        <translation>von unten</translation>
+    </message>
+    <message>
+        <location line="+59"/>
         <source>Largest angular speed of the mount</source>
         <translation>Höchste Winkelgeschwindigkeit der Halterung</translation>
     </message>
@@ -2165,33 +2508,83 @@ Bündel: %2</translation>
     </message>
     <message>
         <location line="+2"/>
-        <source>Speed (°/s)</source>
-        <translation>Geschwindigkeit (°/s)</translation>
+        <source>Speed
+°/s</source>
+        <translation>Geschw.
+°/s</translation>
     </message>
     <message>
         <location line="+2"/>
-        <source>Accel. (°/s²)</source>
-        <translation>Beschl. (°/s²)</translation>
+        <source>Accel.
+°/s²</source>
+        <translation>Beschl.
+°/s²</translation>
     </message>
     <message>
         <location line="+2"/>
-        <source>Range (°)</source>
-        <translation>Bereich (°)</translation>
+        <source>Range
+°</source>
+        <translation>Bereich
+°</translation>
+    </message>
+    <message>
+        <location line="+4"/>
+        <source>Over-
+shoot °</source>
+        <translation>Über-
+fahrt °</translation>
     </message>
     <message>
         <location line="+2"/>
+        <source>Initial
+°</source>
+        <translation>Start
+°</translation>
+    </message>
+    <message>
+        <location line="-4"/>
         <source>Approach</source>
         <translation>Anfahrt</translation>
     </message>
+</context>
+<context>
+    <name>gramline::gui::NightStrips</name>
     <message>
-        <location line="+2"/>
-        <source>Overshoot (°)</source>
-        <translation>Überfahrweg (°)</translation>
+        <location filename="../app/gui/timeline_view.cpp" line="+119"/>
+        <source>Each night as it runs</source>
+        <translation>Jede Nacht in ihrem Ablauf</translation>
     </message>
     <message>
-        <location line="+2"/>
-        <source>Initial (°)</source>
-        <translation>Anfang (°)</translation>
+        <location line="+11"/>
+        <location line="+147"/>
+        <source>Night %1</source>
+        <translation>Nacht %1</translation>
+    </message>
+    <message>
+        <location line="-131"/>
+        <location line="+142"/>
+        <source>%1 % busy</source>
+        <translation>%1 % belegt</translation>
+    </message>
+    <message>
+        <location line="-56"/>
+        <source>Each night as it runs: every step at its time, coloured by what the rig does</source>
+        <translation>Jede Nacht in ihrem Ablauf: jeder Schritt zu seiner Zeit, gefärbt nach dem, was der Aufbau tut</translation>
+    </message>
+    <message>
+        <location line="+73"/>
+        <source>%1 %2 %</source>
+        <translation>%1 %2 %</translation>
+    </message>
+    <message>
+        <location line="+14"/>
+        <source>Shares of the busy time; the strips span the window from %1 to %2.</source>
+        <translation>Anteile an der belegten Zeit; die Streifen umfassen das Fenster von %1 bis %2.</translation>
+    </message>
+    <message>
+        <location line="+20"/>
+        <source>Night %1, %2: %3</source>
+        <translation>Nacht %1, %2: %3</translation>
     </message>
     <message>
         <location line="+2"/>
@@ -2565,7 +2958,7 @@ Bündel: %2</translation>
 <context>
     <name>gramline::gui::PreferencesDialog</name>
     <message>
-        <location filename="../app/gui/preferences.cpp" line="+79"/>
+        <location filename="../app/gui/preferences.cpp" line="+99"/>
         <source>Preferences</source>
         <translation>Einstellungen</translation>
     </message>
@@ -2593,7 +2986,7 @@ Bündel: %2</translation>
 <context>
     <name>gramline::gui::RatioHistogram</name>
     <message>
-        <location filename="../app/gui/margin_view.cpp" line="+9"/>
+        <location filename="../app/gui/margin_view.cpp" line="+12"/>
         <source>Distribution of the margin ratio</source>
         <translation>Verteilung des Margin-Verhältnisses</translation>
     </message>
@@ -2603,7 +2996,7 @@ Bündel: %2</translation>
         <translation>Margin-Verhältnis pro simuliertem Lauf (verrauschte Margin ÷ rauschfreie)</translation>
     </message>
     <message>
-        <location line="+3"/>
+        <location line="+8"/>
         <source>No runs yet</source>
         <translation>Noch keine Läufe</translation>
     </message>
@@ -2701,7 +3094,7 @@ Bündel: %2</translation>
         <translation>Motoren</translation>
     </message>
     <message>
-        <location line="+7"/>
+        <location line="+9"/>
         <source>Double-click a cell to edit it.</source>
         <translation>Doppelklicken Sie auf eine Zelle, um sie zu bearbeiten.</translation>
     </message>
@@ -2865,7 +3258,7 @@ Bündel: %2</translation>
 <context>
     <name>gramline::gui::SessionAutosave</name>
     <message>
-        <location filename="../app/gui/session_autosave.cpp" line="+80"/>
+        <location filename="../app/gui/session_autosave.cpp" line="+84"/>
         <source>Recover unsaved work?</source>
         <translation>Ungespeicherte Arbeit wiederherstellen?</translation>
     </message>
@@ -3080,7 +3473,7 @@ Bündel: %2</translation>
 <context>
     <name>gramline::gui::SummaryView</name>
     <message>
-        <location filename="../app/gui/summary_view.cpp" line="+25"/>
+        <location filename="../app/gui/summary_view.cpp" line="+27"/>
         <source>Plan verdict</source>
         <translation>Urteil zum Plan</translation>
     </message>
@@ -3112,13 +3505,23 @@ Bündel: %2</translation>
     </message>
     <message>
         <location line="+1"/>
-        <source>Total time</source>
-        <translation>Gesamtzeit</translation>
+        <source>Calendar span</source>
+        <translation>Kalenderspanne</translation>
     </message>
     <message>
         <location line="+1"/>
-        <source>From the start of night 1 to the end of the last step</source>
-        <translation>Vom Beginn der Nacht 1 bis zum Ende des letzten Schritts</translation>
+        <source>From the start of night 1 to the end of the last step, days between the nights included</source>
+        <translation>Vom Beginn der ersten Nacht bis zum Ende des letzten Schritts, die Tage zwischen den Nächten eingeschlossen</translation>
+    </message>
+    <message>
+        <location line="+2"/>
+        <source>Busy time</source>
+        <translation>Belegte Zeit</translation>
+    </message>
+    <message>
+        <location line="+1"/>
+        <source>Time the rig works: moving, counting and reference steps, over all nights</source>
+        <translation>Zeit, in der der Aufbau arbeitet: Bewegen, Zählen und Referenzschritte, über alle Nächte</translation>
     </message>
     <message>
         <location line="+1"/>
@@ -3245,38 +3648,47 @@ Bündel: %2</translation>
         <source>No plan yet.</source>
         <translation>Noch kein Plan.</translation>
     </message>
-    <message>
-        <location line="+12"/>
-        <source>Fits in one night (of %1 allowed), done by %2.</source>
-        <translation>Passt in eine Nacht (von %1 erlaubten), fertig um %2.</translation>
+    <message numerus="yes">
+        <location line="+11"/>
+        <source>Fits in %n night(s) (of %1 allowed), done by %2.</source>
+        <translation>
+            <numerusform>Passt in %n Nacht (von %1 erlaubten), fertig bis %2.</numerusform>
+            <numerusform>Passt in %n Nächten (von %1 erlaubten), fertig bis %2.</numerusform>
+        </translation>
     </message>
-    <message>
-        <location line="+1"/>
-        <source>Fits in %1 nights (of %2 allowed), done by %3.</source>
-        <translation>Passt in %1 Nächte (von %2 erlaubten), fertig um %3.</translation>
-    </message>
-    <message>
+    <message numerus="yes">
         <location line="+5"/>
-        <source>Does not fit in %1 nights: more nights, fewer pairs or a looser precision are needed.</source>
-        <translation>Passt nicht in %1 Nächte: Es braucht mehr Nächte, weniger Paare oder eine lockerere Präzision.</translation>
+        <source>Does not fit in %n night(s): more nights, fewer pairs or a looser precision are needed.</source>
+        <translation>
+            <numerusform>Passt nicht in %n Nacht: Mehr Nächte, weniger Paare oder eine gröbere Präzision sind nötig.</numerusform>
+            <numerusform>Passt nicht in %n Nächte: Mehr Nächte, weniger Paare oder eine gröbere Präzision sind nötig.</numerusform>
+        </translation>
     </message>
     <message>
-        <location line="+4"/>
+        <location line="+6"/>
+        <source>calendar time from the first night&apos;s start; ends %1</source>
+        <translation>Kalenderzeit ab Beginn der ersten Nacht; endet %1</translation>
+    </message>
+    <message>
+        <location line="-2"/>
         <source>%1 of %2</source>
         <translation>%1 von %2</translation>
     </message>
     <message>
-        <location line="+1"/>
-        <source>ends %1</source>
-        <translation>endet %1</translation>
-    </message>
-    <message>
-        <location line="+2"/>
+        <location line="+5"/>
         <source>%1 steps in all</source>
         <translation>%1 Schritte insgesamt</translation>
     </message>
+    <message numerus="yes">
+        <location line="+3"/>
+        <source>%n night(s) at work</source>
+        <translation>
+            <numerusform>%n Nacht in Betrieb</numerusform>
+            <numerusform>%n Nächte in Betrieb</numerusform>
+        </translation>
+    </message>
     <message>
-        <location line="+4"/>
+        <location line="+2"/>
         <location line="+10"/>
         <location line="+10"/>
         <source>%1 %</source>
@@ -3341,12 +3753,7 @@ Bündel: %2</translation>
 <context>
     <name>gramline::gui::TimelineView</name>
     <message>
-        <location filename="../app/gui/timeline_view.cpp" line="+66"/>
-        <source>Time use per night</source>
-        <translation>Zeitnutzung pro Nacht</translation>
-    </message>
-    <message>
-        <location line="+3"/>
+        <location filename="../app/gui/timeline_view.cpp" line="+15"/>
         <source>Gram matrix progress over the night</source>
         <translation>Fortschritt der Gram-Matrix über die Nacht</translation>
     </message>
@@ -3372,46 +3779,37 @@ Bündel: %2</translation>
     </message>
     <message>
         <location line="+10"/>
+        <location line="-307"/>
         <source>moving</source>
         <translation>Bewegung</translation>
     </message>
     <message>
-        <location line="+1"/>
+        <location line="+2"/>
         <source>counting</source>
         <translation>Zählen</translation>
     </message>
     <message>
-        <location line="+1"/>
+        <location line="+2"/>
         <source>references</source>
         <translation>Referenzen</translation>
     </message>
     <message>
-        <location line="+1"/>
+        <location line="+2"/>
         <source>dark</source>
         <translation>Dunkel</translation>
     </message>
     <message>
-        <location line="+1"/>
+        <location line="+2"/>
         <source>park</source>
         <translation>Parken</translation>
     </message>
     <message>
-        <location line="+3"/>
-        <source>Night %1</source>
-        <translation>Nacht %1</translation>
-    </message>
-    <message>
-        <location line="+8"/>
+        <location line="+2"/>
         <source>unused window</source>
         <translation>ungenutztes Fenster</translation>
     </message>
     <message>
-        <location line="+18"/>
-        <source>hours after the window opens; the bars end where it closes (%1)</source>
-        <translation>Stunden nach Öffnen des Fensters; die Balken enden dort, wo es schließt (%1)</translation>
-    </message>
-    <message>
-        <location line="+24"/>
+        <location line="+333"/>
         <source>Night %1: share of the training Gram matrix measured, and its predicted error</source>
         <translation>Nacht %1: gemessener Anteil der Trainings-Gram-Matrix und ihr vorhergesagter Fehler</translation>
     </message>
@@ -3452,11 +3850,24 @@ Bündel: %2</translation>
     </message>
 </context>
 <context>
+    <name>gramline::gui::Veil</name>
+    <message>
+        <location filename="../app/gui/view_frame.cpp" line="+22"/>
+        <source>Out of date</source>
+        <translation>Veraltet</translation>
+    </message>
+</context>
+<context>
     <name>gramline::gui::ViewFrame</name>
     <message>
-        <location filename="../app/gui/view_frame.cpp" line="+15"/>
+        <location line="+25"/>
         <source>View status</source>
         <translation>Ansichtsstatus</translation>
+    </message>
+    <message>
+        <location line="+8"/>
+        <source>No figures for this campaign</source>
+        <translation>Keine Zahlen für diese Kampagne</translation>
     </message>
 </context>
 <context>

@@ -85,6 +85,13 @@ struct SimulateRequest {
   bool force = false;
 };
 
+struct CompareRequest {
+  std::string path_a;
+  std::string path_b;
+  std::optional<std::string> out_path;  ///< the comparison JSON (the table always goes to stdout)
+  bool force = false;
+};
+
 int run_demo(const DemoRequest& request);
 int run_plan(const PlanRequest& request);
 /// A campaign for a data CSV (cmd_new.cpp).
@@ -99,6 +106,8 @@ int run_ingest(const IngestRequest& request);
 int run_resume(const ResumeRequest& request);
 /// A rehearsal: counts drawn from the rig model for a bundle (cmd_simulate.cpp).
 int run_simulate(const SimulateRequest& request);
+/// Two campaigns planned side by side (cmd_compare.cpp).
+int run_compare(const CompareRequest& request);
 
 /// Loads the campaign file and, with `data_path`, replaces its points by the data CSV. Throws
 /// formats::InputError naming the file, line or field; also when the campaign's encoding does

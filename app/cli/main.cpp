@@ -51,8 +51,8 @@ const OptionEntry kOptions[] = {
      "               (simulate) the night ends H hours after the first step starts, as an\n"
      "               interruption would; later steps get no counts (default: no stop)\n"},
     {"out", "PATH",
-     "  --out        output file (demo, check, export, resume, simulate) or directory (plan,\n"
-     "               ingest)\n"},
+     "  --out        output file (demo, check, export, resume, simulate,\n"
+     "               compare) or directory (plan, ingest)\n"},
     {"photons", "P",
      "  --photons P  photons of the new campaign, 1 to 4 (default: the rig file's, else 2)\n"},
     {"encoding", "PRESET",
@@ -146,6 +146,13 @@ const std::vector<CommandEntry>& commands() {
        "simulated, ready for ingest or resume. The seed defaults to the bundle's.\n",
        {"out", "seed", "fade-per-hour", "stop-after-hours", "force"},
        "the counts file to write"},
+      {"compare",
+       "compare A B [--out FILE] [--force]",
+       "Plan two campaigns and set their figures side by side: nights, calendar span, busy,\n"
+       "move and counting time, worst kernel half-width, Gram error, pairs. The table goes to\n"
+       "standard output; with --out the comparison is also written as JSON (a, b, difference).\n",
+       {"out", "force"},
+       "the file for the comparison JSON"},
   };
   return table;
 }
@@ -467,6 +474,15 @@ int dispatch(const QStringList& argv) {
           real_number(name, "--stop-after-hours", *h, 0.0, 1e6, false, "a number of hours >= 0");
     request.force = line.flag("force");
     return gramline::cli::run_simulate(request);
+  }
+  if (name == "compare") {
+    const std::vector<std::string> files = line.positional(2, "the two campaign files");
+    gramline::cli::CompareRequest request;
+    request.path_a = files[0];
+    request.path_b = files[1];
+    request.out_path = line.value("out");
+    request.force = line.flag("force");
+    return gramline::cli::run_compare(request);
   }
   // ingest and resume: a bundle and a counts file in.
   const std::vector<std::string> inputs = line.positional(2, "the bundle and the counts file");

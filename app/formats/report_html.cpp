@@ -7,6 +7,7 @@
 #include <sstream>
 
 #include "formats/cautions_text.h"
+#include "formats/palette.h"
 
 namespace gramline::formats {
 namespace {
@@ -23,28 +24,19 @@ std::string general(double value) {
   return o.str();
 }
 
-// A light-to-dark blue ramp of our own, t in [0, 1].
-std::string ramp_colour(double t) {
-  t = std::clamp(t, 0.0, 1.0);
-  const int r = static_cast<int>(std::lround(247 - t * (247 - 16)));
-  const int g = static_cast<int>(std::lround(251 - t * (251 - 52)));
-  const int b = static_cast<int>(std::lround(255 - t * (255 - 110)));
-  std::ostringstream o;
-  o << "#" << std::hex << std::setfill('0') << std::setw(2) << r << std::setw(2) << g
-    << std::setw(2) << b;
-  return o.str();
-}
+// Larger values darker, on Gramline's ramp (docs/palette.md).
+std::string ramp_colour(double t) { return palette::ramp(t).hex(); }
 
-const char* kind_colour(StepKind k) {
+std::string kind_colour(StepKind k) {
   switch (k) {
     case StepKind::measure:
-      return "#2f6db5";
+      return palette::counting.hex();
     case StepKind::reference:
-      return "#e08a1e";
+      return palette::reference.hex();
     case StepKind::dark:
-      return "#555555";
+      return palette::dark.hex();
     case StepKind::park:
-      return "#3a9a5b";
+      return palette::park.hex();
   }
   return "#000000";
 }
@@ -224,8 +216,10 @@ std::string format_summary_html(const Campaign& campaign, const Plan& plan,
     << html_escape(campaign.name) << " - Gramline plan summary</title>\n"
     << "<style>body{font-family:sans-serif;max-width:60em;margin:2em auto;color:#222}"
        "table{border-collapse:collapse}td,th{border-bottom:1px solid #ccc;padding:2px 10px;"
-       "text-align:left}td.n{text-align:right}.caution{border:2px solid #b33;padding:0.5em 1em;"
-       "background:#fff6f4}@media print{figure{break-inside:avoid}}</style>\n</head><body>\n";
+       "text-align:left}td.n{text-align:right}.caution{border:2px solid "
+    << palette::alert.hex()
+    << ";padding:0.5em 1em;background:#fbf3ec}@media print{figure{break-inside:avoid}}</style>\n"
+       "</head><body>\n";
   o << "<h1>" << html_escape(campaign.name) << "</h1>\n";
   if (!campaign.notes.empty()) o << "<p>" << html_escape(campaign.notes) << "</p>\n";
   o << "<p>Gramline " << GRAMLINE_VERSION << ", seed " << campaign.seed << ". "

@@ -164,8 +164,11 @@ void CampaignFiles::export_plan() {
     return;
   }
   if (!cautions_acknowledged_()) return;
-  const QString dir =
-      QFileDialog::getExistingDirectory(window_, tr("Export Plan Files To"), last_dir());
+  // Start in the campaign's own folder; an untitled campaign starts where the user last was.
+  const QString start =
+      document_->path().isEmpty() ? last_dir() : QFileInfo(document_->path()).absolutePath();
+  const QString dir = QFileDialog::getExistingDirectory(window_, tr("Export Plan Files To"),
+                                                        start.isEmpty() ? QDir::homePath() : start);
   if (dir.isEmpty()) return;
   try {
     formats::write_plan_files(planner_->planned_campaign(), *plan, dir);

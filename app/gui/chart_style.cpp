@@ -3,29 +3,20 @@
 #include <QAbstractAxis>
 #include <QChart>
 #include <QLegend>
-#include <algorithm>
-#include <array>
 #include <cmath>
 
 namespace gramline::gui {
 
+QColor to_qcolor(const palette::Rgb& rgb) { return QColor(rgb.r, rgb.g, rgb.b); }
+
+QColor readable_on(const QColor& colour, const QPalette& palette) {
+  const bool dark_base = palette.color(QPalette::Base).lightnessF() < 0.5;
+  return dark_base && colour.lightnessF() < 0.55 ? colour.lighter(190) : colour;
+}
+
 QColor heat_colour(double t) {
   if (!std::isfinite(t)) return QColor(128, 128, 128);
-  t = std::clamp(t, 0.0, 1.0);
-  // Stops of our own scale: ink, teal, amber, cream.
-  static const std::array<std::array<double, 3>, 4> stops = {{
-      {0x1b, 0x2a, 0x41},
-      {0x2e, 0x7d, 0x7a},
-      {0xe0, 0xa6, 0x3a},
-      {0xfb, 0xf3, 0xd5},
-  }};
-  const double x = t * 3.0;
-  const int i = std::min(2, static_cast<int>(x));
-  const double f = x - i;
-  const auto mix = [&](int k) {
-    return static_cast<int>(std::lround(stops[i][k] * (1 - f) + stops[i + 1][k] * f));
-  };
-  return QColor(mix(0), mix(1), mix(2));
+  return to_qcolor(palette::ramp(t));
 }
 
 void style_chart(QChart* chart, const QPalette& palette) {

@@ -4,21 +4,38 @@
 #include <QColor>
 #include <QPalette>
 
+#include "formats/palette.h"
+
 class QChart;
 class QAbstractAxis;
 
 namespace gramline::gui {
 
+/// Gramline's palette (docs/palette.md, formats/palette.h) as QColor.
+QColor to_qcolor(const palette::Rgb& rgb);
+
 /// Work colours used wherever time is split by kind.
 namespace work_colour {
-inline QColor moving() { return QColor(0xc8, 0x55, 0x3d); }     // brick
-inline QColor counting() { return QColor(0x2a, 0x7f, 0x62); }   // pine
-inline QColor reference() { return QColor(0x5b, 0x7f, 0xb9); }  // slate
-inline QColor dark() { return QColor(0x6e, 0x5a, 0x8a); }       // dusk
-inline QColor park() { return QColor(0xd9, 0xa4, 0x41); }       // ochre
+inline QColor moving() { return to_qcolor(palette::moving); }
+inline QColor counting() { return to_qcolor(palette::counting); }
+inline QColor reference() { return to_qcolor(palette::reference); }
+inline QColor dark() { return to_qcolor(palette::dark); }
+inline QColor park() { return to_qcolor(palette::park); }
 }  // namespace work_colour
 
-/// Heatmap colour for t in [0, 1]: night ink through teal and amber to cream.
+namespace gramline_colour {
+inline QColor pass() { return to_qcolor(palette::pass); }
+inline QColor alert() { return to_qcolor(palette::alert); }
+/// The colour of a class label (+1 or -1).
+inline QColor class_colour(int label) {
+  return to_qcolor(label > 0 ? palette::class_positive : palette::class_negative);
+}
+}  // namespace gramline_colour
+
+/// `colour`, lightened when the palette's base is dark so text in it stays readable.
+QColor readable_on(const QColor& colour, const QPalette& palette);
+
+/// Matrix colour for t in [0, 1]: Gramline's ramp, larger values darker.
 QColor heat_colour(double t);
 
 /// Background, text and grid colours of `chart` from `palette`.

@@ -78,6 +78,17 @@ void HeatmapWidget::paintEvent(QPaintEvent*) {
   const QRect r = map_rect();
   if (r.isEmpty()) return;
   p.drawImage(r, image_);  // nearest-neighbour: one cell per entry stays sharp
+  {
+    // Class boundaries of a grouped order, in the text colour over a halo of the base.
+    const double cw = double(r.width()) / cols_, ch = double(r.height()) / rows_;
+    for (const QColor& c : {palette().color(QPalette::Base), palette().color(QPalette::Text)}) {
+      p.setPen(QPen(c, c == palette().color(QPalette::Base) ? 3.0 : 1.0));
+      for (int b : row_breaks_)
+        p.drawLine(QPointF(r.left(), r.top() + b * ch), QPointF(r.right() + 1, r.top() + b * ch));
+      for (int b : col_breaks_)
+        p.drawLine(QPointF(r.left() + b * cw, r.top()), QPointF(r.left() + b * cw, r.bottom() + 1));
+    }
+  }
   if (hover_.x() >= 0) {
     const double cw = double(r.width()) / cols_, ch = double(r.height()) / rows_;
     p.setPen(QPen(palette().color(QPalette::Highlight), 2));
@@ -116,6 +127,13 @@ void HeatmapWidget::mouseMoveEvent(QMouseEvent* event) {
 void HeatmapWidget::leaveEvent(QEvent*) {
   hover_ = {-1, -1};
   update();
+  if (hover_callback_) hover_callback_(-1, -1);
+}
+
+void HeatmapWidget::set_breaks(std::vector<int> rows, std::vector<int> cols) {
+  row_breaks_ = std::move(rows);
+  col_breaks_ = std::move(cols);
+  update();
 }
 
 GramView::GramView(QWidget* parent) : QWidget(parent) {
@@ -131,17 +149,16 @@ GramView::GramView(QWidget* parent) : QWidget(parent) {
   order_->addItem(tr("grouped by class"));
   order_->setCurrentIndex(1);
   order_->setAccessibleName(tr("Order of the points in the maps"));
-  details_ =
-      new QLabel(tr("Hover over an entry to see its values, the step that measures it "
-                    "and when."));
+  details_ = new QLabel(hover_hint());
   details_->setTextFormat(Qt::RichText);
   details_->setWordWrap(true);
   details_->setAccessibleName(tr("Entry under the pointer"));
   details_->setMinimumHeight(fontMetrics().height() * 3);
-  note_ =
-      new QLabel(tr("Rows: the point prepared; columns: the training point analysed. "
-                    "“Grouped by class” puts all points of one class first; the dark "
-                    "diagonal of σ and pairs is not measured (it is 1 by construction)."));
+  note_ = new QLabel(tr(
+      "Rows: the point prepared; columns: the training point analysed. "
+      "“Grouped by class” puts all points of one class first, a line between the classes; the pale "
+      "diagonal of σ and pairs is not measured (it is 1 by construction). Darker "
+      "is larger on every map."));
   note_->setWordWrap(true);
   note_->setForegroundRole(QPalette::PlaceholderText);
 
@@ -165,10 +182,15 @@ GramView::GramView(QWidget* parent) : QWidget(parent) {
   connect(order_, &QComboBox::currentIndexChanged, this, [this] { redraw(); });
   for (HeatmapWidget* h : {kernel_, sigma_, pairs_}) {
     h->set_hover_callback([this](int r, int c) {
-      if (r >= 0)
-        details_->setText(entry_text(r, c).replace(QStringLiteral("<br>"), QStringLiteral(" · ")));
+      details_->setText(
+          r >= 0 ? entry_text(r, c).replace(QStringLiteral("<br>"), QStringLiteral(" · "))
+                 : hover_hint());
     });
   }
+}
+
+QString GramView::hover_hint() const {
+  return tr("Hover over an entry to see its values, the step that measures it and when.");
 }
 
 void GramView::set_plan(std::shared_ptr<const Plan> plan, const Campaign& campaign) {
@@ -225,18 +247,58 @@ QString GramView::entry_text(int display_row, int display_col) const {
   return text;
 }
 
+void GramView::fill_orders() {
+  const bool train = block_->currentIndex() == 0;
+  const bool grouped = order_->currentIndex() == 1;
+  const int rows = train ? static_cast<int>(plan_->kernel_train.rows())
+                         : static_cast<int>(plan_->kernel_test.rows());
+  const int cols = static_cast<int>(plan_->kernel_train.cols());
+  // Stable: within a class the points keep their file order. Class +1 first.
+  const auto order = [grouped](int count, const Eigen::VectorXi& labels) {
+    std::vector<int> o(static_cast<std::size_t>(count));
+    for (int i = 0; i < count; ++i) o[static_cast<std::size_t>(i)] = i;
+    if (grouped && labels.size() == count) {
+      std::stable_sort(o.begin(), o.end(),
+                       [&labels](int a, int b) { return (labels(a) > 0) && !(labels(b) > 0); });
+    }
+    return o;
+  };
+  row_order_ = order(rows, train ? train_labels_ : test_labels_);
+  col_order_ = order(cols, train_labels_);
+}
+
+std::vector<int> GramView::class_breaks(const std::vector<int>& order,
+                                        const Eigen::VectorXi& labels) {
+  std::vector<int> out;
+  for (std::size_t i = 1; i < order.size(); ++i)
+    if (labels.size() > std::max(order[i], order[i - 1]) &&
+        (labels(order[i]) > 0) != (labels(order[i - 1]) > 0))
+      out.push_back(static_cast<int>(i));
+  return out;
+}
+
 void GramView::redraw() {
   if (!plan_) {
+    row_order_.clear();
+    col_order_.clear();
     kernel_->clear_matrix();
     sigma_->clear_matrix();
     pairs_->clear_matrix();
     return;
   }
+  fill_orders();
   const bool train = block_->currentIndex() == 0;
-  const Eigen::MatrixXd& k = train ? plan_->kernel_train : plan_->kernel_test;
-  const Eigen::MatrixXd& s = train ? plan_->sigma_train : plan_->sigma_test;
-  const Eigen::MatrixXd& n = train ? plan_->pairs_train : plan_->pairs_test;
+  const Eigen::MatrixXd k = ordered(train ? plan_->kernel_train : plan_->kernel_test);
+  const Eigen::MatrixXd s = ordered(train ? plan_->sigma_train : plan_->sigma_test);
+  const Eigen::MatrixXd n = ordered(train ? plan_->pairs_train : plan_->pairs_test);
   const auto text = [this](int r, int c) { return entry_text(r, c); };
+  // Thin lines where the class changes, when the points are grouped.
+  std::vector<int> row_breaks, col_breaks;
+  if (order_->currentIndex() == 1) {
+    row_breaks = class_breaks(row_order_, train ? train_labels_ : test_labels_);
+    col_breaks = class_breaks(col_order_, train_labels_);
+  }
+  for (HeatmapWidget* h : {kernel_, sigma_, pairs_}) h->set_breaks(row_breaks, col_breaks);
   kernel_->set_matrix(
       k, 0.0, 1.0, [](double v) { return number_text(v, 1); }, text);
   const double s_max = s.size() ? s.maxCoeff() : 1.0;
@@ -255,5 +317,7 @@ void GramView::redraw() {
   pairs_->set_matrix(
       n, n_min, n_max, [](double v) { return count_text(v); }, text);
 }
+
+QString GramView::details() const { return details_->text(); }
 
 }  // namespace gramline::gui

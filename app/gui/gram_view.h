@@ -5,6 +5,7 @@
 #include <QWidget>
 #include <functional>
 #include <memory>
+#include <vector>
 
 #include "gramline/campaign.h"
 #include "gramline/plan.h"
@@ -26,6 +27,8 @@ class HeatmapWidget : public QWidget {
   void set_matrix(const Eigen::MatrixXd& values, double low, double high,
                   std::function<QString(double)> scale_text, CellText cell_text);
   void clear_matrix();
+  /// Lines drawn before these display rows and columns (class changes of a grouped order).
+  void set_breaks(std::vector<int> rows, std::vector<int> cols);
   /// Called with the hovered cell (matrix indices, after any reordering), or (-1, -1).
   void set_hover_callback(CellHover hover) { hover_callback_ = std::move(hover); }
   /// Cell under a widget position, or (-1, -1).
@@ -53,6 +56,7 @@ class HeatmapWidget : public QWidget {
   CellText cell_text_;
   CellHover hover_callback_;
   QPoint hover_{-1, -1};
+  std::vector<int> row_breaks_, col_breaks_;
 };
 
 class GramView : public QWidget {
@@ -64,9 +68,21 @@ class GramView : public QWidget {
   HeatmapWidget* kernel_map() const { return kernel_; }
   HeatmapWidget* sigma_map() const { return sigma_; }
   HeatmapWidget* pairs_map() const { return pairs_; }
+  QComboBox* order_box() const { return order_; }
+  QComboBox* block_box() const { return block_; }
+  /// The line under the maps: the hovered entry, or how to get one.
+  QString details() const;
+  /// Display order -> matrix index of the rows and columns now shown.
+  const std::vector<int>& row_order() const { return row_order_; }
+  const std::vector<int>& col_order() const { return col_order_; }
 
  private:
   void redraw();
+  /// Fills row_order_ and col_order_ for the block and order chosen.
+  void fill_orders();
+  static std::vector<int> class_breaks(const std::vector<int>& order,
+                                       const Eigen::VectorXi& labels);
+  QString hover_hint() const;
   /// Text for the entry drawn at (row, col) of the (possibly class-ordered) map.
   QString entry_text(int row, int col) const;
   /// The matrix with rows and columns in display order.

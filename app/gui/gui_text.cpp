@@ -47,6 +47,11 @@ QString clock_text(const NightWindow& nights, double start_s) {
   return QLocale().toString(step_clock(nights, start_s), QStringLiteral("ddd HH:mm:ss"));
 }
 
+QString end_text(const NightWindow& nights, double start_s) {
+  if (start_s < 6.0 * 86400.0) return clock_text(nights, start_s);
+  return QLocale().toString(step_clock(nights, start_s), QStringLiteral("ddd d MMM HH:mm:ss"));
+}
+
 QString number_text(double value, int decimals) { return QLocale().toString(value, 'f', decimals); }
 
 QString count_text(double value) {

@@ -19,6 +19,9 @@ QString duration_text(double seconds);
 QDateTime step_clock(const NightWindow& nights, double start_s);
 /// "Tue 21:43:10".
 QString clock_text(const NightWindow& nights, double start_s);
+/// When a step `start_s` after night 1's start falls: clock_text within a week of the first
+/// night, else with the date ("Mon 12 Jan 23:22:46"), so a long campaign never reads ambiguous.
+QString end_text(const NightWindow& nights, double start_s);
 /// Number in the user's locale with `decimals` decimals.
 QString number_text(double value, int decimals);
 /// Count with thousands separators.

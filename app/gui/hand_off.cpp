@@ -157,6 +157,13 @@ void HandOff::add_actions(QMenu* menu) {
   actions_ = {bundle, ingest_a, resume_a, rehearse_a};
 }
 
+QString HandOff::export_dir() const {
+  const QString campaign = campaign_path_ ? campaign_path_() : QString();
+  if (!campaign.isEmpty()) return QFileInfo(campaign).absolutePath();
+  const QString last = last_dir();
+  return last.isEmpty() ? QDir::homePath() : last;
+}
+
 QString HandOff::last_dir() const {
   return QSettings().value(QStringLiteral("files/last_dir")).toString();
 }
@@ -192,7 +199,7 @@ void HandOff::export_bundle() {
     return;
   }
   if (!cautions_acknowledged_()) return;
-  const QString start = last_dir() + QLatin1Char('/') +
+  const QString start = export_dir() + QLatin1Char('/') +
                         file_stem(QString::fromStdString(planner_->planned_campaign().name)) +
                         QStringLiteral(".zip");
   // The dialog asks before replacing an existing file.

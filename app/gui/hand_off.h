@@ -46,6 +46,8 @@ class HandOff : public QObject {
   Q_OBJECT
 
  public:
+  /// Where the campaign file is (empty: untitled); exports start in its folder.
+  void set_campaign_path(std::function<QString()> path) { campaign_path_ = std::move(path); }
   /// `cautions_acknowledged` shows the cautions before the first export of a session and says
   /// whether the user went on.
   HandOff(QMainWindow* window, PlanRunner* planner, MeasuredView* view,
@@ -108,6 +110,9 @@ class HandOff : public QObject {
   bool choose_bundle_and_counts(const QString& bundle_title, const QString& counts_title,
                                 QString& bundle, QString& counts);
   QString last_dir() const;
+  /// The folder an export starts in: the campaign's own folder when it has a file.
+  QString export_dir() const;
+  std::function<QString()> campaign_path_;
   void remember_dir(const QString& path) const;
 
   QMainWindow* window_;

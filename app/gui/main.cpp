@@ -50,7 +50,8 @@ int main(int argc, char** argv) {
     gramline::gui::take_screenshots(window, parser.value(screenshots),
                                     [](bool ok) { QApplication::exit(ok ? 0 : 1); });
   } else {
-    QTimer::singleShot(0, &window, [&window] { window.offer_recovery(); });
+    const QString opening = files.isEmpty() ? QString() : files.first();
+    QTimer::singleShot(0, &window, [&window, opening] { window.offer_recovery(opening); });
   }
   return app.exec();
 }

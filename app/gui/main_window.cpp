@@ -4,6 +4,7 @@
 #include <QApplication>
 #include <QCloseEvent>
 #include <QDockWidget>
+#include <QKeyEvent>
 #include <QKeySequence>
 #include <QLocale>
 #include <QMenu>
@@ -18,6 +19,7 @@
 #include "campaign_document.h"
 #include "campaign_files.h"
 #include "cautions.h"
+#include "compare_view.h"
 #include "editor_panel.h"
 #include "gram_view.h"
 #include "gui_text.h"
@@ -58,6 +60,7 @@ MainWindow::MainWindow(QWidget* parent) : QMainWindow(parent) {
   addDockWidget(Qt::LeftDockWidgetArea, dock);
 
   hand_off_ = new HandOff(this, runner_, measured_, [this] { return cautions_acknowledged(); });
+  hand_off_->set_campaign_path([this] { return document_->path(); });
   connect(hand_off_, &HandOff::ingested, this, [this] { tabs_->setCurrentIndex(kMeasured); });
   autosave_ = new SessionAutosave(document_, this);
   recent_ = new RecentFiles(new QMenu(tr("Open &Recent"), this), this);
@@ -80,6 +83,19 @@ MainWindow::MainWindow(QWidget* parent) : QMainWindow(parent) {
   });
   follow_planning();
   follow_margin_check();
+  // The comparison's advice buttons are ordinary, undoable edits of the campaign.
+  connect(compare_, &CompareView::minimum_budget_requested, this, [this](double pairs) {
+    document_->edit(tr("Use the minimum budget that passes"), [pairs](Campaign& c) {
+      c.precision.fixed_pairs = pairs;
+      c.precision.allocation = Allocation::uniform;
+    });
+  });
+  connect(compare_, &CompareView::margin_aware_requested, this, [this] {
+    document_->edit(tr("Use margin-aware sharing"),
+                    [](Campaign& c) { c.precision.allocation = Allocation::margin_aware; });
+  });
+  // Ctrl+Z in a field of the editor undoes the campaign edit, not the field's typing.
+  qApp->installEventFilter(this);
 
   QSettings settings;
   restoreGeometry(settings.value(QStringLiteral("window/geometry")).toByteArray());
@@ -87,7 +103,7 @@ MainWindow::MainWindow(QWidget* parent) : QMainWindow(parent) {
   tabs_->setCurrentIndex(settings.value(QStringLiteral("window/view"), 0).toInt());
   if (!settings.contains(QStringLiteral("window/geometry"))) {
     resize(1400, 860);
-    resizeDocks({dock}, {560}, Qt::Horizontal);
+    resizeDocks({dock}, {640}, Qt::Horizontal);
   }
   update_title();
   set_all_stale(false, QString());
@@ -100,6 +116,7 @@ void MainWindow::build_views() {
   gram_ = new GramView;
   margin_ = new MarginView;
   measured_ = new MeasuredView;
+  compare_ = new CompareView;
 
   tabs_ = new QTabWidget;
   tabs_->setAccessibleName(tr("Views of the plan"));
@@ -116,6 +133,8 @@ void MainWindow::build_views() {
   add_view(kMargin, margin_, tr("Margin"), tr("Whether the classifier survives the noise"));
   add_view(kMeasured, measured_, tr("Measured"),
            tr("A night's counts against the prediction, and the drift of the night"));
+  add_view(kCompare, compare_, tr("Compare"),
+           tr("A pinned plan beside the current one: what a change costs or gains"));
   add_view(kCautions, make_cautions_page(), tr("Cautions"),
            tr("Laser safety and unattended operation"));
   setCentralWidget(tabs_);
@@ -165,9 +184,9 @@ void MainWindow::build_actions() {
   action(file, tr("&Quit"), QKeySequence::Quit, [this] { close(); });
 
   QAction* undo = document_->undo_stack()->createUndoAction(this, tr("&Undo"));
-  undo->setShortcut(QKeySequence::Undo);
+  undo->setShortcuts(QKeySequence::Undo);
   QAction* redo = document_->undo_stack()->createRedoAction(this, tr("&Redo"));
-  redo->setShortcut(QKeySequence::Redo);
+  redo->setShortcuts(QKeySequence::Redo);  // every binding of the desktop (Ctrl+Y, Ctrl+Shift+Z)
   edit->addAction(undo);
   edit->addAction(redo);
   edit->addSeparator();
@@ -179,7 +198,7 @@ void MainWindow::build_actions() {
          [this] { PreferencesDialog(this).exec(); });
 
   const QStringList names = {tr("&Summary"), tr("S&teps"),    tr("T&imeline"), tr("&Gram Error"),
-                             tr("&Margin"),  tr("M&easured"), tr("&Cautions")};
+                             tr("&Margin"),  tr("M&easured"), tr("C&ompare"),  tr("&Cautions")};
   for (int v = 0; v < kViewCount; ++v) {
     QAction* a = view->addAction(names[v]);
     a->setShortcut(QKeySequence(Qt::ALT | static_cast<Qt::Key>(Qt::Key_1 + v)));
@@ -272,6 +291,9 @@ void MainWindow::on_campaign_changed() {
   if (!has_data) {
     runner_->cancel();
     set_all_stale(true, tr("No data yet: import a CSV (Ctrl+I) or open the demo to plan."));
+    withdraw_views(
+        tr("This campaign has no points yet, so nothing is planned. The figures of "
+           "the previous campaign are not shown."));
     plan_status_->set_text(tr("No data."));
   }
 }
@@ -284,7 +306,9 @@ void MainWindow::on_plan_finished() {
   timeline_->set_plan(plan, c);
   gram_->set_plan(plan, c);
   margin_->set_plan(plan, c);
+  compare_->set_plan(plan, c);
   set_all_stale(false, QString());
+  withdraw_views(QString());
   margin_runner_->start(c, plan);
   if (!plan->summary.fits) {
     frames_[kSummary]->set_banner(tr("The plan needs more nights than allowed (%1). Allow more "
@@ -301,6 +325,7 @@ void MainWindow::on_margin_finished() {
   margin_status_->set_text(QString());
   const auto check = margin_runner_->check();
   margin_->set_check(check, margin_runner_->grid());
+  compare_->set_check(check);
   if (!check) return;
   QString line = check->verdict.pass ? tr("Margin check: pass") : tr("Margin check: fail");
   line += tr(" (largest flip probability %1 %, median margin ratio %2)")
@@ -319,6 +344,17 @@ void MainWindow::on_plan_failed(const QString& message) {
   for (ViewFrame* f : frames_) {
     if (f != frames_[kCautions] && f != frames_[kMeasured])
       f->set_banner(tr("Cannot plan this campaign: %1").arg(message), true);
+  }
+  withdraw_views(
+      tr("There is no plan for this campaign, so there is nothing to show here. "
+         "Correct the campaign as the message above says; the figures of the "
+         "previous campaign are not shown."));
+}
+
+void MainWindow::withdraw_views(const QString& reason) {
+  for (int v = 0; v < kViewCount; ++v) {
+    if (v == kCautions || v == kMeasured) continue;  // neither depends on the plan
+    frames_[v]->set_withdrawn(reason);
   }
 }
 
@@ -346,7 +382,22 @@ bool MainWindow::save_to(const QString& path) { return files_->save_to(path); }
 
 void MainWindow::load_demo() { files_->load_demo(); }
 
-void MainWindow::offer_recovery() { autosave_->offer_recovery(); }
+void MainWindow::offer_recovery(const QString& opening) { autosave_->offer_recovery(opening); }
+
+bool MainWindow::eventFilter(QObject* watched, QEvent* event) {
+  if (event->type() == QEvent::ShortcutOverride && editor_) {
+    auto* key = static_cast<QKeyEvent*>(event);
+    auto* widget = qobject_cast<QWidget*>(watched);
+    const bool undo_key = key->matches(QKeySequence::Undo) || key->matches(QKeySequence::Redo);
+    if (undo_key && widget && (widget == editor_ || editor_->isAncestorOf(widget))) {
+      // Leave the event unclaimed: the window's Undo and Redo actions take the key. Every
+      // finished value of a field is already a campaign edit (CampaignDocument::edit).
+      event->ignore();
+      return true;
+    }
+  }
+  return QMainWindow::eventFilter(watched, event);
+}
 
 void MainWindow::closeEvent(QCloseEvent* event) {
   if (!files_->confirm_discard()) {

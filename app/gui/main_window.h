@@ -15,6 +15,7 @@ namespace gramline::gui {
 
 class CampaignDocument;
 class CampaignFiles;
+class CompareView;
 class EditorPanel;
 class GramView;
 class HandOff;
@@ -34,7 +35,17 @@ class MainWindow : public QMainWindow {
   Q_OBJECT
 
  public:
-  enum View { kSummary, kSteps, kTimeline, kGram, kMargin, kMeasured, kCautions, kViewCount };
+  enum View {
+    kSummary,
+    kSteps,
+    kTimeline,
+    kGram,
+    kMargin,
+    kMeasured,
+    kCompare,
+    kCautions,
+    kViewCount
+  };
 
   explicit MainWindow(QWidget* parent = nullptr);
 
@@ -46,6 +57,8 @@ class MainWindow : public QMainWindow {
   StepsView* steps_view() const { return steps_; }
   TimelineView* timeline_view() const { return timeline_; }
   MeasuredView* measured_view() const { return measured_; }
+  GramView* gram_view() const { return gram_; }
+  CompareView* compare_view() const { return compare_; }
   HandOff* hand_off() const { return hand_off_; }
   EditorPanel* editor() const { return editor_; }
   ViewFrame* frame(View view) const { return frames_[view]; }
@@ -59,11 +72,13 @@ class MainWindow : public QMainWindow {
   bool save_to(const QString& path);
   /// Replaces the campaign with the bundled demo.
   void load_demo();
-  /// Looks for autosaves of sessions that ended without closing and offers to restore them.
-  void offer_recovery();
+  /// Looks for autosaves of sessions that ended without closing and offers to restore them;
+  /// with `opening`, only those of that file.
+  void offer_recovery(const QString& opening = QString());
 
  protected:
   void closeEvent(QCloseEvent* event) override;
+  bool eventFilter(QObject* watched, QEvent* event) override;
 
  private:
   void build_views();
@@ -76,6 +91,8 @@ class MainWindow : public QMainWindow {
   void on_plan_failed(const QString& message);
   void on_margin_finished();
   void set_all_stale(bool stale, const QString& message);
+  /// Puts `reason` in place of every plan view (no plan for this campaign); empty: the views.
+  void withdraw_views(const QString& reason);
   void update_title();
   bool cautions_acknowledged();
 
@@ -91,6 +108,7 @@ class MainWindow : public QMainWindow {
   GramView* gram_ = nullptr;
   MarginView* margin_ = nullptr;
   MeasuredView* measured_ = nullptr;
+  CompareView* compare_ = nullptr;
   HandOff* hand_off_ = nullptr;
   SessionAutosave* autosave_ = nullptr;
   RecentFiles* recent_ = nullptr;

@@ -5,6 +5,7 @@
 #include <QChart>
 #include <QChartView>
 #include <QCoreApplication>
+#include <QFontMetricsF>
 #include <QGridLayout>
 #include <QHeaderView>
 #include <QLabel>
@@ -28,13 +29,40 @@ namespace gramline::gui {
 
 namespace {
 
-QColor class_colour(int label) {
-  return label > 0 ? work_colour::park() : work_colour::reference();
-}
+QColor class_colour(int label) { return gramline_colour::class_colour(label); }
 
 QString percent(double fraction, int decimals = 1) {
   return QCoreApplication::translate("gramline::gui", "%1 %")
       .arg(number_text(100.0 * fraction, decimals));
+}
+
+/// Training marker: a triangle pointing up for class +1 and down for class -1, so the classes
+/// differ in shape as well as in colour.
+void draw_train_marker(QPainter& p, const QPointF& s, int label) {
+  const QColor col = class_colour(label);
+  const double k = label > 0 ? -1.0 : 1.0;
+  QPainterPath t;
+  t.moveTo(s + QPointF(0, 5.5 * k));
+  t.lineTo(s + QPointF(5.5, -3.5 * k));
+  t.lineTo(s + QPointF(-5.5, -3.5 * k));
+  t.closeSubpath();
+  p.setPen(QPen(col.darker(160), 1));
+  p.setBrush(col);
+  p.drawPath(t);
+}
+
+/// Test marker: a diamond outlined by the true class and filled on the ramp by the flip
+/// probability (pale: keeps its side; dark: a coin toss or worse).
+void draw_test_marker(QPainter& p, const QPointF& s, int label, const QColor& fill) {
+  QPainterPath diamond;
+  diamond.moveTo(s + QPointF(0, -7));
+  diamond.lineTo(s + QPointF(7, 0));
+  diamond.lineTo(s + QPointF(0, 7));
+  diamond.lineTo(s + QPointF(-7, 0));
+  diamond.closeSubpath();
+  p.setPen(QPen(class_colour(label), 2.2));
+  p.setBrush(fill);
+  p.drawPath(diamond);
 }
 
 }  // namespace
@@ -44,6 +72,8 @@ DecisionMap::DecisionMap(QWidget* parent) : QWidget(parent) {
   setMinimumSize(280, 280);
   setAccessibleName(tr("Data and decision boundary"));
 }
+
+bool DecisionMap::plane_mode() const { return campaign_.data.feature_count() == 2; }
 
 void DecisionMap::set_content(const Campaign& campaign, std::shared_ptr<const MarginCheck> check,
                               std::shared_ptr<const DecisionGrid> grid) {
@@ -58,28 +88,27 @@ void DecisionMap::set_content(const Campaign& campaign, std::shared_ptr<const Ma
     y_low_ = grid_->y_low;
     y_high_ = grid_->y_high;
     const int n = grid_->size;
+    // A faint wash of each class's colour on its side; the lines carry the decision.
     shade_ = QImage(n, n, QImage::Format_ARGB32);
     const QColor base = palette().color(QPalette::Base);
     for (int r = 0; r < n; ++r) {
       for (int c = 0; c < n; ++c) {
         const double f = grid_->values(r * n + c);
-        QColor tint = class_colour(f > 0 ? 1 : -1);
-        const double a = 0.22;
-        QColor mixed = QColor::fromRgbF(base.redF() * (1 - a) + tint.redF() * a,
-                                        base.greenF() * (1 - a) + tint.greenF() * a,
-                                        base.blueF() * (1 - a) + tint.blueF() * a);
+        const QColor tint = class_colour(f > 0 ? 1 : -1);
+        const double a = 0.10;
+        const QColor mixed = QColor::fromRgbF(base.redF() * (1 - a) + tint.redF() * a,
+                                              base.greenF() * (1 - a) + tint.greenF() * a,
+                                              base.blueF() * (1 - a) + tint.blueF() * a);
         shade_.setPixelColor(c, n - 1 - r, mixed);  // row 0 is y_low: bottom of the image
       }
     }
-  } else if (d.train_count() > 0 && d.feature_count() >= 1) {
-    const int fy = d.feature_count() >= 2 ? 1 : 0;
+  } else if (plane_mode() && d.train_count() > 0) {
     x_low_ = std::min(d.train.col(0).minCoeff(), d.test_count() ? d.test.col(0).minCoeff() : 1e300);
     x_high_ =
         std::max(d.train.col(0).maxCoeff(), d.test_count() ? d.test.col(0).maxCoeff() : -1e300);
-    y_low_ =
-        std::min(d.train.col(fy).minCoeff(), d.test_count() ? d.test.col(fy).minCoeff() : 1e300);
+    y_low_ = std::min(d.train.col(1).minCoeff(), d.test_count() ? d.test.col(1).minCoeff() : 1e300);
     y_high_ =
-        std::max(d.train.col(fy).maxCoeff(), d.test_count() ? d.test.col(fy).maxCoeff() : -1e300);
+        std::max(d.train.col(1).maxCoeff(), d.test_count() ? d.test.col(1).maxCoeff() : -1e300);
     const double px = 0.06 * std::max(1e-9, x_high_ - x_low_),
                  py = 0.06 * std::max(1e-9, y_high_ - y_low_);
     x_low_ -= px;
@@ -93,6 +122,7 @@ void DecisionMap::set_content(const Campaign& campaign, std::shared_ptr<const Ma
 QRectF DecisionMap::plot_rect() const {
   const double fh = fontMetrics().height();
   QRectF area = QRectF(rect()).adjusted(fh * 2.2, fh * 0.5, -fh * 0.5, -fh * 2.2);
+  if (!plane_mode()) return area;
   const double side = std::min(area.width(), area.height());
   return QRectF(area.left(), area.top(), side, side);
 }
@@ -107,36 +137,48 @@ void DecisionMap::paintEvent(QPaintEvent*) {
   QPainter p(this);
   p.setRenderHint(QPainter::Antialiasing);
   p.fillRect(rect(), palette().color(QPalette::Base));
+  test_screen_.clear();
+  if (campaign_.data.train_count() == 0) return;
+  if (plane_mode())
+    paint_plane(p);
+  else
+    paint_decision_values(p);
+}
+
+void DecisionMap::paint_plane(QPainter& p) {
   const DataSet& d = campaign_.data;
-  if (d.train_count() == 0) return;
   const QRectF r = plot_rect();
   if (!shade_.isNull()) {
     p.drawImage(r,
                 shade_.scaled(r.size().toSize(), Qt::IgnoreAspectRatio, Qt::SmoothTransformation));
-    // The boundary f = 0: cells whose sign differs from a neighbour's.
+    // Level lines by marching squares: f = 0 (the boundary) solid, f = -1 and +1 (the margin)
+    // thin and dashed.
     const int n = grid_->size;
-    QPen pen(palette().color(QPalette::Text), 2.0);
-    p.setPen(pen);
     const double cw = r.width() / (n - 1), ch = r.height() / (n - 1);
-    for (int row = 0; row < n; ++row) {
-      for (int c = 0; c < n; ++c) {
-        const double f = grid_->values(row * n + c);
-        // Linear interpolation of the zero crossing along x and along y.
-        if (c + 1 < n) {
-          const double g = grid_->values(row * n + c + 1);
-          if ((f > 0) != (g > 0)) {
-            const double t = f / (f - g);
-            const QPointF a(r.left() + (c + t) * cw, r.bottom() - row * ch);
-            p.drawPoint(a);
+    const auto at = [&](int row, int c) { return grid_->values(row * n + c); };
+    const auto point = [&](double c, double row) {
+      return QPointF(r.left() + c * cw, r.bottom() - row * ch);
+    };
+    for (double level : {-1.0, 1.0, 0.0}) {
+      QPen pen(palette().color(QPalette::Text), level == 0.0 ? 2.4 : 1.0);
+      if (level != 0.0) pen.setStyle(Qt::DashLine);
+      p.setPen(pen);
+      for (int row = 0; row + 1 < n; ++row) {
+        for (int c = 0; c + 1 < n; ++c) {
+          const double v[4] = {at(row, c) - level, at(row, c + 1) - level,
+                               at(row + 1, c + 1) - level, at(row + 1, c) - level};
+          const QPointF corner[4] = {point(c, row), point(c + 1, row), point(c + 1, row + 1),
+                                     point(c, row + 1)};
+          QPointF cut[4];
+          int cuts = 0;
+          for (int e = 0; e < 4; ++e) {
+            const double a = v[e], b = v[(e + 1) % 4];
+            if ((a > 0) == (b > 0)) continue;
+            const double t = a / (a - b);
+            cut[cuts++] = corner[e] + t * (corner[(e + 1) % 4] - corner[e]);
           }
-        }
-        if (row + 1 < n) {
-          const double g = grid_->values((row + 1) * n + c);
-          if ((f > 0) != (g > 0)) {
-            const double t = f / (f - g);
-            const QPointF a(r.left() + c * cw, r.bottom() - (row + t) * ch);
-            p.drawPoint(a);
-          }
+          if (cuts >= 2) p.drawLine(cut[0], cut[1]);
+          if (cuts == 4) p.drawLine(cut[2], cut[3]);
         }
       }
     }
@@ -144,73 +186,143 @@ void DecisionMap::paintEvent(QPaintEvent*) {
   p.setPen(palette().color(QPalette::Mid));
   p.setBrush(Qt::NoBrush);
   p.drawRect(r);
-  // Axis labels: feature names and the ends of each range.
   p.setPen(palette().color(QPalette::Text));
   const auto name = [&](int f) {
     return f < static_cast<int>(d.feature_names.size()) ? QString::fromStdString(d.feature_names[f])
                                                         : tr("feature %1").arg(f);
   };
   const double fh = fontMetrics().height();
-  p.drawText(QRectF(r.left(), r.bottom() + 2, r.width(), fh), Qt::AlignHCenter, name(0));
-  p.drawText(QRectF(r.left(), r.bottom() + 2, r.width(), fh), Qt::AlignLeft,
-             number_text(x_low_, 2));
-  p.drawText(QRectF(r.left(), r.bottom() + 2, r.width(), fh), Qt::AlignRight,
-             number_text(x_high_, 2));
-  if (d.feature_count() >= 2) {
-    p.save();
-    p.translate(r.left() - 4, r.bottom());
-    p.rotate(-90);
-    p.drawText(QRectF(0, -fh, r.height(), fh), Qt::AlignHCenter, name(1));
-    p.drawText(QRectF(0, -fh, r.height(), fh), Qt::AlignLeft, number_text(y_low_, 2));
-    p.drawText(QRectF(0, -fh, r.height(), fh), Qt::AlignRight, number_text(y_high_, 2));
-    p.restore();
-  }
-  const int fy = d.feature_count() >= 2 ? 1 : 0;
-  // Training points: filled circles (class +1) and squares (class -1).
-  for (int i = 0; i < d.train_count(); ++i) {
-    const QPointF s = to_screen(d.train(i, 0), d.train(i, fy));
-    const QColor col = class_colour(d.train_labels(i));
-    p.setPen(QPen(col.darker(150), 1));
-    p.setBrush(col);
-    if (d.train_labels(i) > 0)
-      p.drawEllipse(s, 4.5, 4.5);
-    else
-      p.drawRect(QRectF(s.x() - 4, s.y() - 4, 8, 8));
-  }
-  // Test points: diamonds, outline by true class, fill by flip probability.
-  const double worst = 0.5;  // a flip probability of 1/2 is a coin toss
+  const QRectF below(r.left(), r.bottom() + 2, r.width(), fh);
+  p.drawText(below, Qt::AlignHCenter, name(0));
+  p.drawText(below, Qt::AlignLeft, number_text(x_low_, 2));
+  p.drawText(below, Qt::AlignRight, number_text(x_high_, 2));
+  p.save();
+  p.translate(r.left() - 4, r.bottom());
+  p.rotate(-90);
+  p.drawText(QRectF(0, -fh, r.height(), fh), Qt::AlignHCenter, name(1));
+  p.drawText(QRectF(0, -fh, r.height(), fh), Qt::AlignLeft, number_text(y_low_, 2));
+  p.drawText(QRectF(0, -fh, r.height(), fh), Qt::AlignRight, number_text(y_high_, 2));
+  p.restore();
+  for (int i = 0; i < d.train_count(); ++i)
+    draw_train_marker(p, to_screen(d.train(i, 0), d.train(i, 1)), d.train_labels(i));
   for (int i = 0; i < d.test_count(); ++i) {
-    const QPointF s = to_screen(d.test(i, 0), d.test(i, fy));
-    QPainterPath diamond;
-    diamond.moveTo(s + QPointF(0, -7));
-    diamond.lineTo(s + QPointF(7, 0));
-    diamond.lineTo(s + QPointF(0, 7));
-    diamond.lineTo(s + QPointF(-7, 0));
-    diamond.closeSubpath();
-    QColor fill = palette().color(QPalette::Base);
-    if (check_ && static_cast<std::size_t>(i) < check_->trials.points.size())
-      fill =
-          heat_colour(1.0 - std::min(1.0, check_->trials.points[i].flip_probability.value / worst));
-    p.setPen(QPen(class_colour(d.test_labels(i)).darker(130), 2.0));
-    p.setBrush(fill);
-    p.drawPath(diamond);
+    const QPointF s = to_screen(d.test(i, 0), d.test(i, 1));
+    test_screen_.push_back(s);
+    draw_test_marker(p, s, d.test_labels(i), flip_fill(i));
   }
+}
+
+QColor DecisionMap::flip_fill(int test_index) const {
+  const double worst = 0.5;  // a flip probability of 1/2 is a coin toss
+  if (check_ && static_cast<std::size_t>(test_index) < check_->trials.points.size())
+    return heat_colour(std::min(
+        1.0, check_->trials.points[static_cast<std::size_t>(test_index)].flip_probability.value /
+                 worst));
+  return palette().color(QPalette::Base);
+}
+
+void DecisionMap::paint_decision_values(QPainter& p) {
+  // Any number of features: each point at its noiseless decision value f, one lane per class
+  // and set. The boundary is f = 0 and the margin |f| = 1 whatever the dimension.
+  const DataSet& d = campaign_.data;
+  const QRectF r = plot_rect();
+  const double fh = fontMetrics().height();
+  if (!check_ || check_->ideal.decision_train.size() != d.train_count()) {
+    p.setPen(palette().color(QPalette::Text));
+    p.drawText(r, Qt::AlignCenter | Qt::TextWordWrap,
+               tr("With %n feature(s) the boundary is not a line in a plane. Each point will be "
+                  "placed at its decision value once the margin check is done.",
+                  nullptr, d.feature_count()));
+    return;
+  }
+  const Eigen::VectorXd& f_train = check_->ideal.decision_train;
+  const Eigen::VectorXd& f_test = check_->decision_test;
+  double lo = -1.5, hi = 1.5;
+  for (Eigen::Index i = 0; i < f_train.size(); ++i) {
+    lo = std::min(lo, f_train(i));
+    hi = std::max(hi, f_train(i));
+  }
+  for (Eigen::Index i = 0; i < f_test.size(); ++i) {
+    double sd = 0.0;
+    if (static_cast<std::size_t>(i) < check_->trials.points.size())
+      sd = check_->trials.points[static_cast<std::size_t>(i)].decision_sd;
+    lo = std::min(lo, f_test(i) - 2 * sd);
+    hi = std::max(hi, f_test(i) + 2 * sd);
+  }
+  const double pad = 0.05 * (hi - lo);
+  lo -= pad;
+  hi += pad;
+  const QRectF plot = r.adjusted(fh * 5.5, 0, 0, 0);
+  const auto x_of = [&](double f) { return plot.left() + (f - lo) / (hi - lo) * plot.width(); };
+  // Four lanes: training +1, test +1, test -1, training -1.
+  const double lane = plot.height() / 4.0;
+  const auto lane_y = [&](int k, int i, int count) {
+    // Spread the points of a lane over its height so equal values stay apart.
+    const double t = count > 1 ? double(i % 7) / 6.0 : 0.5;
+    return plot.top() + lane * k + lane * (0.2 + 0.6 * t);
+  };
+  p.setPen(palette().color(QPalette::Mid));
+  for (int k = 1; k < 4; ++k)
+    p.drawLine(QPointF(plot.left(), plot.top() + k * lane),
+               QPointF(plot.right(), plot.top() + k * lane));
+  p.drawRect(plot);
+  const auto class_name = [&](int label) {
+    return QString::fromStdString(label > 0 ? d.positive_name : d.negative_name);
+  };
+  p.setPen(palette().color(QPalette::Text));
+  const QString lanes[4] = {tr("%1, training").arg(class_name(1)),
+                            tr("%1, test").arg(class_name(1)), tr("%1, test").arg(class_name(-1)),
+                            tr("%1, training").arg(class_name(-1))};
+  for (int k = 0; k < 4; ++k)
+    p.drawText(QRectF(0, plot.top() + k * lane, plot.left() - 6, lane),
+               Qt::AlignRight | Qt::AlignVCenter | Qt::TextWordWrap, lanes[k]);
+  // The boundary and the margin.
+  p.setPen(QPen(palette().color(QPalette::Text), 2.4));
+  p.drawLine(QPointF(x_of(0), plot.top()), QPointF(x_of(0), plot.bottom()));
+  QPen dash(palette().color(QPalette::Text), 1.0, Qt::DashLine);
+  p.setPen(dash);
+  for (double m : {-1.0, 1.0})
+    p.drawLine(QPointF(x_of(m), plot.top()), QPointF(x_of(m), plot.bottom()));
+  for (int i = 0; i < d.train_count(); ++i) {
+    const int label = d.train_labels(i);
+    draw_train_marker(p, QPointF(x_of(f_train(i)), lane_y(label > 0 ? 0 : 3, i, d.train_count())),
+                      label);
+  }
+  for (int i = 0; i < d.test_count() && i < f_test.size(); ++i) {
+    const int label = d.test_labels(i);
+    const QPointF s(x_of(f_test(i)), lane_y(label > 0 ? 1 : 2, i, d.test_count()));
+    if (static_cast<std::size_t>(i) < check_->trials.points.size()) {
+      const double sd = check_->trials.points[static_cast<std::size_t>(i)].decision_sd;
+      p.setPen(QPen(class_colour(label), 1.2));
+      p.drawLine(QPointF(x_of(f_test(i) - 2 * sd), s.y()),
+                 QPointF(x_of(f_test(i) + 2 * sd), s.y()));
+    }
+    test_screen_.push_back(s);
+    draw_test_marker(p, s, label, flip_fill(i));
+  }
+  p.setPen(palette().color(QPalette::Text));
+  const QRectF axis(plot.left(), plot.bottom() + 2, plot.width(), fh);
+  p.drawText(axis, Qt::AlignLeft, number_text(lo, 1));
+  p.drawText(axis, Qt::AlignRight, number_text(hi, 1));
+  p.drawText(QRectF(x_of(0) - 40, plot.bottom() + 2, 80, fh), Qt::AlignHCenter,
+             QStringLiteral("0"));
+  p.drawText(QRectF(0, plot.bottom() + fh + 2, width(), fh), Qt::AlignHCenter,
+             tr("noiseless decision value f"));
 }
 
 void DecisionMap::mouseMoveEvent(QMouseEvent* event) {
   const DataSet& d = campaign_.data;
   const QPointF pos = event->position();
-  const int fy = d.feature_count() >= 2 ? 1 : 0;
-  for (int i = 0; i < d.test_count(); ++i) {
-    const QPointF s = to_screen(d.test(i, 0), d.test(i, fy));
-    if (QLineF(s, pos).length() > 8) continue;
+  for (std::size_t k = 0; k < test_screen_.size(); ++k) {
+    const int i = static_cast<int>(k);
+    if (QLineF(test_screen_[k], pos).length() > 8) continue;
     QString text =
         tr("<b>Test point %1</b> (point %2), class %3")
             .arg(i)
             .arg(d.train_count() + i)
             .arg(QString::fromStdString(d.test_labels(i) > 0 ? d.positive_name : d.negative_name));
-    if (check_ && static_cast<std::size_t>(i) < check_->trials.points.size()) {
-      const TestPointOutcome& o = check_->trials.points[i];
+    if (check_ && k < check_->trials.points.size()) {
+      const TestPointOutcome& o = check_->trials.points[k];
       text += tr("<br>noiseless f = %1<br>flip probability %2 (%3 – %4)")
                   .arg(number_text(o.decision_ideal, 3))
                   .arg(percent(o.flip_probability.value, 2))
@@ -244,13 +356,11 @@ MarginView::MarginView(QWidget* parent) : QWidget(parent) {
   allocations_->setMaximumHeight(fontMetrics().height() * 9);
   ratio_view_ = new RatioHistogram;
 
-  auto* legend =
-      new QLabel(tr("Circles and squares: training points of each class. Diamonds: "
-                    "test points, outlined by class, filled pale when they keep their "
-                    "side and dark when noise flips them. The line is the noiseless "
-                    "decision boundary."));
-  legend->setWordWrap(true);
-  legend->setForegroundRole(QPalette::PlaceholderText);
+  legend_ = new QLabel;
+  legend_->setWordWrap(true);
+  legend_->setTextFormat(Qt::RichText);
+  legend_->setAccessibleName(tr("Legend of the margin plot"));
+  auto* legend = legend_;
   auto* left = new QWidget;
   auto* ll = new QVBoxLayout(left);
   ll->setContentsMargins(0, 0, 0, 0);
@@ -282,14 +392,41 @@ MarginView::MarginView(QWidget* parent) : QWidget(parent) {
   set_status(tr("The margin check runs after each plan."));
 }
 
+void MarginView::update_legend() {
+  const DataSet& d = campaign_.data;
+  const auto swatch = [](int label, const QString& shape) {
+    return QStringLiteral("<span style=\"color:%1\">%2</span>")
+        .arg(gramline_colour::class_colour(label).name(), shape);
+  };
+  const QString pos = QString::fromStdString(d.positive_name).toHtmlEscaped();
+  const QString neg = QString::fromStdString(d.negative_name).toHtmlEscaped();
+  QString text = tr("%1 %2 and %3 %4: training points of each class. %5 Test points, outlined "
+                    "by their class, filled pale when they keep their side and dark when noise "
+                    "flips them.")
+                     .arg(swatch(1, QStringLiteral("▲")), pos, swatch(-1, QStringLiteral("▼")), neg,
+                          QStringLiteral("◇"));
+  if (d.feature_count() == 2)
+    text += QLatin1Char(' ') + tr("Solid line: the noiseless decision boundary f = 0; dashed: "
+                                  "the margin f = ±1; the faint wash shows each class's side.");
+  else
+    text += QLatin1Char(' ') +
+            tr("With %n feature(s) no plane shows the boundary honestly: every point sits at its "
+               "noiseless decision value f, the boundary is f = 0 (solid) and the margin f = ±1 "
+               "(dashed); bars on test points span ± 2 noise sd of f.",
+               nullptr, d.feature_count());
+  legend_->setText(text);
+}
+
 void MarginView::set_campaign(const Campaign& campaign) {
   campaign_ = campaign;
+  update_legend();
   if (!check_) map_->set_content(campaign_, nullptr, nullptr);
 }
 
 void MarginView::set_plan(std::shared_ptr<const Plan> plan, const Campaign& campaign) {
   plan_ = std::move(plan);
   campaign_ = campaign;
+  update_legend();
   check_.reset();
   map_->set_content(campaign_, nullptr, nullptr);
   figures_->clear();
@@ -313,10 +450,11 @@ void MarginView::set_check(std::shared_ptr<const MarginCheck> check,
   const TrialSummary& t = m.trials;
   QString verdict = m.verdict.pass ? tr("<h3>Pass: the measured kernel keeps every decision.</h3>")
                                    : tr("<h3>Fail: noise would change decisions.</h3>");
-  if (!m.verdict.reasons.empty()) {
+  const QStringList reasons = reason_texts(m);
+  if (!reasons.isEmpty()) {
     verdict += QStringLiteral("<ul>");
-    for (const std::string& r : m.verdict.reasons)
-      verdict += QStringLiteral("<li>%1</li>").arg(QString::fromStdString(r).toHtmlEscaped());
+    for (const QString& r : reasons)
+      verdict += QStringLiteral("<li>%1</li>").arg(r.toHtmlEscaped());
     verdict += QStringLiteral("</ul>");
   }
   verdict_->setText(verdict);
@@ -369,6 +507,39 @@ void MarginView::set_check(std::shared_ptr<const MarginCheck> check,
   ratio_view_->set_values(t.margin_ratio, campaign_.check.margin_ratio_threshold);
 }
 
+QStringList MarginView::reason_texts(const MarginCheck& m) const {
+  // The engine's judge() decides; the words and numbers are the user's language and locale.
+  QStringList out;
+  const CheckSettings& c = campaign_.check;
+  const int train = campaign_.data.train_count();
+  for (const TestPointOutcome& o : m.trials.points) {
+    if (o.flip_probability.value <= c.flip_threshold) continue;
+    QString why = tr("test point %1 (point %2): the label flips in %3 of runs (%4 – %5), above "
+                     "%6; noiseless f = %7, noise sd of f = %8")
+                      .arg(o.test_index)
+                      .arg(train + o.test_index)
+                      .arg(percent(o.flip_probability.value, 2))
+                      .arg(percent(o.flip_probability.low, 2))
+                      .arg(percent(o.flip_probability.high, 2))
+                      .arg(percent(c.flip_threshold, 2))
+                      .arg(number_text(o.decision_ideal, 4))
+                      .arg(number_text(o.decision_sd, 4));
+    if (o.decision_sd > 0)
+      why += tr(" (%1 sd from the boundary)")
+                 .arg(number_text(std::abs(o.decision_ideal) / o.decision_sd, 2));
+    out << why;
+  }
+  if (m.trials.margin_ratio_median.value < c.margin_ratio_threshold) {
+    out << tr("median margin ratio %1 is below %2: the measured Gram matrix shrinks the margin")
+               .arg(number_text(m.trials.margin_ratio_median.value, 3))
+               .arg(number_text(c.margin_ratio_threshold, 2));
+  }
+  // Anything else the engine found (a reason added there later) in its own words.
+  if (out.isEmpty() && !m.verdict.reasons.empty())
+    for (const std::string& r : m.verdict.reasons) out << QString::fromStdString(r);
+  return out;
+}
+
 RatioHistogram::RatioHistogram(QWidget* parent) : QWidget(parent) {
   setMinimumHeight(200);
   setAccessibleName(tr("Distribution of the margin ratio"));
@@ -389,9 +560,14 @@ void RatioHistogram::paintEvent(QPaintEvent*) {
   QFont bold = font();
   bold.setBold(true);
   p.setFont(bold);
-  p.drawText(QRectF(0, 2, width(), fh + 2), Qt::AlignHCenter,
-             tr("Margin ratio per simulated run (noisy margin ÷ noiseless)"));
+  // The title may wrap (long in some languages): the plot starts below it.
+  const QString title = tr("Margin ratio per simulated run (noisy margin ÷ noiseless)");
+  const QRectF title_box = QFontMetricsF(bold).boundingRect(
+      QRectF(4, 2, width() - 8, 4 * fh), Qt::AlignHCenter | Qt::TextWordWrap, title);
+  p.drawText(QRectF(4, 2, width() - 8, title_box.height() + 2), Qt::AlignHCenter | Qt::TextWordWrap,
+             title);
   p.setFont(font());
+  const double title_h = title_box.height() + 4;
   if (ratios_.empty()) {
     p.drawText(rect(), Qt::AlignCenter, tr("No runs yet"));
     return;
@@ -404,11 +580,11 @@ void RatioHistogram::paintEvent(QPaintEvent*) {
   for (double x : ratios_)
     counts[static_cast<std::size_t>(std::clamp(int((x - lo) / (hi - lo) * bins), 0, bins - 1))]++;
   const int top = *std::max_element(counts.begin(), counts.end());
-  const QRectF plot = QRectF(rect()).adjusted(fh * 2.5, fh * 1.8, -fh, -fh * 2.6);
+  const QRectF plot = QRectF(rect()).adjusted(fh * 2.5, title_h + fh * 0.6, -fh, -fh * 2.6);
   const double bw = plot.width() / bins;
   for (int b = 0; b < bins; ++b) {
     const double centre = lo + (b + 0.5) * (hi - lo) / bins;
-    const QColor c = centre < threshold_ ? work_colour::moving() : work_colour::counting();
+    const QColor c = centre < threshold_ ? gramline_colour::alert() : gramline_colour::pass();
     const double h = top > 0 ? plot.height() * counts[b] / top : 0.0;
     p.fillRect(QRectF(plot.left() + b * bw + 1, plot.bottom() - h, bw - 2, h), c);
   }

@@ -29,6 +29,23 @@ QString language_key(UiLanguage language) {
   return QStringLiteral("system");
 }
 
+/// English plural forms for texts written with Qt's %n: "%n night(s)" reads "1 night" and
+/// "8 nights". Other languages get their forms from their translation file.
+class EnglishPlurals : public QTranslator {
+ public:
+  using QTranslator::QTranslator;
+  bool isEmpty() const override { return false; }
+  QString translate(const char* context, const char* source, const char* disambiguation,
+                    int n) const override {
+    Q_UNUSED(context);
+    Q_UNUSED(disambiguation);
+    if (n < 0 || !source) return {};
+    QString text = QString::fromUtf8(source);
+    if (!text.contains(QLatin1String("(s)"))) return {};
+    return text.replace(QLatin1String("(s)"), n == 1 ? QString() : QStringLiteral("s"));
+  }
+};
+
 }  // namespace
 
 UiLanguage saved_language(const QSettings& settings) {
@@ -55,8 +72,12 @@ QLocale ui_locale(UiLanguage language, const QLocale& system_locale) {
 }
 
 bool install_translators(QCoreApplication* app, const QLocale& locale) {
-  // English is the source language: loading nothing keeps every text as written.
-  if (locale.language() == QLocale::English || locale.language() == QLocale::C) return false;
+  // English is the source language: only its plural forms need a translator.
+  if (locale.language() == QLocale::English || locale.language() == QLocale::C) {
+    static EnglishPlurals plurals;  // no file behind it: nothing to load, nothing to own
+    QCoreApplication::installTranslator(&plurals);
+    return false;
+  }
   auto* own = new QTranslator(app);
   // qt_add_translations embeds gramline_<lang>.qm under :/i18n.
   const bool found =

@@ -86,6 +86,8 @@ RigPage::RigPage(CampaignDocument* campaign_document, QWidget* parent)
                                 QAbstractItemView::EditKeyPressed |
                                 QAbstractItemView::AnyKeyPressed);
   motors_view_->verticalHeader()->setVisible(false);
+  // Units on a second header line keep the ten columns narrow enough for the editor's width.
+  motors_view_->horizontalHeader()->setDefaultAlignment(Qt::AlignCenter);
   motors_view_->setMinimumHeight(fontMetrics().height() * 12);
   ml->addWidget(motors_view_);
   auto* motor_hint = new QLabel(tr("Double-click a cell to edit it."));

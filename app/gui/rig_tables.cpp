@@ -156,8 +156,8 @@ QVariant MotorsModel::data(const QModelIndex& index, int role) const {
       return QString::fromStdString(m.name);
     case kPhoton:
       return m.photon;
-    case kStage:
-      return stage_text(m.stage);
+    case kStage:  // short words keep the table within the editor's width
+      return m.stage == Stage::prep ? tr("prep.") : tr("analysis");
     case kPlate:
       return plate_text(m.plate);
     case kSpeed:
@@ -167,7 +167,7 @@ QVariant MotorsModel::data(const QModelIndex& index, int role) const {
     case kRange:
       return range_text(m.range);
     case kBacklash:
-      return backlash_text(m.backlash);
+      return m.backlash == Backlash::shortest ? tr("shortest") : tr("from below");
     case kOvershoot:
       return m.backlash == Backlash::from_below ? number_text(m.overshoot_deg, 2)
                                                 : QStringLiteral("–");
@@ -277,23 +277,23 @@ QVariant MotorsModel::headerData(int section, Qt::Orientation orientation, int r
     case kPlate:
       return tr("Plate");
     case kSpeed:
-      return tr("Speed (°/s)");
+      return tr("Speed\n°/s");
     case kAccel:
-      return tr("Accel. (°/s²)");
+      return tr("Accel.\n°/s²");
     case kRange:
-      return tr("Range (°)");
+      return tr("Range\n°");
     case kBacklash:
       return tr("Approach");
     case kOvershoot:
-      return tr("Overshoot (°)");
+      return tr("Over-\nshoot °");
     case kInitial:
-      return tr("Initial (°)");
+      return tr("Initial\n°");
     case kRetardanceError:
-      return tr("Ret. error (°)");
+      return tr("Ret. err.\n°");
     case kAxisOffsetSd:
-      return tr("Zero sd (°)");
+      return tr("Zero sd\n°");
     case kRepeatabilitySd:
-      return tr("Repeat sd (°)");
+      return tr("Repeat sd\n°");
     default:
       return {};
   }

@@ -24,7 +24,7 @@ void take_screenshots(MainWindow& window, const QString& dir,
     const QStringList names = {QStringLiteral("summary"),  QStringLiteral("steps"),
                                QStringLiteral("timeline"), QStringLiteral("gram-error"),
                                QStringLiteral("margin"),   QStringLiteral("measured"),
-                               QStringLiteral("cautions")};
+                               QStringLiteral("compare"),  QStringLiteral("cautions")};
     const auto save = [&](const QString& name) {
       QApplication::processEvents();
       ok = w->grab().save(dir + QLatin1Char('/') + name + QStringLiteral(".png")) && ok;

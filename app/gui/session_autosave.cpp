@@ -64,18 +64,22 @@ void SessionAutosave::remove() {
   QFile::remove(path() + QStringLiteral(".ini"));
 }
 
-void SessionAutosave::offer_recovery() {
+void SessionAutosave::offer_recovery(const QString& opening) {
   const QString dir = autosave_dir();
   const QStringList files =
       QDir(dir).entryList({QStringLiteral("session-*.json")}, QDir::Files, QDir::Time);
   for (const QString& name : files) {
     const QString path = dir + QLatin1Char('/') + name;
     if (path == this->path()) continue;
+    const QString original =
+        QSettings(path + QStringLiteral(".ini"), QSettings::IniFormat).value("original").toString();
+    // Another file's autosave is not offered while the user opens this one.
+    if (!opening.isEmpty() &&
+        QFileInfo(original).absoluteFilePath() != QFileInfo(opening).absoluteFilePath())
+      continue;
     QLockFile lock(path + QStringLiteral(".lock"));
     lock.setStaleLockTime(0);        // stale only when its process is gone
     if (!lock.tryLock(0)) continue;  // that session is still running
-    const QString original =
-        QSettings(path + QStringLiteral(".ini"), QSettings::IniFormat).value("original").toString();
     const auto answer = QMessageBox::question(
         window_, tr("Recover unsaved work?"),
         tr("Gramline found unsaved changes from a session that did not close properly (%1, "

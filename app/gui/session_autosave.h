@@ -28,8 +28,9 @@ class SessionAutosave : public QObject {
   /// Removes this session's autosave (after a save, on close).
   void remove();
   /// Looks for autosaves of sessions that ended without closing and offers to restore them;
-  /// the first one the user takes replaces the document.
-  void offer_recovery();
+  /// the first one the user takes replaces the document. With `opening` (the file the user
+  /// asked to open), only autosaves of that file are offered; the others wait for a later start.
+  void offer_recovery(const QString& opening = QString());
 
  private:
   QString path() const;

@@ -10,7 +10,9 @@
 #include <QVBoxLayout>
 #include <cmath>
 
+#include "chart_style.h"
 #include "figure_grid.h"
+#include "gramline/compare.h"
 #include "gui_text.h"
 
 namespace gramline::gui {
@@ -35,8 +37,11 @@ SummaryView::SummaryView(QWidget* parent) : QWidget(parent) {
   figures_->grid()->setVerticalSpacing(14);
 
   figures_->add("nights", tr("Nights"), tr("Nights the plan needs, out of the nights allowed"));
-  figures_->add("total", tr("Total time"),
-                tr("From the start of night 1 to the end of the last step"));
+  figures_->add("total", tr("Calendar span"),
+                tr("From the start of night 1 to the end of the last step, days between the "
+                   "nights included"));
+  figures_->add("busy", tr("Busy time"),
+                tr("Time the rig works: moving, counting and reference steps, over all nights"));
   figures_->add("settings", tr("Settings to measure"),
                 tr("Kernel entries measured (training pairs and test × training)"));
   figures_->add("motor_share", tr("Motor share"), tr("Share of the busy time spent moving plates"));
@@ -98,24 +103,25 @@ void SummaryView::set_plan(std::shared_ptr<const Plan> plan, const Campaign& cam
   };
   const int allowed = campaign.nights.max_nights;
   if (s.fits) {
-    const QString end = clock_text(campaign.nights, s.total_s);
-    verdict_->setText(
-        s.nights == 1 ? tr("Fits in one night (of %1 allowed), done by %2.").arg(allowed).arg(end)
-                      : tr("Fits in %1 nights (of %2 allowed), done by %3.")
-                            .arg(s.nights)
-                            .arg(allowed)
-                            .arg(end));
+    const QString end = end_text(campaign.nights, s.total_s);
+    verdict_->setText(tr("Fits in %n night(s) (of %1 allowed), done by %2.", nullptr, s.nights)
+                          .arg(allowed)
+                          .arg(end));
   } else {
-    verdict_->setText(tr("Does not fit in %1 nights: more nights, fewer pairs or a looser "
-                         "precision are needed.")
-                          .arg(allowed));
+    verdict_->setText(
+        tr("Does not fit in %n night(s): more nights, fewer pairs or a looser "
+           "precision are needed.",
+           nullptr, allowed));
   }
   set("nights", tr("%1 of %2").arg(s.nights).arg(allowed));
-  set("total", duration_text(s.total_s), tr("ends %1").arg(clock_text(campaign.nights, s.total_s)));
+  set("total", duration_text(s.total_s),
+      tr("calendar time from the first night's start; ends %1")
+          .arg(end_text(campaign.nights, s.total_s)));
   set("settings", count_text(static_cast<double>(s.settings)),
       tr("%1 steps in all").arg(count_text(static_cast<double>(s.steps))));
-  double busy_s = 0.0;
-  for (const NightUse& n : s.night_use) busy_s += n.busy_s;
+  const double busy_s = busy_time_s(s);
+  set("busy", duration_text(busy_s),
+      tr("%n night(s) at work", nullptr, static_cast<int>(s.night_use.size())));
   set("motor_share",
       busy_s > 0 ? tr("%1 %").arg(number_text(100.0 * s.move_s / busy_s, 1)) : QStringLiteral("–"),
       tr("%1 moving of %2 busy").arg(duration_text(s.move_s), duration_text(busy_s)));
@@ -164,9 +170,9 @@ void SummaryView::set_plan(std::shared_ptr<const Plan> plan, const Campaign& cam
 
 void SummaryView::set_margin_verdict(const QString& text, bool pass) {
   margin_verdict_->setText(text.isEmpty() ? tr("Margin check: not computed yet.") : text);
-  // Pass in the pine of the counting bars, anything else in plain text colour.
+  // A pass in the palette's pass colour (docs/palette.md), anything else in plain text colour.
   QPalette p = palette();
-  if (pass) p.setColor(QPalette::WindowText, QColor(0x2a, 0x7f, 0x62));
+  if (pass) p.setColor(QPalette::WindowText, readable_on(gramline_colour::pass(), p));
   margin_verdict_->setPalette(p);
   QFont f = margin_verdict_->font();
   f.setBold(pass);

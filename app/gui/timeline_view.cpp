@@ -1,19 +1,21 @@
 #include "timeline_view.h"
 
-#include <QBarCategoryAxis>
-#include <QBarSet>
 #include <QChart>
 #include <QChartView>
 #include <QComboBox>
 #include <QHBoxLayout>
-#include <QHorizontalStackedBarSeries>
 #include <QLabel>
 #include <QLineSeries>
 #include <QLogValueAxis>
+#include <QMouseEvent>
+#include <QPainter>
+#include <QScrollArea>
 #include <QSplitter>
+#include <QToolTip>
 #include <QVBoxLayout>
 #include <QValueAxis>
 #include <algorithm>
+#include <array>
 #include <cmath>
 
 #include "chart_style.h"
@@ -60,10 +62,293 @@ std::vector<NightBreakdown> night_breakdown(const Plan& plan, const NightWindow&
   return out;
 }
 
+namespace {
+
+enum Category { kMoving, kCounting, kReference, kDark, kPark, kCategories };
+
+QColor category_colour(int c) {
+  switch (c) {
+    case kMoving:
+      return work_colour::moving();
+    case kCounting:
+      return work_colour::counting();
+    case kReference:
+      return work_colour::reference();
+    case kDark:
+      return work_colour::dark();
+    default:
+      return work_colour::park();
+  }
+}
+
+QString category_text(int c) {
+  switch (c) {
+    case kMoving:
+      return TimelineView::tr("moving");
+    case kCounting:
+      return TimelineView::tr("counting");
+    case kReference:
+      return TimelineView::tr("references");
+    case kDark:
+      return TimelineView::tr("dark");
+    case kPark:
+      return TimelineView::tr("park");
+    default:
+      return TimelineView::tr("unused window");
+  }
+}
+
+int dwell_category(StepKind kind) {
+  switch (kind) {
+    case StepKind::measure:
+      return kCounting;
+    case StepKind::reference:
+      return kReference;
+    case StepKind::dark:
+      return kDark;
+    case StepKind::park:
+      return kPark;
+  }
+  return kCounting;
+}
+
+}  // namespace
+
+NightStrips::NightStrips(QWidget* parent) : QWidget(parent) {
+  setMouseTracking(true);
+  setAccessibleName(tr("Each night as it runs"));
+  setSizePolicy(QSizePolicy::Expanding, QSizePolicy::Preferred);
+}
+
+int NightStrips::row_height() const { return fontMetrics().height() * 2; }
+
+int NightStrips::label_width() const {
+  int w = 0;
+  for (int n = 1; n <= night_count_; ++n) {
+    const QString date = QLocale().toString(step_clock(nights_, (n - 1) * 86400.0).date(),
+                                            QStringLiteral("ddd d MMM"));
+    w = std::max({w, fontMetrics().horizontalAdvance(tr("Night %1").arg(n)),
+                  fontMetrics().horizontalAdvance(date)});
+  }
+  return w + 12;
+}
+
+QSize NightStrips::sizeHint() const {
+  const int fh = fontMetrics().height();
+  return {600, fh * 3 + row_height() * std::max(1, night_count_) + fh * 4};
+}
+
+QSize NightStrips::minimumSizeHint() const { return {300, sizeHint().height()}; }
+
+QRect NightStrips::strips_rect() const {
+  const int fh = fontMetrics().height();
+  const int right_w =
+      fontMetrics().horizontalAdvance(tr("%1 % busy").arg(number_text(100, 0))) + 12;
+  return QRect(label_width(), fh * 2, std::max(10, width() - label_width() - right_w - 4),
+               row_height() * night_count_);
+}
+
+void NightStrips::set_plan(std::shared_ptr<const Plan> plan, const NightWindow& nights) {
+  plan_ = std::move(plan);
+  nights_ = nights;
+  night_count_ = plan_ ? plan_->summary.nights : 0;
+  if (plan_)
+    for (const Step& s : plan_->steps) night_count_ = std::max(night_count_, s.night);
+  breakdown_ = plan_ ? night_breakdown(*plan_, nights_) : std::vector<NightBreakdown>{};
+  binned_width_ = -1;
+  updateGeometry();
+  update();
+}
+
+void NightStrips::bin(int width) {
+  binned_width_ = width;
+  pixels_.assign(static_cast<std::size_t>(night_count_), std::vector<signed char>());
+  if (!plan_ || width <= 0) return;
+  const double window_s = std::max(1.0, nights_.length_s());
+  const double px_s = window_s / width;
+  // Seconds of each category under each pixel; the pixel shows the category with most.
+  std::vector<std::vector<std::array<double, kCategories>>> seconds(
+      static_cast<std::size_t>(night_count_),
+      std::vector<std::array<double, kCategories>>(static_cast<std::size_t>(width)));
+  const auto add = [&](int night, double from_s, double to_s, int category) {
+    auto& row = seconds[static_cast<std::size_t>(night - 1)];
+    from_s = std::max(0.0, from_s);
+    to_s = std::min(window_s, to_s);
+    while (from_s < to_s) {
+      const int px = std::min(width - 1, static_cast<int>(from_s / px_s));
+      const double end = std::min(to_s, (px + 1) * px_s);
+      row[static_cast<std::size_t>(px)][static_cast<std::size_t>(category)] += end - from_s;
+      if (end <= from_s) break;
+      from_s = end;
+    }
+  };
+  for (const Step& s : plan_->steps) {
+    if (s.night < 1 || s.night > night_count_) continue;
+    const double t0 = s.start_s - (s.night - 1) * 86400.0;  // seconds after the window opens
+    add(s.night, t0, t0 + s.move_s, kMoving);
+    add(s.night, t0 + s.move_s, t0 + s.move_s + s.dwell_s, dwell_category(s.kind));
+  }
+  for (int n = 0; n < night_count_; ++n) {
+    auto& out = pixels_[static_cast<std::size_t>(n)];
+    out.assign(static_cast<std::size_t>(width), -1);
+    for (int x = 0; x < width; ++x) {
+      const auto& cell = seconds[static_cast<std::size_t>(n)][static_cast<std::size_t>(x)];
+      double total = 0.0, best = 0.0;
+      int which = -1;
+      for (int c = 0; c < kCategories; ++c) {
+        total += cell[static_cast<std::size_t>(c)];
+        if (cell[static_cast<std::size_t>(c)] > best) {
+          best = cell[static_cast<std::size_t>(c)];
+          which = c;
+        }
+      }
+      // A pixel mostly idle stays empty.
+      if (total >= 0.5 * px_s) out[static_cast<std::size_t>(x)] = static_cast<signed char>(which);
+    }
+  }
+}
+
+int NightStrips::kind_at(const QPoint& pos) const {
+  const QRect r = strips_rect();
+  if (!r.contains(pos) || binned_width_ != r.width()) return -1;
+  const int n = (pos.y() - r.top()) / row_height();
+  const int y_in = (pos.y() - r.top()) % row_height();
+  if (n < 0 || n >= night_count_ || y_in < row_height() / 5 || y_in > row_height() * 4 / 5)
+    return -1;
+  const int c = pixels_[static_cast<std::size_t>(n)][static_cast<std::size_t>(pos.x() - r.left())];
+  return c < 0 ? kCategories : c;
+}
+
+void NightStrips::paintEvent(QPaintEvent*) {
+  QPainter p(this);
+  p.fillRect(rect(), palette().color(QPalette::Base));
+  const QColor text = palette().color(QPalette::Text);
+  const int fh = fontMetrics().height();
+  QFont bold = font();
+  bold.setBold(true);
+  p.setFont(bold);
+  p.setPen(text);
+  p.drawText(QRect(0, 2, width(), fh + 2), Qt::AlignHCenter,
+             tr("Each night as it runs: every step at its time, coloured by what the rig does"));
+  p.setFont(font());
+  if (!plan_ || night_count_ == 0) return;
+  const QRect r = strips_rect();
+  if (binned_width_ != r.width()) bin(r.width());
+  const int rh = row_height();
+  QColor idle = text;
+  idle.setAlphaF(0.07);
+  // Hour grid with the clock time at each full hour.
+  const double window_s = std::max(1.0, nights_.length_s());
+  const double first_hour_s =
+      std::ceil(nights_.start_min / 60.0) * 3600.0 - nights_.start_min * 60.0;
+  QColor grid = text;
+  grid.setAlphaF(0.18);
+  const int label_every = r.width() / std::max(1.0, window_s / 3600.0) < fh * 3 ? 2 : 1;
+  int hour_index = 0;
+  for (double t = first_hour_s; t <= window_s + 1e-6; t += 3600.0, ++hour_index) {
+    const int x = r.left() + static_cast<int>(t / window_s * r.width());
+    p.setPen(grid);
+    p.drawLine(x, r.top(), x, r.bottom());
+    if (hour_index % label_every) continue;
+    p.setPen(text);
+    const int minutes = (nights_.start_min + static_cast<int>(std::lround(t / 60.0))) % 1440;
+    p.drawText(QRect(x - fh * 2, r.bottom() + 3, fh * 4, fh), Qt::AlignHCenter,
+               QStringLiteral("%1:%2")
+                   .arg(minutes / 60, 2, 10, QLatin1Char('0'))
+                   .arg(minutes % 60, 2, 10, QLatin1Char('0')));
+  }
+  for (int n = 0; n < night_count_; ++n) {
+    const int y = r.top() + n * rh;
+    const QRect bar(r.left(), y + rh / 5, r.width(), rh * 3 / 5);
+    p.fillRect(bar, idle);
+    const auto& row = pixels_[static_cast<std::size_t>(n)];
+    for (int x = 0; x < r.width();) {
+      const int c = row[static_cast<std::size_t>(x)];
+      int end = x + 1;
+      while (end < r.width() && row[static_cast<std::size_t>(end)] == c) ++end;
+      if (c >= 0)
+        p.fillRect(QRect(bar.left() + x, bar.top(), end - x, bar.height()), category_colour(c));
+      x = end;
+    }
+    p.setPen(text);
+    const QString date =
+        QLocale().toString(step_clock(nights_, n * 86400.0).date(), QStringLiteral("ddd d MMM"));
+    p.drawText(QRect(0, y, r.left() - 8, rh / 2 + 2), Qt::AlignRight | Qt::AlignBottom,
+               tr("Night %1").arg(n + 1));
+    QColor faint = text;
+    faint.setAlphaF(0.7);
+    p.setPen(faint);
+    p.drawText(QRect(0, y + rh / 2, r.left() - 8, rh / 2), Qt::AlignRight | Qt::AlignTop, date);
+    p.setPen(text);
+    if (static_cast<std::size_t>(n) < breakdown_.size()) {
+      const NightBreakdown& b = breakdown_[static_cast<std::size_t>(n)];
+      const double busy = b.window_s > 0 ? 1.0 - b.idle_s() / b.window_s : 0.0;
+      p.drawText(QRect(r.right() + 8, y, width() - r.right() - 8, rh),
+                 Qt::AlignLeft | Qt::AlignVCenter,
+                 tr("%1 % busy").arg(number_text(100.0 * busy, 0)));
+    }
+  }
+  // Legend: each kind with its share of the busy time over all nights.
+  double totals[kCategories] = {};
+  for (const NightBreakdown& b : breakdown_) {
+    totals[kMoving] += b.moving_s;
+    totals[kCounting] += b.counting_s;
+    totals[kReference] += b.reference_s;
+    totals[kDark] += b.dark_s;
+    totals[kPark] += b.park_s;
+  }
+  double busy_s = 0.0;
+  for (double t : totals) busy_s += t;
+  int x = r.left();
+  int y = r.bottom() + fh + 8;
+  for (int c = 0; c < kCategories; ++c) {
+    const QString label = tr("%1 %2 %")
+                              .arg(category_text(c))
+                              .arg(number_text(busy_s > 0 ? 100.0 * totals[c] / busy_s : 0.0, 1));
+    const int w = fh + 6 + fontMetrics().horizontalAdvance(label) + fh;
+    if (x + w > width() && x > r.left()) {
+      x = r.left();
+      y += fh + 4;
+    }
+    p.fillRect(QRect(x, y + 2, fh - 4, fh - 4), category_colour(c));
+    p.setPen(text);
+    p.drawText(QRect(x + fh, y, w, fh), Qt::AlignLeft | Qt::AlignVCenter, label);
+    x += w;
+  }
+  p.drawText(QRect(r.left(), y + fh + 2, r.width(), fh), Qt::AlignLeft,
+             tr("Shares of the busy time; the strips span the window from %1 to %2.")
+                 .arg(QStringLiteral("%1:%2")
+                          .arg(nights_.start_min / 60, 2, 10, QLatin1Char('0'))
+                          .arg(nights_.start_min % 60, 2, 10, QLatin1Char('0')),
+                      QStringLiteral("%1:%2")
+                          .arg((nights_.end_min / 60) % 24, 2, 10, QLatin1Char('0'))
+                          .arg(nights_.end_min % 60, 2, 10, QLatin1Char('0'))));
+}
+
+void NightStrips::mouseMoveEvent(QMouseEvent* event) {
+  const QPoint pos = event->position().toPoint();
+  const int c = kind_at(pos);
+  if (c < 0) {
+    QToolTip::hideText();
+    return;
+  }
+  const QRect r = strips_rect();
+  const int night = (pos.y() - r.top()) / row_height() + 1;
+  const double t = double(pos.x() - r.left()) / r.width() * nights_.length_s();
+  QToolTip::showText(event->globalPosition().toPoint(),
+                     tr("Night %1, %2: %3")
+                         .arg(night)
+                         .arg(clock_text(nights_, (night - 1) * 86400.0 + t))
+                         .arg(category_text(c)),
+                     this);
+}
+
 TimelineView::TimelineView(QWidget* parent) : QWidget(parent) {
-  nights_view_ = new QChartView;
-  nights_view_->setRenderHint(QPainter::Antialiasing);
-  nights_view_->setAccessibleName(tr("Time use per night"));
+  strips_ = new NightStrips;
+  strips_scroll_ = new QScrollArea;
+  strips_scroll_->setWidget(strips_);
+  strips_scroll_->setWidgetResizable(true);
+  strips_scroll_->setFrameShape(QFrame::NoFrame);
   progress_view_ = new QChartView;
   progress_view_->setRenderHint(QPainter::Antialiasing);
   progress_view_->setAccessibleName(tr("Gram matrix progress over the night"));
@@ -86,7 +371,7 @@ TimelineView::TimelineView(QWidget* parent) : QWidget(parent) {
   ll->addWidget(note_);
 
   auto* split = new QSplitter(Qt::Vertical);
-  split->addWidget(nights_view_);
+  split->addWidget(strips_scroll_);
   split->addWidget(lower);
   split->setStretchFactor(0, 2);
   split->setStretchFactor(1, 3);
@@ -132,68 +417,10 @@ void TimelineView::draw() {
 }
 
 void TimelineView::draw_nights() {
-  auto* chart = new QChart;
-  chart->setTitle(tr("Where each night's window goes (hours)"));
-  if (plan_) {
-    const auto nights = night_breakdown(*plan_, campaign_.nights);
-    auto* series = new QHorizontalStackedBarSeries;
-    struct Part {
-      QString name;
-      QColor colour;
-      double NightBreakdown::*field;
-    };
-    const Part parts[] = {
-        {tr("moving"), work_colour::moving(), &NightBreakdown::moving_s},
-        {tr("counting"), work_colour::counting(), &NightBreakdown::counting_s},
-        {tr("references"), work_colour::reference(), &NightBreakdown::reference_s},
-        {tr("dark"), work_colour::dark(), &NightBreakdown::dark_s},
-        {tr("park"), work_colour::park(), &NightBreakdown::park_s},
-    };
-    QStringList categories;
-    for (const NightBreakdown& n : nights) categories << tr("Night %1").arg(n.night);
-    for (const Part& p : parts) {
-      auto* set = new QBarSet(p.name);
-      set->setColor(p.colour);
-      set->setBorderColor(p.colour);
-      for (const NightBreakdown& n : nights) *set << n.*(p.field) / 3600.0;
-      series->append(set);
-    }
-    auto* idle = new QBarSet(tr("unused window"));
-    QColor idle_colour = palette().color(QPalette::Text);
-    idle_colour.setAlphaF(0.10);
-    idle->setColor(idle_colour);
-    idle->setBorderColor(palette().color(QPalette::Mid));
-    for (const NightBreakdown& n : nights) *idle << n.idle_s() / 3600.0;
-    series->append(idle);
-    series->setBarWidth(0.6);
-    chart->addSeries(series);
-    auto* axis_y = new QBarCategoryAxis;
-    // Night 1 on top reads like a calendar.
-    std::reverse(categories.begin(), categories.end());
-    axis_y->append(categories);
-    axis_y->setReverse(true);
-    axis_y->setCategories(categories);
-    auto* axis_x = new QValueAxis;
-    axis_x->setRange(0.0, campaign_.nights.length_s() / 3600.0);
-    const int end_min = campaign_.nights.end_min;
-    axis_x->setTitleText(tr("hours after the window opens; the bars end where it closes (%1)")
-                             .arg(QStringLiteral("%1:%2")
-                                      .arg(end_min / 60, 2, 10, QLatin1Char('0'))
-                                      .arg(end_min % 60, 2, 10, QLatin1Char('0'))));
-    axis_x->setLabelFormat(QStringLiteral("%.0f"));
-    axis_x->setTickType(QValueAxis::TicksDynamic);
-    axis_x->setTickInterval(1.0);
-    axis_x->setTickAnchor(0.0);
-    chart->addAxis(axis_x, Qt::AlignBottom);
-    chart->addAxis(axis_y, Qt::AlignLeft);
-    series->attachAxis(axis_x);
-    series->attachAxis(axis_y);
-    chart->legend()->setAlignment(Qt::AlignBottom);
-  }
-  style_chart(chart, palette());
-  QChart* old = nights_view_->chart();
-  nights_view_->setChart(chart);
-  delete old;
+  strips_->set_plan(plan_, campaign_.nights);
+  // Every night's strip in view up to a dozen nights; more scroll.
+  strips_scroll_->setMinimumHeight(
+      std::min(strips_->sizeHint().height(), strips_->fontMetrics().height() * 34) + 4);
 }
 
 void TimelineView::draw_progress() {

@@ -25,24 +25,15 @@
 #include "measured_view.h"
 #include "plan_runner.h"
 #include "view_frame.h"
+#include "window_helpers.h"
 
 using gramline::gui::MainWindow;
 
 namespace {
 
-constexpr int kWaitMs = 120000;
-
-void make_quick(MainWindow& w) {
-  auto& o = w.margin_runner()->options();
-  o.trials = 20;
-  o.minimum_budget = false;
-  o.compare_allocations = false;
-  o.scan_scale = false;
-}
-
-bool settled(const MainWindow& w) {
-  return !w.runner()->busy() && !w.margin_runner()->busy() && w.runner()->plan() != nullptr;
-}
+using gui_test::kWaitMs;
+using gui_test::make_quick;
+using gui_test::settled;
 
 bool write_text(const QString& path, const std::string& text) {
   QFile f(path);

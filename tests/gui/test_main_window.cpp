@@ -31,25 +31,15 @@
 #include "summary_view.h"
 #include "timeline_view.h"
 #include "view_frame.h"
+#include "window_helpers.h"
 
 using gramline::gui::MainWindow;
 
 namespace {
 
-constexpr int kWaitMs = 120000;
-
-// Keeps the Monte Carlo small: these tests are about the window, not the statistics.
-void make_quick(MainWindow& w) {
-  auto& o = w.margin_runner()->options();
-  o.trials = 20;
-  o.minimum_budget = false;
-  o.compare_allocations = false;
-  o.scan_scale = false;
-}
-
-bool settled(const MainWindow& w) {
-  return !w.runner()->busy() && !w.margin_runner()->busy() && w.runner()->plan() != nullptr;
-}
+using gui_test::kWaitMs;
+using gui_test::make_quick;
+using gui_test::settled;
 
 }  // namespace
 

@@ -47,6 +47,7 @@ TsFile read_ts(const QString& path) {
   QString context;
   Message message;
   bool in_message = false;
+  bool numerus = false;
   while (!xml.atEnd() && !xml.hasError()) {
     xml.readNext();
     if (xml.isStartElement()) {
@@ -57,12 +58,14 @@ TsFile read_ts(const QString& path) {
         context = xml.readElementText();
       } else if (name == QLatin1String("message")) {
         in_message = true;
+        // Plural forms: Qt's .ts format marks the message, not its translation, as numerus.
+        numerus = xml.attributes().value(QLatin1String("numerus")) == QLatin1String("yes");
         message = Message{context, {}, {}, {}, xml.lineNumber()};
       } else if (in_message && name == QLatin1String("source")) {
         message.source = xml.readElementText();
       } else if (in_message && name == QLatin1String("translation")) {
         message.type = xml.attributes().value(QLatin1String("type")).toString();
-        if (xml.attributes().value(QLatin1String("numerus")) == QLatin1String("yes")) {
+        if (numerus || xml.attributes().value(QLatin1String("numerus")) == QLatin1String("yes")) {
           while (xml.readNextStartElement()) {
             if (xml.name() == QLatin1String("numerusform"))
               message.translations.append(xml.readElementText());
