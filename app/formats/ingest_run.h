@@ -10,6 +10,7 @@
 #include "formats/atomic_file.h"
 #include "formats/bundle.h"
 #include "formats/counts_csv.h"
+#include "gramline/adaptive.h"
 #include "gramline/ingest.h"
 #include "gramline/plan.h"
 #include "gramline/progress.h"
@@ -27,6 +28,8 @@ struct IngestRun : MeasuredClassifier {
   int earlier_steps = 0;  ///< steps carried from earlier bundles (resumed bundle), first in plan
   CountsCheck check;      ///< of the new counts against the bundle's own steps
   IngestResult result;
+  StopRuleResult stop_rule;  ///< are the test decisions stable enough to end the campaign?
+  double saved_s = 0.0;      ///< planned time of the bundle's steps without counts (moves + dwell)
   std::string report() const;
 };
 

@@ -231,8 +231,32 @@ StopRuleResult evaluate_stop_rule(const KernelBelief& belief, const Eigen::Vecto
   r.reasons = verdict.reasons;
   for (const TestPointOutcome& p : r.trials.points)
     if (p.flip_probability.value > options.flip_threshold) r.holding_points.push_back(p.test_index);
-  r.influence = estimate_influence(belief, train_labels, reference.decision(best_test), options);
+  if (options.influence)
+    r.influence = estimate_influence(belief, train_labels, reference.decision(best_test), options);
   return r;
+}
+
+KernelBelief belief_from_ingest(const IngestResult& ingest) {
+  KernelBelief b;
+  b.train_value = ingest.gram_measured;
+  b.train_sigma = ingest.gram_sigma;
+  b.test_value = ingest.test_measured;
+  b.test_sigma = ingest.test_sigma;
+  return b;
+}
+
+StopRuleResult campaign_stop_rule(const Campaign& campaign, const IngestResult& ingest, double C,
+                                  const WorkHooks& hooks) {
+  StopRuleOptions options;
+  options.seed = campaign.seed;
+  options.C = C;
+  options.keep_unit_diagonal = campaign.check.keep_unit_diagonal;
+  options.flip_threshold = campaign.check.flip_threshold;
+  options.margin_ratio_threshold = campaign.check.margin_ratio_threshold;
+  options.influence = false;
+  options.hooks = hooks;
+  return evaluate_stop_rule(belief_from_ingest(ingest), campaign.data.train_labels,
+                            campaign.data.test_labels, options);
 }
 
 std::string StopRuleResult::report() const {

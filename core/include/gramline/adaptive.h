@@ -9,6 +9,7 @@
 
 #include "gramline/campaign.h"
 #include "gramline/entries.h"
+#include "gramline/ingest.h"
 #include "gramline/margin.h"
 #include "gramline/progress.h"
 #include "gramline/svm.h"
@@ -47,6 +48,7 @@ struct StopRuleOptions {
   double C = 1.0;                  ///< the classifier's soft-margin parameter (> 0)
   double flip_threshold = 0.01;    ///< largest allowed per-test-point flip probability
   double margin_ratio_threshold = 0.9;
+  bool influence = true;  ///< also estimate each entry's influence (EntryInfluence)
   WorkHooks hooks;
   /// Throws std::invalid_argument naming the first unusable field.
   void validate() const;
@@ -103,6 +105,14 @@ struct StopRuleResult {
 StopRuleResult evaluate_stop_rule(const KernelBelief& belief, const Eigen::VectorXi& train_labels,
                                   const Eigen::VectorXi& test_labels,
                                   const StopRuleOptions& options);
+
+/// The belief an ingest gives: its measured kernel and sigma (NaN where not measured).
+KernelBelief belief_from_ingest(const IngestResult& ingest);
+
+/// The stop rule with the campaign's thresholds, PSD-repair rule and seed, at soft-margin `C`,
+/// without the influence estimate (what ingest reports).
+StopRuleResult campaign_stop_rule(const Campaign& campaign, const IngestResult& ingest, double C,
+                                  const WorkHooks& hooks = {});
 
 /// Largest draws x free support vectors x training points x test points the influence
 /// estimate does (a few seconds).
