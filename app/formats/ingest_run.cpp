@@ -85,6 +85,14 @@ IngestRun ingest_counts(const Bundle& bundle, const CountsFile& counts, const Wo
   hooks.report(0.4);
   static_cast<MeasuredClassifier&>(run) =
       train_measured_classifier(c, run.plan, run.result, options);
+  hooks.report(0.5);
+  for (int k : run.check.missing) {
+    const Step& s = bundle.steps.steps[static_cast<size_t>(k)];
+    run.saved_s += s.move_s + s.dwell_s;
+  }
+  const double C = c.check.C > 0 ? c.check.C : run.C;
+  if (c.data.train_labels.minCoeff() != c.data.train_labels.maxCoeff())
+    run.stop_rule = campaign_stop_rule(c, run.result, C, hooks.scaled(0.5, 1.0));
   hooks.report(1.0);
   return run;
 }
@@ -110,6 +118,9 @@ std::string IngestRun::report() const {
   }
   o << result.report();
   o << MeasuredClassifier::report();
+  o << stop_rule.report();
+  if (stop_rule.stop && saved_s > 0)
+    o << "  stopping now saves " << saved_s / 3600.0 << " h of planned steps\n";
   return o.str();
 }
 
@@ -154,27 +165,42 @@ std::string format_ingest_json(const IngestRun& run, const std::string& set_id,
                       {"ideal_test_accuracy", number_or_null(run.ideal_test_accuracy)},
                       {"psd_repaired", run.psd_repaired}};
   }
-  QJsonObject o{{"format", "gramline-ingest"},
-                {"version", 1},
-                {"bundle", q(run.bundle_source)},
-                {"bundle_manifest_sha256", q(run.manifest_sha256)},
-                {"counts", q(run.counts_source)},
-                {"simulated", !run.simulated_note.empty()},
-                {"simulated_note", q(run.simulated_note)},
-                {"earlier_simulated", !run.earlier_simulated_note.empty()},
-                {"earlier_steps", run.earlier_steps},
-                {"measured_entries", r.measured_entries},
-                {"expected_entries", r.expected_entries},
-                {"unmeasured_train_entries", run.unmeasured_train},
-                {"unmeasured_test_entries", run.unmeasured_test},
-                {"missing_steps", missing},
-                {"z_mean", number_or_null(r.z_mean)},
-                {"z_std", number_or_null(r.z_std)},
-                {"outliers", outliers},
-                {"drift", drift},
-                {"drift_flagged", drifted},
-                {"svm", svm},
-                {"svm_skipped_reason", q(run.svm_skipped_reason)}};
+  QJsonArray holding;
+  for (int t : run.stop_rule.holding_points) holding.append(t);
+  QJsonObject o{
+      {"format", "gramline-ingest"},
+      {"version", 1},
+      {"bundle", q(run.bundle_source)},
+      {"bundle_manifest_sha256", q(run.manifest_sha256)},
+      {"counts", q(run.counts_source)},
+      {"simulated", !run.simulated_note.empty()},
+      {"simulated_note", q(run.simulated_note)},
+      {"earlier_simulated", !run.earlier_simulated_note.empty()},
+      {"earlier_steps", run.earlier_steps},
+      {"measured_entries", r.measured_entries},
+      {"expected_entries", r.expected_entries},
+      {"unmeasured_train_entries", run.unmeasured_train},
+      {"unmeasured_test_entries", run.unmeasured_test},
+      {"missing_steps", missing},
+      {"z_mean", number_or_null(r.z_mean)},
+      {"z_std", number_or_null(r.z_std)},
+      {"outliers", outliers},
+      {"drift", drift},
+      {"drift_flagged", drifted},
+      {"svm", svm},
+      {"stop", run.stop_rule.stop},
+      {"holding_points", holding},
+      {"stop_rule",
+       QJsonObject{
+           {"trials", run.stop_rule.trials.trials},
+           {"flip_probability_max",
+            number_or_null(run.stop_rule.trials.flip_probability_max.value)},
+           {"margin_ratio_median", number_or_null(run.stop_rule.trials.margin_ratio_median.value)},
+           {"flip_threshold", run.stop_rule.options.flip_threshold},
+           {"margin_ratio_threshold", run.stop_rule.options.margin_ratio_threshold},
+           {"unmeasured_entries", run.stop_rule.unmeasured_entries},
+           {"saved_s", run.stop_rule.stop ? run.saved_s : 0.0}}},
+      {"svm_skipped_reason", q(run.svm_skipped_reason)}};
   if (!set_id.empty()) {
     QJsonObject files;
     for (const auto& [name, bytes] : set_files) files[q(name)] = q(sha256_hex(bytes));

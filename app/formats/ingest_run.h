@@ -11,6 +11,7 @@
 #include "formats/atomic_file.h"
 #include "formats/bundle.h"
 #include "formats/counts_csv.h"
+#include "gramline/adaptive.h"
 #include "gramline/ingest.h"
 #include "gramline/plan.h"
 #include "gramline/progress.h"
@@ -33,6 +34,8 @@ struct IngestRun : MeasuredClassifier {
   std::string earlier_simulated_note;
   std::string bundle_warning;  ///< check_counts_bundle's warning (counts naming no bundle)
   IngestResult result;
+  StopRuleResult stop_rule;  ///< are the test decisions stable enough to end the campaign?
+  double saved_s = 0.0;      ///< planned time of the bundle's steps without counts (moves + dwell)
   std::string report() const;
 };
 

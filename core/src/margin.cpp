@@ -335,25 +335,25 @@ double jaccard(const std::vector<int>& a, const std::vector<int>& b) {
   return either.empty() ? 1.0 : static_cast<double>(both.size()) / either.size();
 }
 
-TrialOutcome run_trial(const MarginProblem& problem, const PreparedDraws& draws,
-                       const SvmModel& ideal, const TrialOptions& options,
-                       std::uint64_t trial_seed) {
+TrialOutcome run_trial(const KernelDraw& draw, const Eigen::VectorXi& train_labels,
+                       const Eigen::VectorXi& test_labels, const SvmModel& reference,
+                       const TrialOptions& options, std::uint64_t trial_seed) {
   Eigen::MatrixXd train, test;
-  draws.draw(trial_seed, train, test);
+  draw(trial_seed, train, test);
   TrialOutcome out;
   out.repaired = repair_psd(train, options.keep_unit_diagonal);
   SvmOptions svm = options.svm;
-  svm.C = ideal.C;
-  const SvmModel model = train_svm(train, problem.train_labels, svm);
+  svm.C = reference.C;
+  const SvmModel model = train_svm(train, train_labels, svm);
   const Eigen::VectorXd f = model.decision(test);
   out.decision_test.assign(f.data(), f.data() + f.size());
-  out.accuracy = problem.test_count() > 0
-                     ? classification_accuracy(f, problem.test_labels)
-                     : classification_accuracy(model.decision_train, problem.train_labels);
+  out.accuracy = test_labels.size() > 0
+                     ? classification_accuracy(f, test_labels)
+                     : classification_accuracy(model.decision_train, train_labels);
   out.margin_ratio = model.w_norm_squared > 0
-                         ? std::sqrt(ideal.w_norm_squared / model.w_norm_squared)
+                         ? std::sqrt(reference.w_norm_squared / model.w_norm_squared)
                          : std::numeric_limits<double>::infinity();
-  out.jaccard = jaccard(model.support, ideal.support);
+  out.jaccard = jaccard(model.support, reference.support);
   return out;
 }
 
@@ -361,25 +361,39 @@ TrialOutcome run_trial(const MarginProblem& problem, const PreparedDraws& draws,
 
 TrialSummary run_margin_trials(const MarginProblem& problem, const SvmModel& ideal,
                                const TrialOptions& options) {
+  const PreparedDraws draws(problem);
+  return run_kernel_trials([&draws](std::uint64_t seed, Eigen::MatrixXd& train,
+                                    Eigen::MatrixXd& test) { draws.draw(seed, train, test); },
+                           problem.train_labels, problem.test_labels, problem.kernel_test, ideal,
+                           options);
+}
+
+TrialSummary run_kernel_trials(const KernelDraw& draw, const Eigen::VectorXi& train_labels,
+                               const Eigen::VectorXi& test_labels,
+                               const Eigen::MatrixXd& reference_test, const SvmModel& reference,
+                               const TrialOptions& options) {
   options.validate();
   const int trials = options.trials;
   std::vector<TrialOutcome> outcomes(trials);
-  const PreparedDraws draws(problem);
   parallel_for(trials, options.threads, options.hooks, [&](int t) {
-    outcomes[t] = run_trial(problem, draws, ideal, options, stream_seed(options.seed, t));
+    outcomes[t] = run_trial(draw, train_labels, test_labels, reference, options,
+                            stream_seed(options.seed, t));
   });
 
   const double z = normal_quantile_two_sided(options.confidence);
-  const int m = problem.test_count();
-  const Eigen::VectorXd f0 = ideal.decision(problem.kernel_test);
+  const int m = static_cast<int>(reference_test.rows());
+  const Eigen::VectorXd f0 = reference.decision(reference_test);
   TrialSummary s;
   s.trials = trials;
   s.options = options;
   s.options.hooks = WorkHooks{};
-  s.options.svm.C = ideal.C;
+  s.options.svm.C = reference.C;
   s.threads_used = loop_thread_count(options.threads, trials);
+  s.decision_trials.resize(trials, m);
   double repaired = 0.0;
-  for (const TrialOutcome& o : outcomes) {
+  for (int t = 0; t < trials; ++t) {
+    const TrialOutcome& o = outcomes[t];
+    for (int k = 0; k < m; ++k) s.decision_trials(t, k) = o.decision_test[k];
     s.accuracy.push_back(o.accuracy);
     s.margin_ratio.push_back(o.margin_ratio);
     s.support_jaccard.push_back(o.jaccard);
@@ -389,7 +403,7 @@ TrialSummary run_margin_trials(const MarginProblem& problem, const SvmModel& ide
     TestPointOutcome p;
     p.test_index = t;
     p.decision_ideal = f0[t];
-    p.label = problem.test_labels[t];
+    p.label = test_labels.size() > t ? test_labels[t] : 0;
     SampleMoments f;
     for (const TrialOutcome& o : outcomes) {
       const double ft = o.decision_test[t];

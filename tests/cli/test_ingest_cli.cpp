@@ -134,6 +134,45 @@ TEST_F(Handoff, SimulatedCountsComeBackAsTheKernelWithinThePredictedError) {
   EXPECT_EQ(run_cli({"ingest", bundle_path_, counts, "--out", out, "--force"}).status, 0);
 }
 
+TEST_F(Handoff, IngestSaysWhetherTheDecisionsAreStableEnoughToStop) {
+  // The stop rule (docs/adaptive.md): stop only when no test point's flip probability is above
+  // the campaign's threshold and the median margin ratio is at or above its threshold. Half a
+  // night leaves half the entries unknown, which holds the campaign open.
+  const Campaign& c = bundle_->campaign;
+  const std::vector<StepRecord> all = simulate_counts(c, bundle_->steps.steps, 33);
+  for (const bool half : {false, true}) {
+    const std::vector<StepRecord> records(all.begin(),
+                                          all.begin() + (half ? all.size() / 2 : all.size()));
+    const std::string name = half ? "stop half" : "stop full";
+    const QString out = dir_->filePath(QString::fromStdString(name));
+    const auto run =
+        run_cli({"ingest", bundle_path_, counts_file(name + ".csv", records), "--out", out});
+    ASSERT_EQ(run.status, 0) << run.err;
+    const QJsonObject j = read_json(QDir(out).filePath("ingest.json"));
+    ASSERT_TRUE(j["stop"].isBool());
+    const QJsonObject rule = j["stop_rule"].toObject();
+    const QJsonArray holding = j["holding_points"].toArray();
+    for (const QJsonValue& t : holding) {
+      EXPECT_GE(t.toInt(), 0);
+      EXPECT_LT(t.toInt(), c.data.test_count());
+    }
+    const bool stable = holding.isEmpty() && rule["margin_ratio_median"].toDouble() >=
+                                                 rule["margin_ratio_threshold"].toDouble();
+    EXPECT_EQ(j["stop"].toBool(), stable) << name;
+    EXPECT_EQ(rule["flip_threshold"].toDouble(), c.check.flip_threshold);
+    if (half) {
+      EXPECT_GT(rule["unmeasured_entries"].toInt(), 0);
+      EXPECT_FALSE(j["stop"].toBool());
+      EXPECT_NE(run.out.find("not done yet"), std::string::npos) << run.out;
+    } else {
+      EXPECT_EQ(rule["unmeasured_entries"].toInt(), 0);
+      EXPECT_NE(run.out.find(j["stop"].toBool() ? "decisions stable, stop" : "not done yet"),
+                std::string::npos)
+          << run.out;
+    }
+  }
+}
+
 TEST_F(Handoff, ATamperedBundleIsRefusedNamingTheFile) {
   std::map<std::string, std::string> entries =
       formats::unzip_entries(read_text(bundle_path_), "night.zip");

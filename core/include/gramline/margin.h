@@ -5,6 +5,7 @@
 // statistics, the unbiased kernel estimator of detection.h, PSD repair (kernel.h), retraining.
 #include <Eigen/Core>
 #include <cstdint>
+#include <functional>
 #include <optional>
 #include <string>
 #include <vector>
@@ -112,12 +113,28 @@ struct TrialSummary {
   Estimate support_jaccard_mean;
   Estimate psd_repair_fraction;  ///< trials that needed clipping, Wilson interval
   std::vector<double> accuracy, margin_ratio, support_jaccard;  ///< per trial
+  Eigen::MatrixXd decision_trials;  ///< trials x M: f at each test point in each trial
   std::string report() const;
 };
 
 /// Runs the Monte Carlo. Trial t uses stream_seed(seed, t); results do not depend on threads.
 /// Throws Cancelled when the cancel flag is raised.
 TrialSummary run_margin_trials(const MarginProblem& problem, const SvmModel& ideal,
+                               const TrialOptions& options);
+
+/// Draws one noisy kernel pair (training N x N, test M x N) from a trial's seed. Called from
+/// several threads at once: it must only read shared state.
+using KernelDraw =
+    std::function<void(std::uint64_t trial_seed, Eigen::MatrixXd& train, Eigen::MatrixXd& test)>;
+
+/// The Monte Carlo behind run_margin_trials for any source of noisy kernels: each trial draws a
+/// kernel, repairs it (repair_psd), retrains with the reference's C and compares with
+/// `reference` (the classifier a noiseless or best-estimate kernel gives; its test decisions are
+/// reference.decision(reference_test)). Flips, margin ratio and support overlap are counted
+/// against that reference. Trial t uses stream_seed(options.seed, t).
+TrialSummary run_kernel_trials(const KernelDraw& draw, const Eigen::VectorXi& train_labels,
+                               const Eigen::VectorXi& test_labels,
+                               const Eigen::MatrixXd& reference_test, const SvmModel& reference,
                                const TrialOptions& options);
 
 /// Verdict of one summary against the campaign's thresholds, with the failing reasons.

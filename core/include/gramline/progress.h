@@ -28,6 +28,12 @@ struct WorkHooks {
   void throw_if_cancelled() const {
     if (cancelled()) throw Cancelled();
   }
+  /// The same hooks for a part of the work that runs from fraction `from` to `to` of the whole.
+  WorkHooks scaled(double from, double to) const {
+    WorkHooks part{nullptr, cancel};
+    if (progress) part.progress = [p = progress, from, to](double f) { p(from + (to - from) * f); };
+    return part;
+  }
 };
 
 }  // namespace gramline
