@@ -104,7 +104,7 @@
         <translation>%1 h %2 min</translation>
     </message>
     <message>
-        <location line="+35"/>
+        <location line="+40"/>
         <source>measure</source>
         <translation>Messung</translation>
     </message>
@@ -249,7 +249,7 @@
         <translation>%1 %</translation>
     </message>
     <message>
-        <location filename="../app/gui/hand_off.cpp" line="+36"/>
+        <location filename="../app/gui/hand_off.cpp" line="+38"/>
         <source>Gramline bundle (*.zip);;All files (*)</source>
         <translation>Gramline-Bündel (*.zip);;Alle Dateien (*)</translation>
     </message>
@@ -1119,7 +1119,7 @@
         <translation>Die Schritte, die eine unvollständige Nacht nicht gezählt hat, als neues Bündel planen</translation>
     </message>
     <message>
-        <location line="+40"/>
+        <location line="+47"/>
         <source>No current plan</source>
         <translation>Kein aktueller Plan</translation>
     </message>
@@ -1151,7 +1151,7 @@
     </message>
     <message>
         <location line="+9"/>
-        <location line="+168"/>
+        <location line="+201"/>
         <source>The bundle %1 was not written.
 
 %2</source>
@@ -1160,7 +1160,7 @@
 %2</translation>
     </message>
     <message>
-        <location line="-149"/>
+        <location line="-182"/>
         <source>Ingest Counts: Choose the Bundle the Rig Ran</source>
         <translation>Zähldaten einlesen: Bündel wählen, das der Aufbau ausgeführt hat</translation>
     </message>
@@ -1175,7 +1175,7 @@
         <translation>%1 wird eingelesen…</translation>
     </message>
     <message>
-        <location line="-135"/>
+        <location line="-142"/>
         <source>Cannot ingest the counts</source>
         <translation>Die Zähldaten können nicht eingelesen werden</translation>
     </message>
@@ -1189,7 +1189,7 @@
 %1</translation>
     </message>
     <message>
-        <location line="+146"/>
+        <location line="+153"/>
         <source>Ingested %1: %2 of %3 entries measured.</source>
         <translation>%1 eingelesen: %2 von %3 Einträgen gemessen.</translation>
     </message>
@@ -1204,12 +1204,12 @@
         <translation>Fortsetzen: unvollständige Zähldatei für %1 wählen</translation>
     </message>
     <message>
-        <location line="+38"/>
+        <location line="+72"/>
         <source>Planning the rest after %1…</source>
         <translation>Der Rest nach %1 wird geplant…</translation>
     </message>
     <message>
-        <location line="-189"/>
+        <location line="-229"/>
         <source>Cannot resume</source>
         <translation>Fortsetzen nicht möglich</translation>
     </message>
@@ -1233,7 +1233,7 @@
         <translation>Ein Bündel gegen das Modell des Aufbaus abspielen, die Zähldaten speichern, die er aufzeichnen würde (als simuliert markiert), und sie einlesen, um die Übergabe vor der Buchung des Lasers zu erproben</translation>
     </message>
     <message>
-        <location line="+135"/>
+        <location line="+144"/>
         <source>Rehearse: Choose the Bundle to Play</source>
         <translation>Probelauf: Bündel zum Abspielen wählen</translation>
     </message>
@@ -1248,7 +1248,7 @@
         <translation>-simuliert</translation>
     </message>
     <message>
-        <location line="+16"/>
+        <location line="+15"/>
         <source>Cannot rehearse</source>
         <translation>Probelauf nicht möglich</translation>
     </message>
@@ -1262,8 +1262,7 @@
 %1</translation>
     </message>
     <message>
-        <location line="+21"/>
-        <location line="+154"/>
+        <location line="+10"/>
         <source>Resume: First Night of the Rest</source>
         <translation>Fortsetzen: erste Nacht des Rests</translation>
     </message>
@@ -1289,7 +1288,6 @@
     </message>
     <message>
         <location line="+26"/>
-        <location line="+170"/>
         <source>Resume from Counts</source>
         <translation>Aus Zähldaten fortsetzen</translation>
     </message>
@@ -1543,7 +1541,7 @@
         <translation>&amp;Kampagnen-Editor anzeigen</translation>
     </message>
     <message>
-        <location line="+159"/>
+        <location line="+175"/>
         <source>Recomputing: the figures below belong to the campaign before your last edit.</source>
         <translation>Neuberechnung: Die Zahlen unten gehören zur Kampagne vor Ihrer letzten Änderung.</translation>
     </message>
@@ -1638,18 +1636,17 @@
         <translation>Ö&amp;ffnen…</translation>
     </message>
     <message>
-        <location line="-90"/>
+        <location line="-106"/>
         <source>Open &amp;Recent</source>
         <translation>&amp;Zuletzt geöffnet</translation>
     </message>
     <message>
-        <location line="+81"/>
+        <location line="+97"/>
         <source>New Campaign from &amp;CSV…</source>
         <translation>Neue Kampagne aus &amp;CSV…</translation>
     </message>
     <message>
         <location line="+12"/>
-        <location line="+104"/>
         <source>&amp;Save</source>
         <translation>&amp;Speichern</translation>
     </message>
@@ -1735,7 +1732,7 @@
         <translation>Gem&amp;essen</translation>
     </message>
     <message>
-        <location line="-108"/>
+        <location line="-113"/>
         <source>Use the minimum budget that passes</source>
         <translation>Kleinstes bestehendes Budget verwenden</translation>
     </message>
@@ -1755,7 +1752,7 @@
         <translation>Ein angehefteter Plan neben dem aktuellen: was eine Änderung kostet oder bringt</translation>
     </message>
     <message>
-        <location line="+59"/>
+        <location line="+64"/>
         <source>C&amp;ompare</source>
         <translation>&amp;Vergleich</translation>
     </message>
@@ -2426,8 +2423,7 @@ Bündel: %2</translation>
         <translation>%1 … %2</translation>
     </message>
     <message>
-        <location line="+157"/>
-        <location line="+67"/>
+        <location line="+73"/>
         <source>prep.</source>
         <translation>Präp.</translation>
     </message>
@@ -2447,7 +2443,7 @@ Bündel: %2</translation>
         <translation>von unten</translation>
     </message>
     <message>
-        <location line="+59"/>
+        <location line="+74"/>
         <source>Largest angular speed of the mount</source>
         <translation>Höchste Winkelgeschwindigkeit der Halterung</translation>
     </message>
@@ -2542,64 +2538,30 @@ fahrt °</translation>
 °</translation>
     </message>
     <message>
-        <location line="-4"/>
+        <location line="+2"/>
+        <source>Ret. err.
+°</source>
+        <translation>Ret.-fehler
+°</translation>
+    </message>
+    <message>
+        <location line="+2"/>
+        <source>Zero sd
+°</source>
+        <translation>Null-sd
+°</translation>
+    </message>
+    <message>
+        <location line="+2"/>
+        <source>Repeat sd
+°</source>
+        <translation>Wiederh.-sd
+°</translation>
+    </message>
+    <message>
+        <location line="-10"/>
         <source>Approach</source>
         <translation>Anfahrt</translation>
-    </message>
-</context>
-<context>
-    <name>gramline::gui::NightStrips</name>
-    <message>
-        <location filename="../app/gui/timeline_view.cpp" line="+119"/>
-        <source>Each night as it runs</source>
-        <translation>Jede Nacht in ihrem Ablauf</translation>
-    </message>
-    <message>
-        <location line="+11"/>
-        <location line="+147"/>
-        <source>Night %1</source>
-        <translation>Nacht %1</translation>
-    </message>
-    <message>
-        <location line="-131"/>
-        <location line="+142"/>
-        <source>%1 % busy</source>
-        <translation>%1 % belegt</translation>
-    </message>
-    <message>
-        <location line="-56"/>
-        <source>Each night as it runs: every step at its time, coloured by what the rig does</source>
-        <translation>Jede Nacht in ihrem Ablauf: jeder Schritt zu seiner Zeit, gefärbt nach dem, was der Aufbau tut</translation>
-    </message>
-    <message>
-        <location line="+73"/>
-        <source>%1 %2 %</source>
-        <translation>%1 %2 %</translation>
-    </message>
-    <message>
-        <location line="+14"/>
-        <source>Shares of the busy time; the strips span the window from %1 to %2.</source>
-        <translation>Anteile an der belegten Zeit; die Streifen umfassen das Fenster von %1 bis %2.</translation>
-    </message>
-    <message>
-        <location line="+20"/>
-        <source>Night %1, %2: %3</source>
-        <translation>Nacht %1, %2: %3</translation>
-    </message>
-    <message>
-        <location line="+2"/>
-        <source>Ret. error (°)</source>
-        <translation>Verz.-Fehler (°)</translation>
-    </message>
-    <message>
-        <location line="+2"/>
-        <source>Zero sd (°)</source>
-        <translation>Nullpunkt-SD (°)</translation>
-    </message>
-    <message>
-        <location line="+2"/>
-        <source>Repeat sd (°)</source>
-        <translation>Wiederh.-SD (°)</translation>
     </message>
 </context>
 <context>
@@ -2674,6 +2636,46 @@ fahrt °</translation>
         <location line="+27"/>
         <source>Choose the data CSV.</source>
         <translation>Wählen Sie die Daten-CSV.</translation>
+    </message>
+</context>
+<context>
+    <name>gramline::gui::NightStrips</name>
+    <message>
+        <location filename="../app/gui/timeline_view.cpp" line="+119"/>
+        <source>Each night as it runs</source>
+        <translation>Jede Nacht in ihrem Ablauf</translation>
+    </message>
+    <message>
+        <location line="+11"/>
+        <location line="+147"/>
+        <source>Night %1</source>
+        <translation>Nacht %1</translation>
+    </message>
+    <message>
+        <location line="-131"/>
+        <location line="+142"/>
+        <source>%1 % busy</source>
+        <translation>%1 % belegt</translation>
+    </message>
+    <message>
+        <location line="-56"/>
+        <source>Each night as it runs: every step at its time, coloured by what the rig does</source>
+        <translation>Jede Nacht in ihrem Ablauf: jeder Schritt zu seiner Zeit, gefärbt nach dem, was der Aufbau tut</translation>
+    </message>
+    <message>
+        <location line="+73"/>
+        <source>%1 %2 %</source>
+        <translation>%1 %2 %</translation>
+    </message>
+    <message>
+        <location line="+14"/>
+        <source>Shares of the busy time; the strips span the window from %1 to %2.</source>
+        <translation>Anteile an der belegten Zeit; die Streifen umfassen das Fenster von %1 bis %2.</translation>
+    </message>
+    <message>
+        <location line="+20"/>
+        <source>Night %1, %2: %3</source>
+        <translation>Nacht %1, %2: %3</translation>
     </message>
 </context>
 <context>
@@ -2958,7 +2960,7 @@ fahrt °</translation>
 <context>
     <name>gramline::gui::PreferencesDialog</name>
     <message>
-        <location filename="../app/gui/preferences.cpp" line="+99"/>
+        <location filename="../app/gui/preferences.cpp" line="+100"/>
         <source>Preferences</source>
         <translation>Einstellungen</translation>
     </message>
@@ -3479,12 +3481,12 @@ fahrt °</translation>
     </message>
     <message>
         <location line="+1"/>
-        <location line="+140"/>
+        <location line="+144"/>
         <source>Margin check: not computed yet.</source>
         <translation>Margin-Prüfung: noch nicht berechnet.</translation>
     </message>
     <message>
-        <location line="-138"/>
+        <location line="-142"/>
         <source>Margin verdict</source>
         <translation>Margin-Urteil</translation>
     </message>
@@ -3773,13 +3775,7 @@ fahrt °</translation>
         <translation>Nacht %1 (%2)</translation>
     </message>
     <message>
-        <location line="+28"/>
-        <source>Where each night&apos;s window goes (hours)</source>
-        <translation>Wofür das Fenster jeder Nacht verwendet wird (Stunden)</translation>
-    </message>
-    <message>
-        <location line="+10"/>
-        <location line="-307"/>
+        <location line="-306"/>
         <source>moving</source>
         <translation>Bewegung</translation>
     </message>

@@ -89,7 +89,8 @@ inline constexpr std::int64_t kBundleTotalBytes =
 /// A bundle file on disk: compression never makes it larger than its entries plus their zip
 /// headers.
 inline constexpr std::int64_t kBundleFileBytes = kBundleTotalBytes + kHeaderBytes;
-/// Entries in a bundle: manifest.json and the ten the format defines.
-inline constexpr int kBundleEntries = 11;
+/// Entries in a bundle: manifest.json and the twelve others the format defines (a resumed,
+/// signed bundle holds them all; bundle_entry_limit in bundle.cpp lists them).
+inline constexpr int kBundleEntries = 13;
 
 }  // namespace gramline::formats::limits

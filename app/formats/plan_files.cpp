@@ -4,6 +4,7 @@
 #include <QJsonArray>
 #include <QJsonDocument>
 #include <QJsonObject>
+#include <cmath>
 #include <limits>
 #include <map>
 
@@ -137,7 +138,8 @@ void write_steps_json(const Rig& rig, const std::vector<Step>& steps, const Text
 std::string format_steps_json(const Rig& rig, const std::vector<Step>& steps,
                               const std::string& set_id) {
   std::string out;
-  write_steps_json(rig, steps, [&](std::string_view piece) { out += piece; }, set_id);
+  write_steps_json(
+      rig, steps, [&](std::string_view piece) { out += piece; }, set_id);
   return out;
 }
 
@@ -168,9 +170,13 @@ void write_steps_csv(const Rig& rig, const std::vector<Step>& steps, const TextS
       if (m < s.position_deg.size())
         out += std::to_string(motor_steps(rig.motors[m], s.position_deg[m]));
     }
-    const std::pair<const char*, double> figures[] = {
-        {"kernel_ideal", s.kernel_ideal}, {"kernel_rig", s.kernel_rig}, {"p_pass", s.p_pass}, {"pairs", s.pairs},
-        {"dwell_s", s.dwell_s},           {"move_s", s.move_s}, {"start_s", s.start_s}};
+    const std::pair<const char*, double> figures[] = {{"kernel_ideal", s.kernel_ideal},
+                                                      {"kernel_rig", s.kernel_rig},
+                                                      {"p_pass", s.p_pass},
+                                                      {"pairs", s.pairs},
+                                                      {"dwell_s", s.dwell_s},
+                                                      {"move_s", s.move_s},
+                                                      {"start_s", s.start_s}};
     for (const auto& [name, v] : figures) out += "," + finite_number_text(v, at + name);
     out += "," + std::to_string(s.night) + "\n";
   }
@@ -219,9 +225,7 @@ std::string format_summary_json(const Campaign& campaign, const Plan& plan,
                 {"measure_move_s", s.measure_move_s},
                 {"gram_sigma_frobenius", s.gram_sigma_frobenius},
                 {"gram_sigma_max", g.sigma_max},
-                {"gram_spectral_estimate", g.spectral_estimate},
                 {"gram_min_eigenvalue", g.min_eigenvalue},
-                {"p_negative_eigenvalue", g.p_negative_eigenvalue},
                 {"epsilon_reached", s.epsilon_reached},
                 {"reference_steps", static_cast<qint64>(s.reference_steps)},
                 {"reference_pairs", s.reference_pairs},
@@ -238,6 +242,9 @@ std::string format_summary_json(const Campaign& campaign, const Plan& plan,
                 {"bound_ms", s.bound_ms},
                 {"gram_error_ms", s.gram_error_ms},
                 {"warnings", warnings}};
+  // The simulated Gram-error figures exist only when the simulation ran (docs/plan-files.md).
+  if (std::isfinite(g.spectral_estimate)) o["gram_spectral_estimate"] = g.spectral_estimate;
+  if (std::isfinite(g.p_negative_eigenvalue)) o["p_negative_eigenvalue"] = g.p_negative_eigenvalue;
   // Plate imperfections (docs/plan-files.md).
   o["kernel_bias_max"] = s.kernel_bias_max;
   o["kernel_bias_frobenius"] = s.kernel_bias_frobenius;

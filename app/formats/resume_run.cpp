@@ -147,8 +147,9 @@ BundleWritten write_resumed_bundle(const ResumeRun& run, const Bundle& parent,
       BundleParent{QFileInfo(parent_path).fileName().toStdString(), parent.manifest_sha256};
   const Rig& rig = run.campaign.rig;
   options.extra_entries[kMeasuredStepsEntry] = format_steps_json(rig, run.measured_steps);
-  options.extra_entries[kMeasuredCountsEntry] = format_counts_csv(
-      run.measured_records, run.measured_steps, counts_layout(run.campaign), run.simulated_note);
+  options.extra_entries[kMeasuredCountsEntry] =
+      format_counts_csv(run.measured_records, run.measured_steps, counts_layout(run.campaign),
+                        std::string(), run.simulated_note);
   QJsonObject positions;
   for (size_t k = 0; k < rig.motors.size() && k < run.state.start_positions_deg.size(); ++k)
     positions[QString::fromStdString(rig.motors[k].name)] = run.state.start_positions_deg[k];

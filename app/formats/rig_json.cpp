@@ -4,6 +4,7 @@
 #include <QJsonDocument>
 #include <algorithm>
 
+#include "formats/limits.h"
 #include "formats/text_io.h"
 
 namespace gramline::formats {
@@ -141,7 +142,10 @@ Rig parse_rig(const std::string& bytes, const std::string& file) {
   return rig;
 }
 
-Rig load_rig(const QString& path) { return parse_rig(read_whole_file(path), path_text(path)); }
+Rig load_rig(const QString& path) {
+  // A rig is part of a campaign: the campaign file's limit bounds it (docs/limits.md).
+  return parse_rig(read_whole_file(path, limits::kCampaignBytes), path_text(path));
+}
 
 void save_rig(const Rig& rig, const QString& path) { write_whole_file(path, format_rig(rig)); }
 

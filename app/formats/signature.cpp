@@ -44,7 +44,7 @@ std::string read_lab_key(const QString& path) {
   if (info.size() > static_cast<qint64>(kLabKeyMaxBytes))
     throw InputError(name + ": larger than " + std::to_string(kLabKeyMaxBytes) +
                      " bytes; a lab key file holds only the key");
-  std::string key = read_whole_file(path);
+  std::string key = read_whole_file(path, static_cast<std::int64_t>(kLabKeyMaxBytes));
   while (!key.empty() && (key.back() == '\n' || key.back() == '\r' || key.back() == ' '))
     key.pop_back();
   if (key.size() < kLabKeyMinBytes)

@@ -323,126 +323,125 @@ bool HandOff::rehearse_files(const QString& bundle_path, const QString& counts_p
   return true;
 }
 
-void HandOff::resume_files(const QString& bundle_path, const QString& counts_path) {
-  bool HandOff::ask_first_night(QString & first_night) {
-    QDialog dialog(window_);
-    dialog.setObjectName(QStringLiteral("first_night_dialog"));
-    dialog.setWindowTitle(tr("Resume: First Night of the Rest"));
-    auto* layout = new QVBoxLayout(&dialog);
-    auto* text =
-        new QLabel(tr("When can the rig measure again? The rest is laid on the nights "
-                      "from that date, leaving out the campaign's nights to skip."));
-    text->setWordWrap(true);
-    layout->addWidget(text);
-    auto* form = new QFormLayout;
-    auto* after = new QCheckBox(tr("The day after the last night counted"));
-    after->setChecked(true);
-    auto* date = new QDateEdit(QDate::currentDate());
-    date->setCalendarPopup(true);
-    date->setDisplayFormat(QStringLiteral("yyyy-MM-dd"));
-    date->setAccessibleName(tr("First night of the rest"));
-    date->setEnabled(false);
-    connect(after, &QCheckBox::toggled, date, [date](bool on) { date->setEnabled(!on); });
-    form->addRow(after);
-    form->addRow(tr("First night"), date);
-    layout->addLayout(form);
-    auto* buttons = new QDialogButtonBox(QDialogButtonBox::Ok | QDialogButtonBox::Cancel);
-    connect(buttons, &QDialogButtonBox::accepted, &dialog, &QDialog::accept);
-    connect(buttons, &QDialogButtonBox::rejected, &dialog, &QDialog::reject);
-    layout->addWidget(buttons);
-    if (dialog.exec() != QDialog::Accepted) return false;
-    first_night = after->isChecked() ? QString() : date->date().toString(Qt::ISODate);
+bool HandOff::ask_first_night(QString& first_night) {
+  QDialog dialog(window_);
+  dialog.setObjectName(QStringLiteral("first_night_dialog"));
+  dialog.setWindowTitle(tr("Resume: First Night of the Rest"));
+  auto* layout = new QVBoxLayout(&dialog);
+  auto* text =
+      new QLabel(tr("When can the rig measure again? The rest is laid on the nights "
+                    "from that date, leaving out the campaign's nights to skip."));
+  text->setWordWrap(true);
+  layout->addWidget(text);
+  auto* form = new QFormLayout;
+  auto* after = new QCheckBox(tr("The day after the last night counted"));
+  after->setChecked(true);
+  auto* date = new QDateEdit(QDate::currentDate());
+  date->setCalendarPopup(true);
+  date->setDisplayFormat(QStringLiteral("yyyy-MM-dd"));
+  date->setAccessibleName(tr("First night of the rest"));
+  date->setEnabled(false);
+  connect(after, &QCheckBox::toggled, date, [date](bool on) { date->setEnabled(!on); });
+  form->addRow(after);
+  form->addRow(tr("First night"), date);
+  layout->addLayout(form);
+  auto* buttons = new QDialogButtonBox(QDialogButtonBox::Ok | QDialogButtonBox::Cancel);
+  connect(buttons, &QDialogButtonBox::accepted, &dialog, &QDialog::accept);
+  connect(buttons, &QDialogButtonBox::rejected, &dialog, &QDialog::reject);
+  layout->addWidget(buttons);
+  if (dialog.exec() != QDialog::Accepted) return false;
+  first_night = after->isChecked() ? QString() : date->date().toString(Qt::ISODate);
+  return true;
+}
+
+void HandOff::resume_files(const QString& bundle_path, const QString& counts_path,
+                           const QString& first_night) {
+  if (busy()) return;
+  set_busy(tr("Planning the rest after %1…").arg(QFileInfo(counts_path).fileName()));
+  resume_->run([bundle_path, counts_path, first_night](const WorkHooks&) {
+    return load_and_resume(bundle_path, counts_path, first_night);
+  });
+}
+
+void HandOff::show_resume_dialog() {
+  const formats::ResumeRun& run = *resumed_.run;
+  const PlanSummary& s = run.plan.summary;
+  auto* dialog = new QDialog(window_);
+  dialog->setObjectName(QStringLiteral("resume_dialog"));
+  dialog->setAttribute(Qt::WA_DeleteOnClose);
+  dialog->setWindowTitle(tr("Resume from Counts"));
+  auto* layout = new QVBoxLayout(dialog);
+  auto* head = new QLabel(tr("<b>%1 entries are measured; %2 remain.</b> The remaining entries "
+                             "are planned from where the motors stopped. Save the new bundle "
+                             "and run it on the rig; it names %3 as its parent and carries the "
+                             "counts measured so far.")
+                              .arg(count_text(run.measured_entries))
+                              .arg(count_text(run.remaining_entries))
+                              .arg(QFileInfo(resumed_.bundle_path).fileName()));
+  head->setWordWrap(true);
+  layout->addWidget(head);
+  auto* form = new QFormLayout;
+  const auto add = [form](const QString& label, const QString& value) {
+    auto* v = new QLabel(value);
+    v->setTextInteractionFlags(Qt::TextSelectableByMouse);
+    v->setAccessibleName(label);
+    form->addRow(label, v);
+  };
+  add(tr("Steps to run"), count_text(static_cast<double>(s.steps)));
+  add(tr("Nights"), tr("%1 of %2 allowed").arg(s.nights).arg(run.campaign.nights.max_nights));
+  add(tr("Total time"), duration_text(s.total_s));
+  add(tr("Counting time"), duration_text(s.integration_s));
+  add(tr("Moving time"), duration_text(s.move_s));
+  add(tr("Gram error of the new plan (Frobenius σ)"), number_text(s.gram_sigma_frobenius, 4));
+  layout->addLayout(form);
+  layout->addWidget(new QLabel(tr("The same report as the command line prints:")));
+  auto* report = new QPlainTextEdit(QString::fromStdString(run.report()));
+  report->setReadOnly(true);
+  report->setAccessibleName(tr("Resume report"));
+  report->setFont(QFontDatabase::systemFont(QFontDatabase::FixedFont));
+  layout->addWidget(report, 1);
+  auto* buttons = new QDialogButtonBox;
+  QPushButton* save = buttons->addButton(tr("Save New Bundle…"), QDialogButtonBox::AcceptRole);
+  save->setAccessibleName(tr("Save the new bundle"));
+  buttons->addButton(QDialogButtonBox::Close);
+  connect(buttons, &QDialogButtonBox::rejected, dialog, &QDialog::reject);
+  connect(buttons, &QDialogButtonBox::accepted, dialog, [this, dialog] {
+    if (!cautions_acknowledged_()) return;
+    const QFileInfo parent(resumed_.bundle_path);
+    QString path = QFileDialog::getSaveFileName(dialog, tr("Save the Resumed Bundle"),
+                                                parent.absolutePath() + QLatin1Char('/') +
+                                                    parent.completeBaseName() + tr("-resumed") +
+                                                    QStringLiteral(".zip"),
+                                                gui_tr(kBundleFilter));
+    if (path.isEmpty()) return;
+    if (QFileInfo(path).suffix().isEmpty()) path += QStringLiteral(".zip");
+    if (save_resumed_to(path)) dialog->accept();
+  });
+  layout->addWidget(buttons);
+  dialog->resize(620, 480);
+  dialog->open();
+}
+
+bool HandOff::save_resumed_to(const QString& path) {
+  if (!resumed_.run || !resumed_.bundle) return false;
+  QApplication::setOverrideCursor(Qt::WaitCursor);
+  try {
+    const formats::BundleWritten written = formats::write_resumed_bundle(
+        *resumed_.run, *resumed_.bundle, resumed_.bundle_path, path, formats::Overwrite::allow);
+    QApplication::restoreOverrideCursor();
+    last_error_.clear();
+    window_->statusBar()->showMessage(tr("Wrote the resumed bundle %1 (%2 files)")
+                                          .arg(QDir::toNativeSeparators(path))
+                                          .arg(written.entries.size()),
+                                      8000);
     return true;
+  } catch (const std::exception& e) {
+    QApplication::restoreOverrideCursor();
+    show_error(tr("Cannot save the resumed bundle"),
+               tr("The bundle %1 was not written.\n\n%2")
+                   .arg(QDir::toNativeSeparators(path), message_of(e)));
+    return false;
   }
-
-  void HandOff::resume_files(const QString& bundle_path, const QString& counts_path,
-                             const QString& first_night) {
-    if (busy()) return;
-    set_busy(tr("Planning the rest after %1…").arg(QFileInfo(counts_path).fileName()));
-    resume_->run([bundle_path, counts_path, first_night](const WorkHooks&) {
-      return load_and_resume(bundle_path, counts_path, first_night);
-    });
-  }
-
-  void HandOff::show_resume_dialog() {
-    const formats::ResumeRun& run = *resumed_.run;
-    const PlanSummary& s = run.plan.summary;
-    auto* dialog = new QDialog(window_);
-    dialog->setObjectName(QStringLiteral("resume_dialog"));
-    dialog->setAttribute(Qt::WA_DeleteOnClose);
-    dialog->setWindowTitle(tr("Resume from Counts"));
-    auto* layout = new QVBoxLayout(dialog);
-    auto* head = new QLabel(tr("<b>%1 entries are measured; %2 remain.</b> The remaining entries "
-                               "are planned from where the motors stopped. Save the new bundle "
-                               "and run it on the rig; it names %3 as its parent and carries the "
-                               "counts measured so far.")
-                                .arg(count_text(run.measured_entries))
-                                .arg(count_text(run.remaining_entries))
-                                .arg(QFileInfo(resumed_.bundle_path).fileName()));
-    head->setWordWrap(true);
-    layout->addWidget(head);
-    auto* form = new QFormLayout;
-    const auto add = [form](const QString& label, const QString& value) {
-      auto* v = new QLabel(value);
-      v->setTextInteractionFlags(Qt::TextSelectableByMouse);
-      v->setAccessibleName(label);
-      form->addRow(label, v);
-    };
-    add(tr("Steps to run"), count_text(static_cast<double>(s.steps)));
-    add(tr("Nights"), tr("%1 of %2 allowed").arg(s.nights).arg(run.campaign.nights.max_nights));
-    add(tr("Total time"), duration_text(s.total_s));
-    add(tr("Counting time"), duration_text(s.integration_s));
-    add(tr("Moving time"), duration_text(s.move_s));
-    add(tr("Gram error of the new plan (Frobenius σ)"), number_text(s.gram_sigma_frobenius, 4));
-    layout->addLayout(form);
-    layout->addWidget(new QLabel(tr("The same report as the command line prints:")));
-    auto* report = new QPlainTextEdit(QString::fromStdString(run.report()));
-    report->setReadOnly(true);
-    report->setAccessibleName(tr("Resume report"));
-    report->setFont(QFontDatabase::systemFont(QFontDatabase::FixedFont));
-    layout->addWidget(report, 1);
-    auto* buttons = new QDialogButtonBox;
-    QPushButton* save = buttons->addButton(tr("Save New Bundle…"), QDialogButtonBox::AcceptRole);
-    save->setAccessibleName(tr("Save the new bundle"));
-    buttons->addButton(QDialogButtonBox::Close);
-    connect(buttons, &QDialogButtonBox::rejected, dialog, &QDialog::reject);
-    connect(buttons, &QDialogButtonBox::accepted, dialog, [this, dialog] {
-      if (!cautions_acknowledged_()) return;
-      const QFileInfo parent(resumed_.bundle_path);
-      QString path = QFileDialog::getSaveFileName(dialog, tr("Save the Resumed Bundle"),
-                                                  parent.absolutePath() + QLatin1Char('/') +
-                                                      parent.completeBaseName() + tr("-resumed") +
-                                                      QStringLiteral(".zip"),
-                                                  gui_tr(kBundleFilter));
-      if (path.isEmpty()) return;
-      if (QFileInfo(path).suffix().isEmpty()) path += QStringLiteral(".zip");
-      if (save_resumed_to(path)) dialog->accept();
-    });
-    layout->addWidget(buttons);
-    dialog->resize(620, 480);
-    dialog->open();
-  }
-
-  bool HandOff::save_resumed_to(const QString& path) {
-    if (!resumed_.run || !resumed_.bundle) return false;
-    QApplication::setOverrideCursor(Qt::WaitCursor);
-    try {
-      const formats::BundleWritten written = formats::write_resumed_bundle(
-          *resumed_.run, *resumed_.bundle, resumed_.bundle_path, path, formats::Overwrite::allow);
-      QApplication::restoreOverrideCursor();
-      last_error_.clear();
-      window_->statusBar()->showMessage(tr("Wrote the resumed bundle %1 (%2 files)")
-                                            .arg(QDir::toNativeSeparators(path))
-                                            .arg(written.entries.size()),
-                                        8000);
-      return true;
-    } catch (const std::exception& e) {
-      QApplication::restoreOverrideCursor();
-      show_error(tr("Cannot save the resumed bundle"),
-                 tr("The bundle %1 was not written.\n\n%2")
-                     .arg(QDir::toNativeSeparators(path), message_of(e)));
-      return false;
-    }
-  }
+}
 
 }  // namespace gramline::gui

@@ -171,7 +171,7 @@ void check_entries(const QString& path, const TsFile& ts, Report& report) {
 }
 
 // Part (2): what lupdate finds in the code against what the file holds.
-void check_against_code(const QString& path, const QString& lupdate, const QString& sources,
+void check_against_code(const QString& path, const QString& lupdate, const QStringList& sources,
                         Report& report) {
   QTemporaryDir dir;
   const QString copy = dir.filePath(QFileInfo(path).fileName());
@@ -181,8 +181,8 @@ void check_against_code(const QString& path, const QString& lupdate, const QStri
   }
   QProcess run;
   run.setProcessChannelMode(QProcess::MergedChannels);
-  run.start(lupdate, {QStringLiteral("-locations"), QStringLiteral("none"), sources,
-                      QStringLiteral("-ts"), copy});
+  run.start(lupdate, QStringList{QStringLiteral("-locations"), QStringLiteral("none")} + sources +
+                         QStringList{QStringLiteral("-ts"), copy});
   if (!run.waitForFinished(300000) || run.exitStatus() != QProcess::NormalExit ||
       run.exitCode() != 0) {
     report.finding(path,
@@ -215,14 +215,15 @@ void check_against_code(const QString& path, const QString& lupdate, const QStri
 int main(int argc, char** argv) {
   QCoreApplication app(argc, argv);
   QStringList args = app.arguments().mid(1);
-  QString lupdate, sources;
+  QString lupdate;
+  QStringList sources;  // folders or files lupdate scans; --sources may be given more than once
   QStringList ts_files;
   while (!args.isEmpty()) {
     const QString a = args.takeFirst();
     if (a == QLatin1String("--lupdate") && !args.isEmpty())
       lupdate = args.takeFirst();
     else if (a == QLatin1String("--sources") && !args.isEmpty())
-      sources = args.takeFirst();
+      sources << args.takeFirst();
     else
       ts_files.append(a);
   }

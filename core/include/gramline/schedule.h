@@ -54,10 +54,10 @@ struct ScheduleInput {
 struct ScheduleOptions {
   std::uint64_t seed = 1;
   bool optimize_order = true;  ///< false: the row-by-row order
+  WorkHooks hooks;
   /// Also the Held-Karp 1-tree bound (up to seconds on thousands of settings); false: only the
   /// per-entry bound, for a quick plan on every edit.
   bool tree_bound = true;
-  WorkHooks hooks;
 };
 
 struct ScheduleResult {
