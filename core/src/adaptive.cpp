@@ -226,7 +226,7 @@ StopRuleResult evaluate_stop_rule(const KernelBelief& belief, const Eigen::Vecto
   CheckSettings thresholds;
   thresholds.flip_threshold = options.flip_threshold;
   thresholds.margin_ratio_threshold = options.margin_ratio_threshold;
-  const Verdict verdict = judge(r.trials, thresholds, belief.train_count());
+  const Verdict verdict = judge(r.trials, thresholds, belief.train_count(), "best-estimate");
   r.stop = verdict.pass;
   r.reasons = verdict.reasons;
   for (const TestPointOutcome& p : r.trials.points)

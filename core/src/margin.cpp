@@ -176,8 +176,8 @@ class PreparedDraws {
     // each gives (reference_calibration, detection.h).
     std::vector<Calibration> cal(refs_.size());
     for (size_t k = 0; k < refs_.size(); ++k) {
-      const SettingCounts counts =
-          draw_counts(refs_[k], stream_seed(trial_seed, entries + k), refs_[k].pass, refs_[k].other);
+      const SettingCounts counts = draw_counts(refs_[k], stream_seed(trial_seed, entries + k),
+                                               refs_[k].pass, refs_[k].other);
       cal[k] =
           reference_calibration(problem_.scheme, problem_.photons, *refs_[k].calibration, counts);
     }
@@ -465,14 +465,15 @@ std::string TrialSummary::report() const {
   return out.str();
 }
 
-Verdict judge(const TrialSummary& summary, const CheckSettings& settings, int train_count) {
+Verdict judge(const TrialSummary& summary, const CheckSettings& settings, int train_count,
+              const std::string& reference) {
   Verdict v;
   for (const TestPointOutcome& p : summary.points) {
     if (p.flip_probability.value <= settings.flip_threshold) continue;
     std::ostringstream why;
     why << "test point " << p.test_index << " (point " << train_count + p.test_index
         << "): label flips in " << percent_text(p.flip_probability) << " of trials, above "
-        << 100 * settings.flip_threshold << "%; noiseless f = " << std::setprecision(4)
+        << 100 * settings.flip_threshold << "%; " << reference << " f = " << std::setprecision(4)
         << p.decision_ideal << ", noise sd of f = " << p.decision_sd;
     if (p.decision_sd > 0)
       why << " (" << std::setprecision(3) << std::abs(p.decision_ideal) / p.decision_sd

@@ -142,7 +142,10 @@ struct Verdict {
   bool pass = false;
   std::vector<std::string> reasons;  ///< one line per failing point or figure
 };
-Verdict judge(const TrialSummary& summary, const CheckSettings& settings, int train_count);
+/// `reference` names the classifier the flips are counted against in the reasons ("noiseless"
+/// for the margin check, the best estimate for the stop rule).
+Verdict judge(const TrialSummary& summary, const CheckSettings& settings, int train_count,
+              const std::string& reference = "noiseless");
 
 /// allocate_pairs (allocation.h) over every measure entry of the problem (training upper
 /// triangle and test block); writes problem.pairs_train / pairs_test.
