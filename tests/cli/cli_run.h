@@ -1,5 +1,7 @@
 #pragma once
 // Runs the gramline-cli built beside the tests and collects its exit status and output.
+#include <gtest/gtest.h>
+
 #include <QFile>
 #include <QJsonDocument>
 #include <QJsonObject>
@@ -7,6 +9,7 @@
 #include <QProcessEnvironment>
 #include <QString>
 #include <QStringList>
+#include <QTemporaryDir>
 #include <string>
 
 namespace cli_test {
@@ -57,5 +60,17 @@ inline bool write_text(const QString& path, const std::string& text) {
 inline QJsonObject read_json(const QString& path) {
   return QJsonDocument::fromJson(QByteArray::fromStdString(read_text(path))).object();
 }
+
+/// A test that starts from the demo campaign, written by `gramline-cli demo` into a temporary
+/// folder.
+class DemoCampaignTest : public ::testing::Test {
+ protected:
+  void SetUp() override {
+    campaign_ = dir_.filePath("demo.json");
+    ASSERT_EQ(run_cli({"demo", "--out", campaign_}).status, 0);
+  }
+  QTemporaryDir dir_;
+  QString campaign_;
+};
 
 }  // namespace cli_test

@@ -62,15 +62,7 @@ std::map<QString, std::string> snapshot(const QString& dir) {
   return out;
 }
 
-class DataSafety : public ::testing::Test {
- protected:
-  void SetUp() override {
-    campaign_ = dir_.filePath("demo.json");
-    ASSERT_EQ(run_cli({"demo", "--out", campaign_}).status, 0);
-  }
-  QTemporaryDir dir_;
-  QString campaign_;
-};
+class DataSafety : public cli_test::DemoCampaignTest {};
 
 // --- A full disk ----------------------------------------------------------------------------
 

@@ -64,15 +64,9 @@ double overlap_deg(double th_a, double ph_a, double th_b, double ph_b) {
   return 0.5 * (1.0 + dot);
 }
 
-std::string read_text(const QString& path) {
-  QFile f(path);
-  if (!f.open(QIODevice::ReadOnly)) return {};
-  return f.readAll().toStdString();
-}
+using cli_test::read_text;
 void write_text(const QString& path, const std::string& text) {
-  QFile f(path);
-  ASSERT_TRUE(f.open(QIODevice::WriteOnly));
-  f.write(text.data(), static_cast<qint64>(text.size()));
+  ASSERT_TRUE(cli_test::write_text(path, text)) << path.toStdString();
 }
 
 // A data CSV of our own: `features` columns, classes "good" / "bad" by the sign of a seeded

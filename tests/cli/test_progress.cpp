@@ -77,15 +77,7 @@ CliRun run_with_terminal_stderr(const QStringList& arguments) {
   return run;
 }
 
-class Progress : public ::testing::Test {
- protected:
-  void SetUp() override {
-    campaign_ = dir_.filePath("demo.json");
-    ASSERT_EQ(run_cli({"demo", "--out", campaign_}).status, 0);
-  }
-  QTemporaryDir dir_;
-  QString campaign_;
-};
+class Progress : public cli_test::DemoCampaignTest {};
 
 TEST_F(Progress, TheMarginCheckDrawsItsProgressOnATerminalAndClearsIt) {
   const CliRun run = run_with_terminal_stderr(
